@@ -1,0 +1,18 @@
+// Public entry: the functional core and the fluent layer. Each area keeps its own barrel.
+export { createRandom } from './random';
+export type { Random, Seed } from './random';
+export { KinsortError } from './core/errors';
+export type { ErrorCode } from './core/errors';
+export { createMatrix, toMatrix, toNested, isMatrix } from './core/matrix';
+export type { Matrix, RowsInput } from './core/matrix';
+export type { ProgressEvent, ProgressCallback } from './core/progress';
+export * from './table';
+export * from './prepare';
+export * from './measure';
+export * from './methods/partition';
+export * from './methods/hierarchy';
+export * from './methods/project';
+export * from './assess';
+export * from './segments';
+export * from './views';
+export * from './notebook';
