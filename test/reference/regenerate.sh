@@ -1,0 +1,6 @@
+#!/usr/bin/env bash
+# Regenerate every reference fixture from its script (Debian python3-scipy, python3-sklearn, r-base-core, r-cran-cluster).
+set -euo pipefail
+cd "$(dirname "$0")"
+for f in *.py; do [ -e "$f" ] && /usr/bin/python3 "$f"; done
+for f in *.R; do [ -e "$f" ] && Rscript "$f"; done
