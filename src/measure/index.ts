@@ -1,1 +1,6 @@
 export * from './condensed';
+export { dissimilarity } from './dissimilarity';
+export type { DissimilarityOptions } from './dissimilarity';
+export { gowerDissimilarity } from './gower';
+export { distanceFunction, METRICS, ROW_METRICS, TRUE_METRICS } from './metrics';
+export type { MetricName, RowMetric, PairKernel } from './metrics';
