@@ -1,0 +1,85 @@
+// CSV text and files, parsed by papaparse. We normalise line endings first so CRLF, LF and mixed
+// files all parse the same, and we refuse ragged rows by line number rather than padding them.
+import { readFileSync } from 'fs';
+import Papa from 'papaparse';
+import { KinsortError } from '../core/errors';
+
+export type CsvDelimiter = ',' | ';' | '\t';
+const DELIMITERS: readonly string[] = [',', ';', '\t'];
+
+export interface RawColumns {
+  readonly names: string[];
+  /** columns[j][i]: column j, row i, as given. */
+  readonly columns: unknown[][];
+  /** Where the input came from, for messages. */
+  readonly source: string;
+  /** 1-based line number where each data row starts (CSV only). */
+  readonly lines?: number[];
+}
+
+/** Parse CSV text into a header and rows of strings. */
+export function parseCsvText(text: string, delimiter?: string): RawColumns {
+  if (typeof text !== 'string') throw new KinsortError('CSV input must be text.', 'bad-input');
+  if (delimiter !== undefined && !DELIMITERS.includes(delimiter)) {
+    throw new KinsortError(
+      `CSV delimiter ${JSON.stringify(delimiter)} is not supported; use ",", ";" or "\\t" (tab).`,
+      'bad-option',
+    );
+  }
+  const clean = (text.charCodeAt(0) === 0xfeff ? text.slice(1) : text).replace(/\r\n?/g, '\n');
+  if (clean.trim() === '') throw new KinsortError('CSV input is empty: no header and no rows.', 'empty');
+
+  const rows: string[][] = [];
+  const lines: number[] = [];
+  // Line of each row start: count newlines up to the row's first character.
+  let line = 1;
+  let scanned = 0;
+  let rowStart = 0;
+  const errors: Papa.ParseError[] = [];
+  Papa.parse<string[]>(clean, {
+    delimiter: delimiter ?? '',
+    delimitersToGuess: [',', ';', '\t'],
+    newline: '\n',
+    skipEmptyLines: true,
+    step: (result) => {
+      const end = result.meta.cursor;
+      // Skip blank lines papaparse dropped before this row.
+      let start = rowStart;
+      while (start < end && clean[start] === '\n') start++;
+      for (; scanned < start; scanned++) if (clean[scanned] === '\n') line++;
+      rows.push(result.data);
+      lines.push(line);
+      rowStart = end;
+      if (result.errors.length > 0) errors.push(...result.errors.map((e) => ({ ...e, row: rows.length - 1 })));
+    },
+  });
+  const quoteError = errors.find((e) => e.type === 'Quotes');
+  if (quoteError) {
+    const at = quoteError.row === undefined ? '' : ` (row starting on line ${lines[quoteError.row] ?? '?'})`;
+    throw new KinsortError(`CSV: ${quoteError.message}${at}; check for an unclosed quote.`, 'bad-input');
+  }
+  const header = rows[0].map((h) => h.trim());
+  const body = rows.slice(1);
+  for (let i = 0; i < body.length; i++) {
+    if (body[i].length !== header.length) {
+      throw new KinsortError(
+        `CSV: line ${lines[i + 1]} (data row ${i + 1}) has ${body[i].length} fields but the header on ` +
+          `line ${lines[0]} has ${header.length}; every row needs the same columns.`,
+        'ragged',
+      );
+    }
+  }
+  const columns = header.map((_, j) => body.map((row) => row[j]));
+  return { names: header, columns, source: 'CSV', lines: lines.slice(1) };
+}
+
+/** Read a CSV file as UTF-8 text and parse it. */
+export function readCsvText(path: string, delimiter?: string): RawColumns {
+  let text: string;
+  try {
+    text = readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new KinsortError(`Cannot read CSV file "${path}": ${(e as Error).message}`, 'bad-input');
+  }
+  return { ...parseCsvText(text, delimiter), source: `CSV file "${path}"` };
+}
