@@ -1,1 +1,10 @@
-export {};
+// Validity measures, choosing k, and stability.
+export { silhouette, SILHOUETTE_ROW_METRICS } from './silhouette';
+export type { SilhouetteOptions, SilhouetteResult, SilhouetteRowMetric } from './silhouette';
+export { calinskiHarabasz } from './calinski-harabasz';
+export { daviesBouldin } from './davies-bouldin';
+export { contingencyTable } from './contingency';
+export type { ContingencyTable } from './contingency';
+export { adjustedRandIndex } from './adjusted-rand';
+export { normalizedMutualInfo, MUTUAL_INFORMATION_AVERAGES } from './mutual-information';
+export type { NormalizedMutualInfoOptions, MutualInformationAverage } from './mutual-information';
