@@ -14,7 +14,7 @@ const labelled = fc
   .integer({ min: 3, max: 40 })
   .chain((n) =>
     fc.record({
-      rows: fc.array(fc.array(fc.double({ min: -100, max: 100, noNaN: true }), { minLength: 2, maxLength: 2 }), {
+      rows: fc.array(fc.array(fc.integer({ min: -10000, max: 10000 }).map((v) => v / 100), { minLength: 2, maxLength: 2 }), {
         minLength: n,
         maxLength: n,
       }),
