@@ -1,1 +1,3 @@
-export {};
+// Partitioning methods: k-means (full batch and mini-batch) and k-medoids (PAM).
+export { kmeans } from './kmeans';
+export type { KmeansOptions, KmeansResult, KmeansStart } from './kmeans';

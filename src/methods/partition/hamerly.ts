@@ -1,0 +1,275 @@
+// Lloyd's k-means iterations accelerated with Hamerly's (2010) bounds: per row one upper bound
+// on the distance to its own centre and one lower bound on the distance to any other centre.
+// A row whose upper bound is below max(lower bound, half the distance from its centre to the
+// nearest other centre) cannot change segment, so its distances are not computed at all.
+// All state lives in flat typed arrays allocated once per k-means call and reused by restarts.
+
+/** Scratch arrays for one k-means call (n rows, d columns, k centres). */
+export interface LloydWorkspace {
+  readonly n: number;
+  readonly d: number;
+  readonly k: number;
+  readonly assignment: Int32Array;
+  readonly upper: Float64Array;
+  readonly lower: Float64Array;
+  readonly sums: Float64Array;
+  readonly counts: Float64Array;
+  readonly previous: Float64Array;
+  readonly moved: Float64Array;
+  readonly halfGap: Float64Array;
+  /** Rows by decreasing distance, used only when a segment goes empty. */
+  readonly order: Int32Array;
+  readonly rowDistance: Float64Array;
+}
+
+export function createWorkspace(n: number, d: number, k: number): LloydWorkspace {
+  return {
+    n,
+    d,
+    k,
+    assignment: new Int32Array(n),
+    upper: new Float64Array(n),
+    lower: new Float64Array(n),
+    sums: new Float64Array(k * d),
+    counts: new Float64Array(k),
+    previous: new Float64Array(k * d),
+    moved: new Float64Array(k),
+    halfGap: new Float64Array(k),
+    order: new Int32Array(n),
+    rowDistance: new Float64Array(n),
+  };
+}
+
+export interface LloydRun {
+  /** Centre updates made. */
+  iterations: number;
+  /** True when the centres stopped moving (within tolerance) before maxIterations. */
+  converged: boolean;
+  /** Within-SS after each centre update, when asked for (tests only). */
+  trace?: number[];
+}
+
+/**
+ * Run Lloyd iterations from the centres in `centers` (k × d, overwritten with the final ones).
+ * The assignment is left in `ws.assignment`. Stops when the summed squared centre movement is at
+ * most `tolerance` (an absolute value; the caller scales it), or after `maxIterations` updates.
+ */
+export function runHamerly(
+  data: Float64Array,
+  centers: Float64Array,
+  ws: LloydWorkspace,
+  maxIterations: number,
+  tolerance: number,
+  trace: boolean,
+): LloydRun {
+  const { n, d, k, assignment, upper, lower, sums, counts, previous, moved, halfGap } = ws;
+  const traceValues: number[] | undefined = trace ? [] : undefined;
+  sums.fill(0);
+  counts.fill(0);
+
+  // First assignment: every distance, once.
+  for (let i = 0; i < n; i++) {
+    const ib = i * d;
+    let best = 0;
+    let bestD = Infinity;
+    let secondD = Infinity;
+    for (let c = 0; c < k; c++) {
+      const cb = c * d;
+      let s = 0;
+      for (let j = 0; j < d; j++) {
+        const diff = data[ib + j] - centers[cb + j];
+        s += diff * diff;
+      }
+      if (s < bestD) {
+        secondD = bestD;
+        bestD = s;
+        best = c;
+      } else if (s < secondD) {
+        secondD = s;
+      }
+    }
+    assignment[i] = best;
+    upper[i] = Math.sqrt(bestD);
+    lower[i] = Math.sqrt(secondD);
+    counts[best]++;
+    const sb = best * d;
+    for (let j = 0; j < d; j++) sums[sb + j] += data[ib + j];
+  }
+
+  let iterations = 0;
+  let converged = false;
+  for (;;) {
+    // Centres to the means of their rows; how far each moved (from before any repair, so a
+    // repaired centre's jump is counted in the bounds too).
+    previous.set(centers);
+    repairEmpty(data, centers, ws);
+    let shift = 0;
+    for (let c = 0; c < k; c++) {
+      const cb = c * d;
+      const inv = 1 / counts[c];
+      let s = 0;
+      for (let j = 0; j < d; j++) {
+        const v = sums[cb + j] * inv;
+        const diff = v - previous[cb + j];
+        s += diff * diff;
+        centers[cb + j] = v;
+      }
+      moved[c] = Math.sqrt(s);
+      shift += s;
+    }
+    iterations++;
+    if (traceValues) traceValues.push(withinFor(data, centers, assignment, n, d));
+    if (shift <= tolerance) {
+      converged = true;
+      break;
+    }
+    if (iterations >= maxIterations) break;
+
+    // Bounds follow the centres: own centre's move widens the upper bound; the largest move of
+    // any other centre narrows the lower bound.
+    let most = 0;
+    let mostAt = -1;
+    let secondMost = 0;
+    for (let c = 0; c < k; c++) {
+      const m = moved[c];
+      if (m > most) {
+        secondMost = most;
+        most = m;
+        mostAt = c;
+      } else if (m > secondMost) {
+        secondMost = m;
+      }
+    }
+    for (let i = 0; i < n; i++) {
+      const a = assignment[i];
+      upper[i] += moved[a];
+      lower[i] -= a === mostAt ? secondMost : most;
+    }
+
+    // Half the distance from each centre to its nearest other centre.
+    for (let c = 0; c < k; c++) halfGap[c] = Infinity;
+    for (let c = 0; c < k; c++) {
+      const cb = c * d;
+      for (let e = c + 1; e < k; e++) {
+        const eb = e * d;
+        let s = 0;
+        for (let j = 0; j < d; j++) {
+          const diff = centers[cb + j] - centers[eb + j];
+          s += diff * diff;
+        }
+        const h = 0.5 * Math.sqrt(s);
+        if (h < halfGap[c]) halfGap[c] = h;
+        if (h < halfGap[e]) halfGap[e] = h;
+      }
+    }
+
+    // Assignment step: only rows whose bounds allow a change are looked at.
+    for (let i = 0; i < n; i++) {
+      const a = assignment[i];
+      const bound = halfGap[a] > lower[i] ? halfGap[a] : lower[i];
+      if (upper[i] <= bound) continue;
+      const ib = i * d;
+      const ab = a * d;
+      let own = 0;
+      for (let j = 0; j < d; j++) {
+        const diff = data[ib + j] - centers[ab + j];
+        own += diff * diff;
+      }
+      own = Math.sqrt(own);
+      upper[i] = own;
+      if (own <= bound) continue;
+      let best = a;
+      let bestD = own * own;
+      let secondD = Infinity;
+      for (let c = 0; c < k; c++) {
+        if (c === a) continue;
+        const cb = c * d;
+        let s = 0;
+        for (let j = 0; j < d; j++) {
+          const diff = data[ib + j] - centers[cb + j];
+          s += diff * diff;
+        }
+        // Ties go to the lower segment number.
+        if (s < bestD || (s === bestD && c < best)) {
+          secondD = bestD;
+          bestD = s;
+          best = c;
+        } else if (s < secondD) {
+          secondD = s;
+        }
+      }
+      upper[i] = Math.sqrt(bestD);
+      lower[i] = Math.sqrt(secondD);
+      if (best !== a) {
+        assignment[i] = best;
+        counts[a]--;
+        counts[best]++;
+        const bb = best * d;
+        for (let j = 0; j < d; j++) {
+          const v = data[ib + j];
+          sums[ab + j] -= v;
+          sums[bb + j] += v;
+        }
+      }
+    }
+  }
+  return { iterations, converged, trace: traceValues };
+}
+
+/**
+ * Give every empty segment one row, deterministically: rows are taken by decreasing distance to
+ * their current centre (ties: lower row first), skipping rows whose segment would go empty in
+ * turn; the empty centre then sits on that row. The moved row's bounds are reset so it is
+ * looked at again.
+ */
+export function repairEmpty(data: Float64Array, centers: Float64Array, ws: LloydWorkspace): number {
+  const { n, d, k, counts } = ws;
+  let empty = 0;
+  for (let c = 0; c < k; c++) if (counts[c] === 0) empty++;
+  if (empty === 0) return 0;
+  const { assignment, sums, upper, lower, order, rowDistance } = ws;
+  for (let i = 0; i < n; i++) {
+    rowDistance[i] = squaredDistance(data, i * d, centers, assignment[i] * d, d);
+    order[i] = i;
+  }
+  const sorted = Array.from(order).sort((a, b) => rowDistance[b] - rowDistance[a] || a - b);
+  let next = 0;
+  for (let c = 0; c < k; c++) {
+    if (counts[c] !== 0) continue;
+    while (next < n && counts[assignment[sorted[next]]] <= 1) next++;
+    if (next >= n) break; // cannot happen when k ≤ distinct rows, which the caller checks
+    const i = sorted[next++];
+    const from = assignment[i];
+    const ib = i * d;
+    const fb = from * d;
+    const cb = c * d;
+    for (let j = 0; j < d; j++) {
+      const v = data[ib + j];
+      sums[fb + j] -= v;
+      sums[cb + j] = v;
+      centers[cb + j] = v;
+    }
+    counts[from]--;
+    counts[c] = 1;
+    assignment[i] = c;
+    upper[i] = Infinity;
+    lower[i] = 0;
+  }
+  return empty;
+}
+
+export function squaredDistance(a: Float64Array, ab: number, b: Float64Array, bb: number, d: number): number {
+  let s = 0;
+  for (let j = 0; j < d; j++) {
+    const diff = a[ab + j] - b[bb + j];
+    s += diff * diff;
+  }
+  return s;
+}
+
+/** Within-SS of an assignment against given centres. */
+export function withinFor(data: Float64Array, centers: Float64Array, assignment: Int32Array, n: number, d: number): number {
+  let total = 0;
+  for (let i = 0; i < n; i++) total += squaredDistance(data, i * d, centers, assignment[i] * d, d);
+  return total;
+}

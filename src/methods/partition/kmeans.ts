@@ -1,0 +1,173 @@
+// k-means: k-means++ starts (or random rows, or given centres), Lloyd iterations with Hamerly
+// bounds, several restarts each on its own random stream, the lowest within-SS kept.
+import { KinsortError } from '../../core/errors';
+import { toMatrix, type RowsInput } from '../../core/matrix';
+import { checkInteger, checkNumber, checkOptions } from '../../core/options';
+import { report, type ProgressCallback } from '../../core/progress';
+import { createRandom, type Seed } from '../../random';
+import { createWorkspace, runHamerly } from './hamerly';
+import { checkSegmentCount, partitionRows } from './partition-input';
+import { assignNearest, centresToMeans, meanColumnVariance, partitionFigures } from './partition-summary';
+import { seedPlusPlus, seedRandomRows } from './seeding';
+
+export type KmeansStart = 'k-means++' | 'random' | readonly (readonly number[])[];
+
+export interface KmeansOptions {
+  /** Number of segments (required). */
+  k: number;
+  /** Seed of the random starts (default 0). Restart r uses createRandom(seed).fork(r). */
+  seed?: Seed;
+  /** Independent starts; the one with the lowest within-SS is kept (default 10; 1 with given centres). */
+  restarts?: number;
+  /** Most centre updates per restart (default 300). */
+  maxIterations?: number;
+  /**
+   * Stop when the summed squared movement of the centres is at most tolerance × the mean of the
+   * column variances (default 1e-4; scaling by the data's variance is scikit-learn's convention).
+   * 0 runs until no row changes segment.
+   */
+  tolerance?: number;
+  /** How to start: 'k-means++' (default), 'random' rows, or k given centres (k rows × d). */
+  start?: KmeansStart;
+  /** Called after each restart. */
+  onProgress?: ProgressCallback;
+  /** @internal Record the within-SS after every centre update of the kept restart (tests). */
+  trace?: boolean;
+}
+
+export interface KmeansResult {
+  readonly kind: 'kmeans';
+  /** 'lloyd' for full-batch runs, 'mini-batch' for kmeansMiniBatch. */
+  readonly variant: 'lloyd' | 'mini-batch';
+  readonly k: number;
+  /** Segment of each row, 0..k-1. */
+  readonly assignment: Int32Array;
+  /** Centre of each segment (the mean of its rows). */
+  readonly centers: number[][];
+  readonly sizes: number[];
+  /** Within-segment sum of squared Euclidean distances to the centres. */
+  readonly withinSS: number;
+  readonly withinSSBySegment: number[];
+  /** Σ size × squared distance of each centre to the grand mean. */
+  readonly betweenSS: number;
+  /** Σ squared distance of each row to the grand mean (= withinSS + betweenSS up to rounding). */
+  readonly totalSS: number;
+  /** Centre updates of the kept restart. */
+  readonly iterations: number;
+  /** Whether the kept restart stopped within tolerance before maxIterations. */
+  readonly converged: boolean;
+  readonly restartsRun: number;
+  /** Within-SS reached by each restart, in order. */
+  readonly restartWithinSS: number[];
+  /** @internal Per-update within-SS of the kept restart, when `trace` was asked for. */
+  readonly withinSSTrace?: number[];
+}
+
+const KMEANS_OPTIONS = ['k', 'seed', 'restarts', 'maxIterations', 'tolerance', 'start', 'onProgress', 'trace'] as const;
+
+/**
+ * Partition rows into k segments by k-means.
+ *
+ * The final assignment puts every row at its nearest centre (ties: lower segment number) as the
+ * iterations left them, and the centres are then the means of their rows; with tolerance 0 the
+ * run continues until no row moves, so both hold together exactly. A segment that goes empty is
+ * given the row farthest from its own centre (see `repairEmpty`).
+ */
+export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
+  const where = 'kmeans';
+  const opts = checkOptions(options, KMEANS_OPTIONS, where);
+  const m = partitionRows(rows, where);
+  const k = checkSegmentCount(opts.k, m, where);
+  const n = m.rows;
+  const d = m.cols;
+  const maxIterations = checkInteger(opts.maxIterations ?? 300, 'kmeans: maxIterations', 1);
+  const tolerance = checkNumber(opts.tolerance ?? 1e-4, 'kmeans: tolerance', 0);
+  const start = opts.start ?? 'k-means++';
+  const given = typeof start === 'string' ? undefined : givenCentres(start, k, d);
+  if (typeof start === 'string' && start !== 'k-means++' && start !== 'random') {
+    throw new KinsortError(
+      `kmeans: start must be "k-means++", "random" or k given centres (an array of ${k} rows × ${d} numbers); got "${start}".`,
+      'bad-option',
+    );
+  }
+  if (given && opts.restarts !== undefined && opts.restarts !== 1) {
+    throw new KinsortError(
+      `kmeans: restarts = ${opts.restarts} with given centres would repeat the same run; leave restarts out or set it to 1.`,
+      'bad-option',
+    );
+  }
+  const restarts = given ? 1 : checkInteger(opts.restarts ?? 10, 'kmeans: restarts', 1);
+  const trace = opts.trace === true;
+
+  const data = m.data;
+  const absoluteTolerance = tolerance * meanColumnVariance(data, n, d);
+  const ws = createWorkspace(n, d, k);
+  const centers = new Float64Array(k * d);
+  const root = createRandom(opts.seed ?? 0);
+
+  let best: { within: number; assignment: Int32Array; centers: Float64Array; iterations: number; converged: boolean; trace?: number[] } | undefined;
+  const restartWithinSS: number[] = [];
+  for (let r = 0; r < restarts; r++) {
+    if (given) centers.set(given);
+    else if (start === 'random') seedRandomRows(data, n, d, k, root.fork(r), centers);
+    else seedPlusPlus(data, n, d, k, root.fork(r), centers);
+
+    const run = runHamerly(data, centers, ws, maxIterations, absoluteTolerance, trace);
+    // Exact finish: nearest centre for every row, then centres to the means of their rows.
+    assignNearest(data, centers, ws);
+    centresToMeans(data, centers, ws);
+    const figures = partitionFigures(data, n, d, k, ws.assignment, centers);
+    restartWithinSS.push(figures.withinSS);
+    // Strictly lower: ties keep the earlier restart.
+    if (best === undefined || figures.withinSS < best.within) {
+      best = {
+        within: figures.withinSS,
+        assignment: ws.assignment.slice(),
+        centers: centers.slice(),
+        iterations: run.iterations,
+        converged: run.converged,
+        trace: run.trace,
+      };
+    }
+    report(opts.onProgress, { task: 'k-means restarts', done: r + 1, total: restarts, detail: `k = ${k}` });
+  }
+  const kept = best!;
+  const figures = partitionFigures(data, n, d, k, kept.assignment, kept.centers);
+  return {
+    kind: 'kmeans',
+    variant: 'lloyd',
+    k,
+    assignment: kept.assignment,
+    centers: nestedCentres(kept.centers, k, d),
+    ...figures,
+    iterations: kept.iterations,
+    converged: kept.converged,
+    restartsRun: restarts,
+    restartWithinSS,
+    ...(kept.trace ? { withinSSTrace: kept.trace } : {}),
+  };
+}
+
+/** Given starting centres: exactly k rows of d finite numbers. */
+export function givenCentres(start: unknown, k: number, d: number): Float64Array {
+  if (!Array.isArray(start)) {
+    throw new KinsortError(
+      `kmeans: start must be "k-means++", "random" or k given centres (an array of ${k} rows × ${d} numbers).`,
+      'bad-option',
+    );
+  }
+  const c = toMatrix(start as number[][], { what: 'kmeans: start centres' });
+  if (c.rows !== k || c.cols !== d) {
+    throw new KinsortError(
+      `kmeans: the given start centres are ${c.rows} × ${c.cols}, but k = ${k} and the rows have ${d} columns; give ${k} rows of ${d} numbers.`,
+      'bad-option',
+    );
+  }
+  return c.data.slice();
+}
+
+export function nestedCentres(centers: Float64Array, k: number, d: number): number[][] {
+  const out: number[][] = new Array(k);
+  for (let c = 0; c < k; c++) out[c] = Array.from(centers.subarray(c * d, (c + 1) * d));
+  return out;
+}
