@@ -1,0 +1,81 @@
+'use strict';
+// Side-by-side rows: kinsort and one peer on the same data set, timed in the same run.
+const { median, timeRepeats } = require('./timing');
+const { toNestedRows } = require('./data');
+
+function targetText(ratioMax) {
+  if (ratioMax === null || ratioMax === undefined) return 'none (information)';
+  if (ratioMax < 1) return `≥ ${Math.round(1 / ratioMax)}× faster`;
+  return `≤ ${ratioMax.toFixed(1)}×`;
+}
+
+/** PASS / MISS against the ratio target, or why there is no verdict. */
+function verdict(kinsortMs, peerMs, ratioMax) {
+  if (!Number.isFinite(kinsortMs)) return 'PENDING';
+  if (!Number.isFinite(peerMs)) return 'SKIP';
+  if (ratioMax === null || ratioMax === undefined) return 'info';
+  return kinsortMs / peerMs <= ratioMax ? 'PASS' : 'MISS';
+}
+
+/**
+ * Time kinsort's call for a case on a data set: { ms, times } or { ms: NaN, note } when the
+ * function has not landed in dist/ yet or fails.
+ */
+async function timeKinsort(kinsort, functionName, call, set, timing) {
+  if (typeof kinsort[functionName] !== 'function') {
+    return { ms: NaN, times: [], note: `kinsort.${functionName} is not in dist/ yet` };
+  }
+  const matrix = kinsort.createMatrix(set.n, set.d, set.data);
+  try {
+    const times = await timeRepeats(() => call(kinsort, matrix, set), timing);
+    return { ms: median(times), times };
+  } catch (err) {
+    return { ms: NaN, times: [], note: `kinsort failed: ${err.message}` };
+  }
+}
+
+async function timePython(python, caseName, set, params, timing) {
+  if (!python) return { ms: NaN, times: [], note: 'python peer not run' };
+  try {
+    const { times } = await python.time(caseName, set, params, timing);
+    return { ms: median(times), times };
+  } catch (err) {
+    return { ms: NaN, times: [], note: err.message };
+  }
+}
+
+async function timeNpm(work, set, timing) {
+  const rows = toNestedRows(set.data, set.n, set.d); // arrays of arrays: their input shape, built untimed
+  try {
+    const times = await timeRepeats(() => work(rows), timing);
+    return { ms: median(times), times };
+  } catch (err) {
+    return { ms: NaN, times: [], note: `failed: ${err.message}` };
+  }
+}
+
+/** One output row (also one JSON line). */
+function makeRow({ caseId, title, set, tool, kinsort, peer, ratioMax, extra }) {
+  const ratio = kinsort.ms / peer.ms;
+  const notes = [kinsort.note, peer.note].filter(Boolean);
+  return {
+    type: 'case',
+    case: caseId,
+    title,
+    n: set.n,
+    d: set.d,
+    tool,
+    kinsortMs: kinsort.ms,
+    kinsortTimes: kinsort.times,
+    peerMs: peer.ms,
+    peerTimes: peer.times,
+    ratio: Number.isFinite(ratio) ? ratio : null,
+    target: targetText(ratioMax),
+    status: verdict(kinsort.ms, peer.ms, ratioMax),
+    peakMB: null,
+    note: notes.join('; ') || undefined,
+    ...extra,
+  };
+}
+
+module.exports = { timeKinsort, timePython, timeNpm, makeRow, targetText, verdict };

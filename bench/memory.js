@@ -1,0 +1,98 @@
+'use strict';
+// The memory case: Ward from vectors at n = 30,000. kinsort runs in a child node process, SciPy in
+// a fresh python process, so each peak resident set size belongs to that computation alone.
+const { spawn } = require('child_process');
+const path = require('path');
+const { timePythonOnce } = require('./python-peer');
+const { availableMB } = require('./machine');
+const { targetText, verdict } = require('./compare');
+
+function runKinsortChild(distDir, set, method, timeoutMs) {
+  const args = [path.join(__dirname, 'memory-child.js'), distDir, set.dataFile, String(set.n), String(set.d), method];
+  return new Promise((resolve) => {
+    const child = spawn(process.execPath, args, { stdio: ['ignore', 'pipe', 'pipe'] });
+    let out = '';
+    let err = '';
+    const timer = setTimeout(() => child.kill('SIGKILL'), timeoutMs);
+    child.stdout.on('data', (c) => (out += c));
+    child.stderr.on('data', (c) => (err = (err + c).slice(-2000)));
+    child.on('exit', (code, signal) => {
+      clearTimeout(timer);
+      if (code === 0) {
+        try {
+          return resolve(JSON.parse(out.trim().split('\n').pop()));
+        } catch {
+          /* fall through to the failure below */
+        }
+      }
+      const why = signal === 'SIGKILL' ? `stopped after ${timeoutMs / 1000} s` : `ended with ${signal ?? code}`;
+      resolve({ ms: NaN, peakMB: NaN, note: `kinsort child ${why}: ${err.split('\n').slice(0, 3).join(' ')}` });
+    });
+  });
+}
+
+/** SciPy's linkage keeps the condensed matrix and a copy: about n² · 8 bytes. */
+function scipyNeedsMB(n) {
+  return (n * n * 8) / 2 ** 20;
+}
+
+async function runMemoryCase({ kinsort, distDir, memoryCase, set, python, skipPython }) {
+  const base = { type: 'case', case: memoryCase.id, title: memoryCase.title, n: set.n, d: set.d };
+  let mine;
+  if (typeof kinsort[memoryCase.kinsortFunction] !== 'function') {
+    mine = { ms: NaN, peakMB: NaN, note: `kinsort.${memoryCase.kinsortFunction} is not in dist/ yet` };
+  } else {
+    mine = await runKinsortChild(distDir, set, memoryCase.method, 3 * memoryCase.maxMs);
+  }
+  const limitsMet = mine.ms <= memoryCase.maxMs && mine.peakMB <= memoryCase.maxMB;
+  const rows = [
+    {
+      ...base,
+      tool: '(limits only)',
+      kinsortMs: mine.ms,
+      kinsortTimes: Number.isFinite(mine.ms) ? [mine.ms] : [],
+      peerMs: NaN,
+      peerTimes: [],
+      ratio: null,
+      target: `< ${memoryCase.maxMs / 1000} s and < ${memoryCase.maxMB} MB`,
+      status: Number.isFinite(mine.ms) ? (limitsMet ? 'PASS' : 'MISS') : 'PENDING',
+      peakMB: mine.peakMB,
+      note: mine.note,
+    },
+  ];
+
+  let peer = { ms: NaN, peakMB: NaN, note: 'python peer not run' };
+  if (python && skipPython) peer.note = 'SciPy at this size skipped (--no-scipy-memory)';
+  else if (python) {
+    const need = scipyNeedsMB(set.n);
+    const free = availableMB();
+    if (free < 1.5 * need) {
+      peer.note = `SciPy skipped: needs about ${need.toFixed(0)} MB, ${free.toFixed(0)} MB available`;
+    } else {
+      try {
+        const reply = await timePythonOnce(memoryCase.method, set, {}, { repeats: 1, budgetMs: 0, timeoutMs: 300_000 });
+        peer = { ms: reply.times[0], peakMB: reply.peakMB };
+      } catch (err) {
+        peer.note = `SciPy failed: ${err.message}`;
+      }
+    }
+  }
+  const ratio = mine.ms / peer.ms;
+  rows.push({
+    ...base,
+    tool: 'SciPy linkage ward (own process)',
+    kinsortMs: mine.ms,
+    kinsortTimes: rows[0].kinsortTimes,
+    peerMs: peer.ms,
+    peerTimes: Number.isFinite(peer.ms) ? [peer.ms] : [],
+    ratio: Number.isFinite(ratio) ? ratio : null,
+    target: targetText(1.0),
+    status: verdict(mine.ms, peer.ms, 1.0),
+    peakMB: mine.peakMB,
+    peerPeakMB: peer.peakMB,
+    note: [mine.note, peer.note].filter(Boolean).join('; ') || undefined,
+  });
+  return rows;
+}
+
+module.exports = { runMemoryCase };

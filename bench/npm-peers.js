@@ -1,0 +1,55 @@
+'use strict';
+// The npm peers: ml-kmeans and ml-hclust. Both are ES modules, so they are loaded with a dynamic
+// import() from this CommonJS harness. Their inputs (arrays of arrays) are built outside the timing.
+
+const fs = require('fs');
+const path = require('path');
+
+// Their package.json is not in their "exports", so read it from the folder the module lives in.
+function packageVersion(name) {
+  const root = path.join(__dirname, '..', 'node_modules', name, 'package.json');
+  return JSON.parse(fs.readFileSync(root, 'utf8')).version;
+}
+
+let loaded = null;
+async function loadNpmPeers() {
+  if (!loaded) {
+    const [kmeansModule, hclustModule] = await Promise.all([import('ml-kmeans'), import('ml-hclust')]);
+    loaded = {
+      versions: {
+        'ml-kmeans': packageVersion('ml-kmeans'),
+        'ml-hclust': packageVersion('ml-hclust'),
+      },
+      /** k-means with `restarts` separate seeded runs (ml-kmeans has no restarts of its own), best kept. */
+      kmeansRestarts(rows, { k, restarts, seed }) {
+        let best = null;
+        for (let r = 0; r < restarts; r++) {
+          const result = kmeansModule.kmeans(rows, k, { initialization: 'kmeans++', seed: seed + r });
+          const error = withinSS(rows, result.clusters, result.centroids);
+          if (!best || error < best.error) best = { result, error };
+        }
+        return best.result;
+      },
+      agglomerate(rows, method) {
+        return hclustModule.agnes(rows, { method });
+      },
+    };
+  }
+  return loaded;
+}
+
+// Within-cluster sum of squares, to keep the best restart as scikit-learn and kinsort do.
+function withinSS(rows, clusters, centroids) {
+  let total = 0;
+  for (let i = 0; i < rows.length; i++) {
+    const row = rows[i];
+    const centre = centroids[clusters[i]];
+    for (let j = 0; j < row.length; j++) {
+      const diff = row[j] - centre[j];
+      total += diff * diff;
+    }
+  }
+  return total;
+}
+
+module.exports = { loadNpmPeers };

@@ -1,0 +1,145 @@
+#!/usr/bin/env node
+'use strict';
+// kinsort bench: each case on the same data for kinsort and its peers (SciPy, scikit-learn,
+// ml-kmeans, ml-hclust), computation only, medians of several repeats, ratios against targets.
+//
+//   npx tsc -p tsconfig.build.json          # the bench uses dist/, it builds nothing itself
+//   node --expose-gc bench/run.js [--quick] [--json [FILE]] [--only ID,ID] [--no-python]
+//                                 [--no-scipy-memory] [--no-scaling]
+//
+// --json alone writes JSON lines to stdout (and nothing else there); --json FILE writes them to
+// FILE and prints the table as usual.
+const fs = require('fs');
+const path = require('path');
+const { MAIN_CASES, HCLUST_CASES, HCLUST_MAX_ROWS, MEMORY_CASE, SCALING, SEED } = require('./cases');
+const { prepareDataSet, removeScratch } = require('./data');
+const { timeKinsort, timePython, timeNpm, makeRow } = require('./compare');
+const { pythonPeerAvailable, startPythonPeer, PYTHON } = require('./python-peer');
+const { loadNpmPeers } = require('./npm-peers');
+const { runMemoryCase } = require('./memory');
+const { runScaling } = require('./scaling');
+const { describeMachine } = require('./machine');
+const { caseTable, scalingTable, machineText } = require('./report');
+
+const DIST = path.join(__dirname, '..', 'dist');
+
+function parseArgs(argv) {
+  const args = { quick: false, json: null, only: null, python: true, scipyMemory: true, scaling: true };
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    if (a === '--quick') args.quick = true;
+    else if (a === '--no-python') args.python = false;
+    else if (a === '--no-scipy-memory') args.scipyMemory = false;
+    else if (a === '--no-scaling') args.scaling = false;
+    else if (a === '--only') args.only = new Set((argv[++i] ?? '').split(','));
+    else if (a === '--json') args.json = argv[i + 1] && !argv[i + 1].startsWith('--') ? argv[++i] : '-';
+    else throw new Error(`unknown argument ${a}; allowed: --quick, --json [FILE], --only IDS, --no-python, --no-scipy-memory, --no-scaling`);
+  }
+  return args;
+}
+
+function loadKinsort() {
+  if (!fs.existsSync(path.join(DIST, 'index.js'))) {
+    throw new Error('dist/ is missing: build first with `npx tsc -p tsconfig.build.json`.');
+  }
+  return require(DIST);
+}
+
+async function main() {
+  const args = parseArgs(process.argv.slice(2));
+  const toStdout = args.json === '-';
+  const say = (text) => (toStdout ? process.stderr : process.stdout).write(text + '\n');
+  const progress = (text) => process.stderr.write(`  … ${text}\n`);
+  const wanted = (id) => !args.only || args.only.has(id);
+
+  const kinsort = loadKinsort();
+  const size = (c) => (args.quick ? c.quick : c.full);
+  // Repeats: medians of up to 5 (quick: 2); a case stops repeating once its runs took the budget.
+  const timing = args.quick ? { repeats: 2, budgetMs: 5_000 } : { repeats: 5, budgetMs: 20_000 };
+
+  let python = null;
+  let pythonMissing = null;
+  if (!args.python) pythonMissing = 'turned off with --no-python';
+  else if (!pythonPeerAvailable()) pythonMissing = `${PYTHON} with numpy, scipy and sklearn not found`;
+  else python = startPythonPeer();
+  const npmPeers = await loadNpmPeers();
+  const machine = describeMachine({
+    mode: args.quick ? 'quick (tiny sizes, CI smoke)' : 'full',
+    python: python ? await python.info() : null,
+    pythonMissing,
+    npmPeers: npmPeers.versions,
+  });
+
+  const rows = [];
+  const hclustMeasured = {};
+  try {
+    // ml-hclust first, at a size it finishes, so the big cases can say how long it would take.
+    for (const hc of HCLUST_CASES) {
+      if (!wanted(hc.method)) continue;
+      const set = prepareDataSet(kinsort, { ...size(hc), seed: SEED, tag: hc.id });
+      progress(`${hc.method} ${set.n} × ${set.d}: kinsort and ml-hclust`);
+      const call = (ks, m) => ks.agglomerate(m, { method: hc.method });
+      const mine = await timeKinsort(kinsort, 'agglomerate', call, set, timing);
+      const theirs = await timeNpm((r) => npmPeers.agglomerate(r, hc.method), set, { repeats: args.quick ? 2 : 3, budgetMs: 15_000 });
+      hclustMeasured[hc.method] = { n: set.n, ms: theirs.ms };
+      const title = MAIN_CASES.find((c) => c.id === hc.method).title;
+      rows.push(makeRow({ caseId: hc.id, title, set, tool: `ml-hclust agnes ${hc.method}`, kinsort: mine, peer: theirs, ratioMax: 0.01 }));
+    }
+
+    for (const c of MAIN_CASES) {
+      if (!wanted(c.id)) continue;
+      const set = prepareDataSet(kinsort, { ...size(c), seed: SEED, tag: c.id });
+      progress(`${c.id} ${set.n} × ${set.d}: kinsort`);
+      const mine = await timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, timing);
+      for (const peer of c.peers) {
+        progress(`${c.id} ${set.n} × ${set.d}: ${peer.tool}`);
+        let theirs;
+        if (peer.python) theirs = await timePython(python, peer.python, set, peer.params, timing);
+        else if (peer.npm) theirs = await timeNpm((r) => peer.npm(npmPeers, r), set, { ...timing, repeats: peer.repeats ?? timing.repeats });
+        else if (peer.hclust && set.n > HCLUST_MAX_ROWS) theirs = { ms: NaN, times: [], note: hclustSkipNote(set.n, hclustMeasured[peer.hclust]) };
+        else theirs = await timeNpm((r) => npmPeers.agglomerate(r, peer.hclust), set, timing);
+        rows.push(makeRow({ caseId: c.id, title: c.title, set, tool: peer.tool, kinsort: mine, peer: theirs, ratioMax: peer.ratioMax }));
+      }
+    }
+
+    if (wanted(MEMORY_CASE.id)) {
+      const set = prepareDataSet(kinsort, { ...size(MEMORY_CASE), seed: SEED, tag: MEMORY_CASE.id });
+      progress(`${MEMORY_CASE.id} ${set.n} × ${set.d}: kinsort child, then SciPy in its own process`);
+      rows.push(...(await runMemoryCase({ kinsort, distDir: DIST, memoryCase: MEMORY_CASE, set, python, skipPython: !args.scipyMemory })));
+    }
+
+    let scaling = [];
+    if (args.scaling) {
+      progress('scaling: n, 2n, 4n');
+      const cases = MAIN_CASES.filter((c) => wanted(c.id));
+      scaling = await runScaling({ kinsort, cases, scaling: SCALING, quick: args.quick, python, seed: SEED, timing: { repeats: 3, budgetMs: 10_000 } });
+    }
+
+    const lines = [machine, ...rows, ...scaling].map((r) => JSON.stringify(r, finiteOrNull)).join('\n') + '\n';
+    if (toStdout) process.stdout.write(lines);
+    else if (args.json) fs.writeFileSync(args.json, lines);
+    say(machineText(machine));
+    say('');
+    say(caseTable(rows));
+    if (scaling.length) say('\nScaling with n\n' + scalingTable(scaling));
+    say('\nTimes are wall-clock medians in ms of the computation only; the machine may be shared, so figures are noisy.');
+  } finally {
+    if (python) python.close();
+    removeScratch();
+  }
+}
+
+function hclustSkipNote(n, measured) {
+  const estimate = measured && Number.isFinite(measured.ms) ? ` (it took ${Math.round(measured.ms)} ms at n = ${measured.n}; cubic growth gives about ${Math.round((measured.ms * (n / measured.n) ** 3) / 1000)} s here)` : '';
+  return `ml-hclust skipped above n = ${HCLUST_MAX_ROWS}: it would take well over 30 s${estimate}`;
+}
+
+// JSON has no NaN: write missing figures as null.
+function finiteOrNull(key, value) {
+  return typeof value === 'number' && !Number.isFinite(value) ? null : value;
+}
+
+main().catch((err) => {
+  process.stderr.write(`bench: ${err.message}\n`);
+  process.exitCode = 1;
+});

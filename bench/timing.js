@@ -1,0 +1,42 @@
+'use strict';
+// Timing helpers shared by every JavaScript tool in the bench: repeat a computation, keep each
+// wall time, report the median. Only the computation is inside the timed region.
+
+/** Median of a list of numbers (the mean of the two middle values for an even count). */
+function median(values) {
+  if (values.length === 0) return NaN;
+  const sorted = values.slice().sort((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
+}
+
+/**
+ * Run `work()` up to `repeats` times and return every wall time in ms. After the first run, stop
+ * early once the runs so far took `budgetMs` in all, so one slow case cannot eat the whole bench.
+ * `prepare()` (untimed) is called before each run, e.g. to build fresh inputs.
+ */
+async function timeRepeats(work, { repeats, budgetMs = 30_000, prepare } = {}) {
+  const times = [];
+  let spent = 0;
+  for (let r = 0; r < repeats; r++) {
+    const input = prepare ? prepare() : undefined;
+    if (typeof global.gc === 'function') global.gc(); // only when node runs with --expose-gc
+    const start = process.hrtime.bigint();
+    const out = await work(input);
+    const ms = Number(process.hrtime.bigint() - start) / 1e6;
+    keepAlive(out);
+    times.push(ms);
+    spent += ms;
+    if (spent >= budgetMs) break;
+  }
+  return times;
+}
+
+// Hold on to the last result so the engine cannot treat the computation as dead code.
+let sink = null;
+function keepAlive(value) {
+  sink = value;
+  return sink;
+}
+
+module.exports = { median, timeRepeats };
