@@ -1,0 +1,102 @@
+// applyPreparation: re-apply a fitted preparation to new rows, never refitting.
+import { KinsortError, didYouMean } from '../core/errors';
+import { checkOptions } from '../core/options';
+import { readTable } from '../table/read';
+import { requireColumn } from '../table/names';
+import { isTable, type Cell, type Table } from '../table/types';
+import { assemble } from './assemble';
+import { readIds, rowText } from './ids';
+import { applyMissingPolicy } from './missing';
+import type { Preparation, PreparedData } from './types';
+
+export interface ApplyPreparationOptions {
+  /** Id column of the new rows when it differs from training; null for "1".."n". */
+  id?: string | null;
+}
+
+function checkPreparation(p: Preparation): void {
+  if (typeof p !== 'object' || p === null || p.format !== 'kinsort-preparation' || !Array.isArray(p.columns)) {
+    throw new KinsortError('applyPreparation: the first argument is not a kinsort preparation.', 'bad-definition');
+  }
+  if (p.version !== 1) {
+    throw new KinsortError(`applyPreparation: preparation version ${p.version} is not supported (this package reads 1).`, 'bad-definition');
+  }
+}
+
+/**
+ * Transform new rows exactly as the training rows were: same columns, levels, centres, spreads,
+ * weights and feature order. A categorical level never seen in training sets all of that column's
+ * indicators to 0 and is listed in report.unseenLevels; missing cells follow the stored policy
+ * ('median' imputes the stored training values).
+ */
+export function applyPreparation(
+  preparation: Preparation,
+  input: Table | unknown,
+  options?: ApplyPreparationOptions,
+): PreparedData {
+  checkPreparation(preparation);
+  const opts = checkOptions(options, ['id'], 'applyPreparation');
+  const table = isTable(input) ? input : readTable(input);
+  const names = table.columns.map((c) => c.name);
+  const idColumn = opts.id === undefined ? preparation.idColumn : opts.id;
+  if (idColumn !== null) requireColumn(idColumn, names, 'applyPreparation id column');
+  const needed = preparation.columns.map((c) => c.name);
+  const absent = needed.filter((n) => !names.includes(n));
+  if (absent.length > 0) {
+    const hint = absent.length === 1 ? didYouMean(absent[0], names) : '';
+    throw new KinsortError(
+      `applyPreparation: the new rows lack the used column(s) ${absent.map((n) => `"${n}"`).join(', ')}, ` +
+        `which the preparation needs.${hint}`,
+      'unknown-column',
+    );
+  }
+  const notes: string[] = [];
+  const known = new Set([...needed, ...preparation.constantColumns, ...preparation.keep]);
+  if (idColumn !== null) known.add(idColumn);
+  const extra = names.filter((n) => !known.has(n));
+  if (extra.length > 0) notes.push(`Ignored columns not in the preparation: ${extra.join(', ')}.`);
+  const keepPresent = preparation.keep.filter((n) => names.includes(n));
+  const keepAbsent = preparation.keep.filter((n) => !names.includes(n));
+  if (keepAbsent.length > 0) notes.push(`Profile-only columns absent from the new rows: ${keepAbsent.join(', ')}.`);
+
+  const ids = readIds(table, idColumn, 'applyPreparation');
+  const where = (row: number) => rowText(row, ids, idColumn !== null);
+  const raw = new Map<string, readonly Cell[]>(needed.map((n) => [n, table.columns.find((c) => c.name === n)!.values]));
+  const outcome = applyMissingPolicy({
+    policy: preparation.missing,
+    names: needed,
+    raw,
+    rowCount: table.rowCount,
+    ids,
+    where,
+    fillFor: (name) => {
+      const fill = preparation.columns.find((c) => c.name === name)!.fill;
+      if (fill === null) {
+        throw new KinsortError(
+          `applyPreparation: column "${name}" has missing cells but the training rows had none there, so no ` +
+            `imputation value was stored.`,
+          'missing-value',
+        );
+      }
+      return fill;
+    },
+  });
+  if (outcome.dropped.length > 0) notes.push(`${outcome.dropped.length} row(s) dropped for missing values (see dropped).`);
+  const usedPresent = [...needed, ...preparation.constantColumns.filter((n) => names.includes(n))];
+  return assemble({
+    preparation,
+    table,
+    ids,
+    cells: outcome.cells,
+    kept: outcome.kept,
+    where,
+    profileColumns: [...keepPresent, ...usedPresent],
+    report: {
+      inputRows: table.rowCount,
+      dropped: outcome.dropped,
+      imputed: outcome.imputed,
+      constantColumns: [...preparation.constantColumns],
+      notes,
+    },
+  });
+}

@@ -1,0 +1,48 @@
+// Shared last step of fitting and re-applying: run the transform and build PreparedData.
+import { createMatrix } from '../core/matrix';
+import type { Cell, Table } from '../table/types';
+import { transformRows } from './transform';
+import type { Preparation, PreparationReport, PreparedData } from './types';
+
+export interface AssembleInput {
+  preparation: Preparation;
+  table: Table;
+  ids: string[];
+  /** Cells of the prepared columns, missing already filled. */
+  cells: ReadonlyMap<string, readonly Cell[]>;
+  kept: Int32Array;
+  where: (row: number) => string;
+  /** Columns whose raw values go into the profile (keep + used), those present in the table. */
+  profileColumns: readonly string[];
+  report: Omit<PreparationReport, 'keptRows' | 'unseenLevels'>;
+}
+
+export function assemble(input: AssembleInput): PreparedData {
+  const { preparation, table, kept } = input;
+  const { data, mixed, unseen } = transformRows({
+    columns: preparation.columns,
+    cells: input.cells,
+    rows: kept,
+    ids: input.ids,
+    where: input.where,
+  });
+  const ids = Array.from(kept, (i) => input.ids[i]);
+  const featureNames = [...preparation.featureNames];
+  const matrix = createMatrix(kept.length, featureNames.length, data, { rowLabels: ids, colNames: featureNames });
+  const profile: Record<string, Cell[]> = {};
+  for (const name of input.profileColumns) {
+    const values = table.columns.find((c) => c.name === name)!.values;
+    profile[name] = Array.from(kept, (i) => values[i]);
+  }
+  const report: PreparationReport = { ...input.report, keptRows: kept.length, unseenLevels: unseen };
+  return {
+    matrix,
+    ids,
+    rowNumbers: Int32Array.from(kept),
+    featureNames,
+    preparation,
+    report,
+    mixed: { kind: 'mixed', rows: kept.length, columns: mixed, rowLabels: ids },
+    profile: { columns: profile },
+  };
+}

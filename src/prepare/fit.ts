@@ -1,0 +1,127 @@
+// Fitting one used column: its levels, centre and spread from the kept training rows.
+import { KinsortError } from '../core/errors';
+import { levelKey, sortLevels } from '../table/cells';
+import type { Cell } from '../table/types';
+import type { UsedColumn } from './roles';
+import { mean, median, minMax, quantileSorted, sampleSd, scaledMad, sortedCopy } from './stats';
+import type { PreparedColumn, ScaleMethod } from './types';
+import { numericCell, requireLevel } from './values';
+
+export interface FitContext {
+  scale: ScaleMethod;
+  log: boolean;
+  weight: number;
+  fill: number | string | null;
+  where: (row: number) => string;
+  notes: string[];
+}
+
+/** The fitted column, or null when it has no spread in the kept rows (constant). */
+export function fitColumn(
+  column: UsedColumn,
+  cells: readonly Cell[],
+  kept: Int32Array,
+  ctx: FitContext,
+): PreparedColumn | null {
+  const { name, type } = column;
+  const base = { name, type, log: ctx.log, weight: ctx.weight, fill: ctx.fill };
+  if (type === 'numeric' || type === 'ordinal') {
+    const levels = type === 'ordinal' ? column.ordinalLevels! : null;
+    const values = new Float64Array(kept.length);
+    for (let r = 0; r < kept.length; r++) {
+      const cell = cells[kept[r]] as Exclude<Cell, null>;
+      const where = () => ctx.where(kept[r]);
+      values[r] = levels ? requireLevel(cell, levels, name, 'ordinal', where) : numericCell(cell, name, ctx.log, where);
+    }
+    const [lo, hi] = minMax(values);
+    if (!(hi > lo)) return null;
+    const { centre, spread, spreadKind } = scaleOf(values, ctx.scale, lo, hi, name, ctx.notes);
+    return { ...base, levels: levels ? [...levels] : null, centre, spread, spreadKind, features: [name] };
+  }
+  const present = new Set<string>();
+  for (let r = 0; r < kept.length; r++) present.add(levelKey(cells[kept[r]] as Exclude<Cell, null>));
+  const levels = sortLevels(present);
+  if (levels.length < 2) return null;
+  if (type === 'binary') {
+    if (levels.length > 2) {
+      throw new KinsortError(
+        `column "${name}" is treated as binary but has ${levels.length} distinct values ` +
+          `(${levels.slice(0, 6).map((l) => JSON.stringify(l)).join(', ')}${levels.length > 6 ? ', …' : ''}); ` +
+          `declare it categorical in types.`,
+        'bad-input',
+      );
+    }
+    const plain = (levels[0] === '0' && levels[1] === '1') || (levels[0] === 'false' && levels[1] === 'true');
+    const feature = plain ? name : `${name}=${levels[1]}`;
+    return { ...base, levels, centre: 0, spread: 1, spreadKind: 'none', features: [feature] };
+  }
+  return { ...base, levels, centre: 0, spread: 1, spreadKind: 'none', features: levels.map((l) => `${name}=${l}`) };
+}
+
+function scaleOf(
+  values: Float64Array,
+  scale: ScaleMethod,
+  lo: number,
+  hi: number,
+  name: string,
+  notes: string[],
+): Pick<PreparedColumn, 'centre' | 'spread' | 'spreadKind'> {
+  switch (scale) {
+    case 'none':
+      return { centre: 0, spread: 1, spreadKind: 'none' };
+    case 'zscore':
+      return { centre: mean(values), spread: sampleSd(values), spreadKind: 'sd' };
+    case 'minmax':
+      return { centre: lo, spread: hi - lo, spreadKind: 'range' };
+    case 'robust': {
+      const sorted = sortedCopy(values);
+      const centre = quantileSorted(sorted, 0.5);
+      const iqr = quantileSorted(sorted, 0.75) - quantileSorted(sorted, 0.25);
+      if (iqr > 0) return { centre, spread: iqr, spreadKind: 'iqr' };
+      const mad = scaledMad(values, centre);
+      if (mad > 0) {
+        notes.push(`Column "${name}": interquartile range is 0, so robust scaling divides by the MAD (×1.4826) instead.`);
+        return { centre, spread: mad, spreadKind: 'mad' };
+      }
+      notes.push(
+        `Column "${name}": interquartile range and MAD are both 0, so robust scaling divides by the ` +
+          `standard deviation instead.`,
+      );
+      return { centre, spread: sampleSd(values), spreadKind: 'sd' };
+    }
+  }
+}
+
+/** The training value imputed under 'median': numeric median, else the most frequent level. */
+export function fillValue(
+  column: UsedColumn,
+  cells: readonly Cell[],
+  where: (row: number) => string,
+): number | string {
+  const rows: number[] = [];
+  cells.forEach((c, i) => {
+    if (c !== null) rows.push(i);
+  });
+  if (rows.length === 0) {
+    throw new KinsortError(`column "${column.name}" has no values at all, so there is nothing to impute from.`, 'empty');
+  }
+  if (column.type === 'numeric') {
+    const values = Float64Array.from(rows, (i) => numericCell(cells[i]!, column.name, false, () => where(i)));
+    return median(values);
+  }
+  const counts = new Map<string, number>();
+  for (const i of rows) {
+    const key = levelKey(cells[i]!);
+    counts.set(key, (counts.get(key) ?? 0) + 1);
+  }
+  let best = '';
+  let bestCount = -1;
+  for (const level of sortLevels(counts.keys())) {
+    const c = counts.get(level)!;
+    if (c > bestCount) {
+      best = level;
+      bestCount = c;
+    }
+  }
+  return best;
+}
