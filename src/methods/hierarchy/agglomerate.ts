@@ -1,0 +1,173 @@
+// agglomerate(): input checks and the choice of algorithm (Müllner 2011):
+//   single                       → minimum spanning tree (Prim), from rows without a matrix
+//   complete, average, weighted  → nearest-neighbour chain on a condensed matrix
+//   ward                         → nearest-neighbour chain; from Euclidean rows on centroids (no matrix)
+//   centroid, median             → generic algorithm; from Euclidean rows on centroids (no matrix)
+import { KinsortError, checkChoice } from '../../core/errors';
+import { Matrix, RowsInput, isMatrix, toMatrix } from '../../core/matrix';
+import { checkOptions } from '../../core/options';
+import { Dissimilarity, isDissimilarity, pairOf } from '../../measure/condensed';
+import { dissimilarity } from '../../measure/dissimilarity';
+import { MetricName, ROW_METRICS, checkExponent, distanceFunction } from '../../measure/metrics';
+import { genericLinkage, matrixSpace, vectorSpace } from './generic';
+import { RawMerges, relabelInOrder, relabelSorted } from './merges';
+import { nnChainOnMatrix } from './nn-chain-matrix';
+import { singleFromCondensed, singleFromPairs, singleFromRowsEuclidean } from './single-mst';
+import { LinkageMethod, PairSource, Tree, buildTree } from './tree';
+import { wardFromVectors } from './ward-vectors';
+
+export const LINKAGE_METHODS: readonly LinkageMethod[] = ['single', 'complete', 'average', 'weighted', 'centroid', 'median', 'ward'];
+
+export interface AgglomerateOptions {
+  /** single, complete, average (UPGMA), weighted (WPGMA), centroid (UPGMC), median (WPGMC), ward. */
+  method: LinkageMethod;
+  /** For rows only: the metric (default euclidean). A Dissimilarity carries its own. */
+  metric?: MetricName;
+  /** Minkowski exponent, with metric "minkowski". */
+  p?: number;
+}
+
+const WHERE = 'agglomerate';
+const EUCLIDEAN_ONLY: readonly LinkageMethod[] = ['ward', 'centroid', 'median'];
+
+/**
+ * Build a hierarchy by repeatedly joining the two closest clusters.
+ *
+ * `input` is rows (`number[][]` or a Matrix; a `number[][]` is always read as rows, one entity
+ * each — wrap a ready-made dissimilarity with `fromCondensed`) or a Dissimilarity. Heights are on
+ * the dissimilarity's scale; for ward, centroid and median they are Euclidean distances (not
+ * squared), as SciPy reports them. Equal dissimilarities are resolved deterministically: scans run
+ * over clusters in increasing index and keep the first minimum; a merged cluster takes the larger
+ * of its two parts' indices; merges of equal height keep the order they were found in.
+ */
+export function agglomerate(input: RowsInput | Dissimilarity, options: AgglomerateOptions): Tree {
+  const opts = checkOptions(options, ['method', 'metric', 'p'], WHERE);
+  if (opts.method === undefined) {
+    throw new KinsortError(`${WHERE}: option method is required; choose one of ${LINKAGE_METHODS.join(', ')}.`, 'bad-option');
+  }
+  const method = prefixed(() => checkChoice(opts.method, LINKAGE_METHODS, 'method'));
+  if (isDissimilarity(input)) {
+    if (opts.metric !== undefined || opts.p !== undefined) {
+      throw new KinsortError(
+        `${WHERE}: options metric and p apply to rows; this dissimilarity was already computed (metric "${input.metric}").`,
+        'bad-option',
+      );
+    }
+    return fromDissimilarity(input, method);
+  }
+  const metric = prefixed(() => checkChoice(opts.metric ?? 'euclidean', ROW_METRICS, 'metric'));
+  const p = checkExponent(metric, opts.p, WHERE);
+  refuseSquareMatrix(input);
+  if (!isMatrix(input) && Array.isArray(input) && input.length < 2) tooFew(input.length);
+  const rows = toMatrix(input as RowsInput, { what: `${WHERE}: rows`, minRows: 1 });
+  if (rows.rows < 2) tooFew(rows.rows);
+  if (rows.cols === 0) throw new KinsortError(`${WHERE}: the rows have no columns.`, 'empty');
+  return fromRows(rows, method, metric, p);
+}
+
+function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: number | undefined): Tree {
+  const n = rows.rows;
+  const dims = rows.cols;
+  const kernel = distanceFunction(metric, p);
+  const data = rows.data;
+  const source: PairSource = { kind: 'pairs', pair: (i, j) => kernel(data, i * dims, data, j * dims, dims) };
+  const finish = (raw: RawMerges, sorted: boolean) =>
+    buildTree(sorted ? relabelSorted(n, raw) : relabelInOrder(n, raw), n, method, metric, source, rows.rowLabels);
+
+  if (EUCLIDEAN_ONLY.includes(method)) {
+    if (metric !== 'euclidean') throw notEuclidean(method, `metric "${metric}"`);
+    const points = Float64Array.from(data);
+    if (method === 'ward') return finish(wardFromVectors(n, dims, points), true);
+    return finish(genericLinkage(n, vectorSpace(dims, points, method as 'centroid' | 'median')), false);
+  }
+  if (method === 'single') {
+    const raw = metric === 'euclidean' ? singleFromRowsEuclidean(n, dims, data) : singleFromPairs(n, source.pair);
+    return finish(raw, true);
+  }
+  const d = dissimilarity(rows, { metric, p });
+  return finish(nnChainOnMatrix(n, d.condensed, method as 'complete' | 'average' | 'weighted'), true);
+}
+
+function fromDissimilarity(d: Dissimilarity, method: LinkageMethod): Tree {
+  const n = d.size;
+  if (!Number.isInteger(n) || n < 2 || d.condensed.length !== (n * (n - 1)) / 2) {
+    if (Number.isInteger(n) && n < 2) tooFew(n);
+    throw new KinsortError(
+      `${WHERE}: the dissimilarity says ${d.size} rows but holds ${d.condensed.length} values (n(n-1)/2 expected); build it with fromCondensed.`,
+      'bad-dissimilarity',
+    );
+  }
+  const values = d.condensed;
+  for (let k = 0; k < values.length; k++) {
+    const v = values[k];
+    if (!(v >= 0) || v === Infinity) {
+      const [i, j] = pairOf(n, k);
+      throw new KinsortError(
+        `${WHERE}: the dissimilarity between ${nameOf(d, i)} and ${nameOf(d, j)} is ${v}; dissimilarities must be finite and ≥ 0.`,
+        'bad-dissimilarity',
+      );
+    }
+  }
+  if (EUCLIDEAN_ONLY.includes(method) && d.metric !== 'euclidean') throw notEuclidean(method, `a dissimilarity with metric "${d.metric}"`);
+  const source: PairSource = { kind: 'dissimilarity', dissimilarity: d };
+  const finish = (raw: RawMerges, sorted: boolean) =>
+    buildTree(sorted ? relabelSorted(n, raw) : relabelInOrder(n, raw), n, method, d.metric, source, d.labels);
+
+  if (method === 'single') return finish(singleFromCondensed(n, values), true);
+  const work = Float64Array.from(values);
+  if (method === 'centroid' || method === 'median') {
+    for (let k = 0; k < work.length; k++) work[k] *= work[k];
+    return finish(genericLinkage(n, matrixSpace(n, work, method)), false);
+  }
+  if (method === 'ward') for (let k = 0; k < work.length; k++) work[k] *= work[k];
+  return finish(nnChainOnMatrix(n, work, method as 'complete' | 'average' | 'weighted' | 'ward'), true);
+}
+
+function notEuclidean(method: LinkageMethod, given: string): KinsortError {
+  return new KinsortError(
+    `${WHERE}: method "${method}" was asked for on ${given}. Ward, centroid and median linkage are defined through ` +
+      `cluster centroids in Euclidean space, so on other dissimilarities their heights have no meaning. ` +
+      `Use method "average", "complete" or "single" on this dissimilarity, or give the rows themselves ` +
+      `(metric euclidean). If these values really are Euclidean distances, wrap them with ` +
+      `fromCondensed(values, { metric: 'euclidean' }).`,
+    'bad-option',
+  );
+}
+
+function tooFew(count: number): never {
+  throw new KinsortError(`${WHERE}: ${count} row(s) given; a hierarchy needs at least 2 rows.`, 'empty');
+}
+
+function nameOf(d: Dissimilarity, i: number): string {
+  const label = d.labels?.[i];
+  return label === undefined ? `row ${i + 1}` : `row ${i + 1} (id "${label}")`;
+}
+
+/**
+ * A square number[][] with a zero diagonal that is symmetric is almost surely a full
+ * dissimilarity matrix passed where rows are read; say so rather than cluster its rows.
+ */
+function refuseSquareMatrix(input: unknown): void {
+  if (!Array.isArray(input) || input.length < 3) return;
+  const n = input.length;
+  for (let i = 0; i < n; i++) {
+    const row = input[i];
+    if (!Array.isArray(row) || row.length !== n || row[i] !== 0) return;
+  }
+  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (input[i][j] !== input[j][i]) return;
+  throw new KinsortError(
+    `${WHERE}: the ${n} × ${n} array looks like a full dissimilarity matrix (square, symmetric, zero diagonal), but arrays ` +
+      `are read as rows of measurements. Give the pairs as a Dissimilarity: fromCondensed(upper-triangle values in row order). ` +
+      `If these really are ${n} rows of ${n} measurements, pass them as a Matrix (toMatrix) instead.`,
+    'bad-input',
+  );
+}
+
+function prefixed<T>(check: () => T): T {
+  try {
+    return check();
+  } catch (e) {
+    if (e instanceof KinsortError) throw new KinsortError(`${WHERE}: ${e.message}`, e.code);
+    throw e;
+  }
+}
