@@ -8,3 +8,5 @@ export type { ContingencyTable } from './contingency';
 export { adjustedRandIndex } from './adjusted-rand';
 export { normalizedMutualInfo, MUTUAL_INFORMATION_AVERAGES } from './mutual-information';
 export type { NormalizedMutualInfoOptions, MutualInformationAverage } from './mutual-information';
+export { gapStatistic, GAP_RULE } from './gap-statistic';
+export type { GapStatisticOptions, GapStatisticResult, GapRow } from './gap-statistic';
