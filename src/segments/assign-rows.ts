@@ -1,0 +1,145 @@
+// Assign new rows with a definition: the stored preparation, then the nearest centre / medoid.
+// No row disappears: a row that cannot be prepared (a missing value under 'refuse' or 'drop', text
+// in a numeric column, a binary or ordinal level never seen in training) is in the output with
+// segment null and is named by id in the report with its reason. A categorical level never seen in
+// training follows the preparation's rule (all its indicators 0) and is reported.
+import { KinsortError, didYouMean } from '../core/errors';
+import { checkOptions } from '../core/options';
+import { applyPreparation } from '../prepare';
+import { readIds, rowText } from '../prepare/ids';
+import type { ImputedColumn, Preparation, UnseenLevel } from '../prepare/types';
+import { numericCell, requireLevel } from '../prepare/values';
+import { readTable } from '../table';
+import type { Table, TableColumn } from '../table/types';
+import { nearestCenters } from './assign-nearest';
+import type { SegmentDefinition } from './definition-types';
+
+export interface AssignOptions {
+  /** Passed to readTable when the input is not a Table yet (e.g. a CSV delimiter). */
+  read?: Record<string, unknown>;
+}
+
+export interface AssignedRow {
+  readonly id: string;
+  /** 1-based segment, or null when the row could not be prepared (see the report). */
+  readonly segment: number | null;
+  /** Distance to the segment's centre / medoid under the definition's metric. */
+  readonly distance: number | null;
+  /** True when the row is farther than every segment's `farBeyond`. */
+  readonly far: boolean | null;
+}
+
+export interface RefusedRow {
+  readonly id: string;
+  /** 0-based input row, as in the intake's report of dropped rows. */
+  readonly row: number;
+  readonly reason: string;
+}
+
+export interface AssignmentReport {
+  readonly inputRows: number;
+  readonly assignedRows: number;
+  readonly refused: RefusedRow[];
+  readonly unseenLevels: UnseenLevel[];
+  readonly imputed: ImputedColumn[];
+  /** Input columns the definition does not use (ignored). */
+  readonly ignoredColumns: string[];
+  readonly notes: string[];
+}
+
+export interface AssignmentOutcome {
+  readonly rows: AssignedRow[];
+  readonly report: AssignmentReport;
+}
+
+/** Why row i cannot be prepared, or undefined when it can. */
+function rowProblem(prep: Preparation, columns: Map<string, TableColumn>, i: number, where: () => string): string | undefined {
+  const missing: string[] = [];
+  for (const spec of prep.columns) {
+    const cell = columns.get(spec.name)!.values[i];
+    if (cell === null) {
+      if (prep.missing !== 'median' || spec.fill === null) missing.push(spec.name);
+      continue;
+    }
+    try {
+      if (spec.type === 'numeric') numericCell(cell, spec.name, spec.log, where);
+      else if (spec.type === 'binary' || spec.type === 'ordinal') requireLevel(cell, spec.levels ?? [], spec.name, spec.type, where);
+    } catch (e) {
+      if (e instanceof KinsortError) return e.message;
+      throw e;
+    }
+  }
+  if (missing.length > 0) return `missing value in ${missing.join(', ')} (missing-value policy '${prep.missing}')`;
+  return undefined;
+}
+
+function subsetTable(table: Table, names: readonly string[], rows: readonly number[]): Table {
+  const columns = names.map((name) => {
+    const c = table.columns.find((col) => col.name === name)!;
+    return { ...c, values: rows.map((i) => c.values[i]) };
+  });
+  return { kind: 'table', rowCount: rows.length, columns };
+}
+
+export function assignRows(definition: SegmentDefinition, input: unknown, options?: AssignOptions): AssignmentOutcome {
+  const opts = checkOptions(options, ['read'], 'assign');
+  const prep = definition.preparation as unknown as Preparation;
+  const table = readTable(input, opts.read as never);
+  const names = table.columns.map((c) => c.name);
+  const needed = [...(prep.idColumn === null ? [] : [prep.idColumn]), ...prep.columns.map((c) => c.name)];
+  const absent = needed.filter((n) => !names.includes(n));
+  if (absent.length > 0) {
+    const hint = absent.length === 1 ? didYouMean(absent[0], names) : '';
+    throw new KinsortError(
+      `assign: the rows lack column${absent.length > 1 ? 's' : ''} ${absent.map((n) => `"${n}"`).join(', ')}, which the definition uses.${hint} ` +
+        `Columns given: ${names.join(', ')}.`,
+      'unknown-column',
+    );
+  }
+  const known = new Set([...needed, ...prep.keep]);
+  const ignoredColumns = names.filter((n) => !known.has(n));
+  const ids = readIds(table, prep.idColumn, 'assign');
+  const byName = new Map(table.columns.map((c) => [c.name, c]));
+
+  const refused: RefusedRow[] = [];
+  const good: number[] = [];
+  for (let i = 0; i < table.rowCount; i++) {
+    const problem = rowProblem(prep, byName, i, () => rowText(i, ids, prep.idColumn !== null));
+    if (problem === undefined) good.push(i);
+    else refused.push({ id: ids[i], row: i, reason: problem });
+  }
+
+  const rows: AssignedRow[] = ids.map((id) => ({ id, segment: null, distance: null, far: null }));
+  let unseenLevels: UnseenLevel[] = [];
+  let imputed: ImputedColumn[] = [];
+  if (good.length > 0) {
+    const prepared = applyPreparation(prep, subsetTable(table, needed, good));
+    const m = prepared.matrix;
+    if (m.cols !== definition.features.length || m.rows !== good.length) {
+      throw new KinsortError(`assign: the preparation gave ${m.rows} × ${m.cols} values for ${good.length} rows × ${definition.features.length} features.`, 'bad-definition');
+    }
+    const k = definition.segments.length;
+    const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
+    const farBeyond = definition.segments.map((s) => s.farBeyond);
+    const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric, farBeyond);
+    for (let r = 0; r < good.length; r++) {
+      const i = good[r];
+      rows[i] = { id: ids[i], segment: nearest.segment[r] + 1, distance: nearest.distance[r], far: nearest.far[r] === 1 };
+    }
+    // Map the subset's rows back to input rows (ids made of row numbers would be renumbered).
+    unseenLevels = prepared.report.unseenLevels.map((u) => ({ ...u, id: ids[good[u.row]], row: good[u.row] }));
+    imputed = prepared.report.imputed.map((c) =>
+      prep.idColumn === null ? { ...c, ids: c.ids.map((sub) => ids[good[Number(sub) - 1]]) } : c,
+    );
+  }
+  const notes: string[] = [];
+  if (ignoredColumns.length > 0) notes.push(`Ignored column${ignoredColumns.length > 1 ? 's' : ''} the definition does not use: ${ignoredColumns.join(', ')}.`);
+  if (refused.length > 0) notes.push(`${refused.length} row(s) could not be prepared and have no segment; see "refused".`);
+  if (unseenLevels.length > 0) {
+    notes.push(`${unseenLevels.length} cell(s) hold a category level never seen in training; those rows sit at the baseline of that column (all its indicators 0).`);
+  }
+  return {
+    rows,
+    report: { inputRows: table.rowCount, assignedRows: good.length, refused, unseenLevels, imputed, ignoredColumns, notes },
+  };
+}

@@ -1,0 +1,162 @@
+// Build a segment definition from a fitted segmentation (the fluent layer and the command line
+// call this). Everything is validated and copied into the fixed key order of the file format.
+import { KinsortError, checkChoice } from '../core/errors';
+import { checkOptions } from '../core/options';
+import { Matrix, toMatrix } from '../core/matrix';
+import { compactLabels } from '../core/assignment';
+import { JsonValue, sortedKeys } from './definition-json';
+import {
+  ASSIGNMENT_RULES,
+  AssignmentRule,
+  DEFINITION_FORMAT_VERSION,
+  DEFINITION_KIND,
+  DEFINITION_METHODS,
+  DEFINITION_METRICS,
+  DefinitionMethodName,
+  DefinitionMetric,
+  DefinitionSegment,
+  FAR_PERCENTILE,
+  SegmentDefinition,
+} from './definition-types';
+import { fingerprintRows } from './fingerprint';
+import { percentile, pointToCenter } from './assign-nearest';
+import { kinsortVersion } from './definition-version';
+
+export interface DefinitionSegmentInput {
+  /** 1-based segment number. */
+  number: number;
+  title?: string;
+  text?: string;
+  /** When given, must equal the count in the training assignment. */
+  size?: number;
+}
+
+export interface BuildDefinitionInput {
+  /** The intake's Preparation (plain JSON). */
+  preparation: object;
+  method: { name: DefinitionMethodName; options?: Record<string, unknown> };
+  /** One vector per segment in the prepared space, segment order. Omit for k-medoids when `medoids` is given. */
+  centers?: readonly (readonly number[])[];
+  /** k-medoids: training row index (0-based) of each segment's medoid, segment order. */
+  medoids?: readonly number[];
+  rule?: AssignmentRule;
+  /** Distance used to assign (default euclidean). */
+  metric?: DefinitionMetric;
+  segments?: readonly DefinitionSegmentInput[];
+  /** The prepared training rows, their ids and their 0-based segments. */
+  training: { ids: readonly string[]; matrix: Matrix | readonly (readonly number[])[]; assignment: ArrayLike<number> };
+  evidence?: object;
+  note?: string;
+  /** Defaults to this package's version. */
+  packageVersion?: string;
+}
+
+const INPUT_KEYS = [
+  'preparation', 'method', 'centers', 'medoids', 'rule', 'metric', 'segments', 'training', 'evidence', 'note', 'packageVersion',
+];
+
+function featureNamesOf(preparation: object, matrix: Matrix): string[] {
+  const fromPrep = (preparation as { featureNames?: unknown }).featureNames;
+  if (Array.isArray(fromPrep)) return fromPrep.map(String);
+  if (matrix.colNames) return [...matrix.colNames];
+  return Array.from({ length: matrix.cols }, (_, j) => `feature ${j + 1}`);
+}
+
+export function buildDefinition(input: BuildDefinitionInput): SegmentDefinition {
+  checkOptions(input, INPUT_KEYS, 'buildDefinition');
+  const where = 'buildDefinition';
+  if (input.preparation === null || typeof input.preparation !== 'object') {
+    throw new KinsortError(`${where}: "preparation" must be the Preparation object from prepareTable.`, 'bad-argument');
+  }
+  const methodName = checkChoice(input.method?.name, DEFINITION_METHODS, 'method');
+  const metric = checkChoice(input.metric ?? 'euclidean', DEFINITION_METRICS, 'assignment metric');
+  const rule = checkChoice(input.rule ?? (methodName === 'kmedoids' ? 'nearest-medoid' : 'nearest-center'), ASSIGNMENT_RULES, 'assignment rule');
+
+  const matrix = toMatrix(input.training?.matrix as Matrix, { what: `${where}: training rows` });
+  const ids = input.training.ids;
+  if (!Array.isArray(ids) || ids.length !== matrix.rows) {
+    throw new KinsortError(`${where}: ${Array.isArray(ids) ? ids.length : 'no'} training ids for ${matrix.rows} training rows.`, 'bad-input');
+  }
+  const { labels, k, sizes } = compactLabels(input.training.assignment, matrix.rows, `${where}: training assignment`);
+  const dims = matrix.cols;
+  const features = featureNamesOf(input.preparation, matrix);
+  if (features.length !== dims) {
+    throw new KinsortError(`${where}: the preparation names ${features.length} features but the training rows have ${dims} columns.`, 'bad-input');
+  }
+
+  let centerRows: number[][];
+  let medoidIds: string[] | undefined;
+  if (input.medoids !== undefined) {
+    if (input.medoids.length !== k) {
+      throw new KinsortError(`${where}: ${input.medoids.length} medoids for ${k} segments.`, 'bad-input');
+    }
+    centerRows = input.medoids.map((r, c) => {
+      if (!Number.isInteger(r) || r < 0 || r >= matrix.rows) {
+        throw new KinsortError(`${where}: medoid ${c + 1} is row index ${r}, outside 0..${matrix.rows - 1}.`, 'bad-input');
+      }
+      return Array.from(matrix.data.subarray(r * dims, (r + 1) * dims));
+    });
+    medoidIds = input.medoids.map((r) => String(ids[r]));
+  } else if (input.centers !== undefined) {
+    const cm = toMatrix(input.centers, { what: `${where}: centers` });
+    if (cm.rows !== k || cm.cols !== dims) {
+      throw new KinsortError(`${where}: centers are ${cm.rows} × ${cm.cols}; expected ${k} segments × ${dims} features.`, 'bad-input');
+    }
+    centerRows = Array.from({ length: k }, (_, c) => Array.from(cm.data.subarray(c * dims, (c + 1) * dims)));
+  } else {
+    throw new KinsortError(`${where}: give "centers" (one per segment) or "medoids" (training row indices).`, 'bad-argument');
+  }
+  if (rule === 'nearest-medoid' && medoidIds === undefined) {
+    throw new KinsortError(`${where}: the nearest-medoid rule needs "medoids" (training row indices).`, 'bad-argument');
+  }
+
+  // Far threshold: a high percentile of the training rows' distances to their own segment's centre.
+  const flatCenters = Float64Array.from(centerRows.flat());
+  const own: Float64Array[] = Array.from({ length: k }, (_, c) => new Float64Array(sizes[c]));
+  const filled = new Int32Array(k);
+  for (let i = 0; i < matrix.rows; i++) {
+    const c = labels[i];
+    own[c][filled[c]++] = pointToCenter(matrix.data, i, flatCenters, c, dims, metric);
+  }
+
+  const given = new Map<number, DefinitionSegmentInput>();
+  for (const s of input.segments ?? []) {
+    if (!Number.isInteger(s.number) || s.number < 1 || s.number > k) {
+      throw new KinsortError(`${where}: segment number ${s.number} is outside 1..${k}.`, 'bad-input');
+    }
+    if (s.size !== undefined && s.size !== sizes[s.number - 1]) {
+      throw new KinsortError(
+        `${where}: segment ${s.number} says size ${s.size} but the training assignment puts ${sizes[s.number - 1]} rows in it.`,
+        'bad-input',
+      );
+    }
+    given.set(s.number, s);
+  }
+  const segments: DefinitionSegment[] = centerRows.map((center, c) => {
+    const s = given.get(c + 1);
+    return {
+      number: c + 1,
+      title: s?.title,
+      text: s?.text,
+      size: sizes[c],
+      center,
+      medoidId: medoidIds?.[c],
+      farBeyond: percentile(own[c], FAR_PERCENTILE),
+    };
+  });
+
+  return {
+    kind: DEFINITION_KIND,
+    formatVersion: DEFINITION_FORMAT_VERSION,
+    writtenBy: `kinsort ${input.packageVersion ?? kinsortVersion()}`,
+    note: input.note,
+    method: { name: methodName, options: sortedKeys(input.method.options ?? {}) as { [key: string]: JsonValue } },
+    rule,
+    metric,
+    preparation: sortedKeys(input.preparation) as { [key: string]: JsonValue },
+    features,
+    segments,
+    training: { rows: matrix.rows, fingerprint: fingerprintRows(ids.map(String), matrix) },
+    evidence: input.evidence === undefined ? undefined : (sortedKeys(input.evidence) as { [key: string]: JsonValue }),
+  };
+}

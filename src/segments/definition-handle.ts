@@ -1,0 +1,73 @@
+// A loaded definition: assign new rows, write SQL, write the file again.
+import { readFileSync, writeFileSync } from 'fs';
+import { KinsortError } from '../core/errors';
+import { Matrix, toMatrix } from '../core/matrix';
+import { writeDefinitionJson } from './definition-json';
+import { SegmentDefinition } from './definition-types';
+import { readDefinition } from './definition-validate';
+import { fingerprintRows } from './fingerprint';
+import { assignRows, AssignmentOutcome, AssignOptions } from './assign-rows';
+import { definitionToSql, SqlOptions } from './sql';
+
+export interface DefinitionHandle {
+  readonly definition: SegmentDefinition;
+  /** Apply the stored preparation to new rows and give each its nearest segment (1-based). */
+  assign(input: unknown, options?: AssignOptions): AssignmentOutcome;
+  /** One portable SELECT giving the id column, segment, distance and far for every row of `table`. */
+  toSql(options: SqlOptions): string;
+  /** The definition file's text (deterministic). */
+  toJSON(): string;
+  /** Write the definition file. */
+  save(path: string): void;
+  /**
+   * Whether `ids` and prepared `rows` are the rows this definition was fitted on (order does not
+   * matter). Loading never checks this: the training data is not in the file.
+   */
+  matchesTraining(ids: readonly string[], rows: Matrix | readonly (readonly number[])[]): boolean;
+}
+
+function looksLikeJsonText(s: string): boolean {
+  const t = s.replace(/^\uFEFF/, '').trimStart();
+  return t.startsWith('{') || t.startsWith('[');
+}
+
+/** Wrap a definition (already validated) in a handle. */
+export function definitionHandle(definition: SegmentDefinition): DefinitionHandle {
+  return {
+    definition,
+    assign: (input, options) => assignRows(definition, input, options),
+    toSql: (options) => definitionToSql(definition, options),
+    toJSON: () => writeDefinitionJson(definition),
+    save(path: string) {
+      if (typeof path !== 'string' || path === '') throw new KinsortError('save: give a file path.', 'bad-argument');
+      writeFileSync(path, writeDefinitionJson(definition), 'utf8');
+    },
+    matchesTraining(ids, rows) {
+      const m = toMatrix(rows as Matrix, { what: 'matchesTraining: rows' });
+      if (m.cols !== definition.features.length || ids.length !== m.rows) return false;
+      return fingerprintRows(ids.map(String), m) === definition.training.fingerprint;
+    },
+  };
+}
+
+/**
+ * Load a definition from a file path, JSON text, a parsed object, or a built definition. The
+ * contents are validated; a damaged or newer-format file is refused with a message saying why.
+ */
+export function loadDefinition(source: string | object): DefinitionHandle {
+  if (typeof source === 'string') {
+    if (looksLikeJsonText(source)) return definitionHandle(readDefinition(source));
+    let text: string;
+    try {
+      text = readFileSync(source, 'utf8');
+    } catch (e) {
+      throw new KinsortError(`loadDefinition: cannot read "${source}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`, 'bad-input');
+    }
+    return definitionHandle(readDefinition(text, `loadDefinition("${source}")`));
+  }
+  if (source === null || typeof source !== 'object') {
+    throw new KinsortError('loadDefinition: give a file path, JSON text or a definition object.', 'bad-argument');
+  }
+  // A built definition goes through the same checks, so both paths give identical objects.
+  return definitionHandle(readDefinition(JSON.parse(writeDefinitionJson(source))));
+}

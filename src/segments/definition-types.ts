@@ -1,0 +1,69 @@
+// The segment definition: a plain, versioned JSON document holding everything needed to apply a
+// fitted segmentation to new rows (here, in another notebook, or in SQL where the data lives).
+import type { JsonValue } from './definition-json';
+
+/** Marks the file as ours, whatever its name. */
+export const DEFINITION_KIND = 'kinsort segment definition';
+/** Bumped whenever a reader of an older version could misread the file. */
+export const DEFINITION_FORMAT_VERSION = 1;
+
+export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy';
+export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy'];
+
+/**
+ * How a new row gets its segment. 'nearest-center': the segment whose centre (segment mean in the
+ * prepared space) is nearest — the rule for k-means and for a hierarchy cut. 'nearest-medoid': the
+ * segment whose medoid (a training row) is nearest under the stored metric — the rule for k-medoids.
+ */
+export type AssignmentRule = 'nearest-center' | 'nearest-medoid';
+export const ASSIGNMENT_RULES: readonly AssignmentRule[] = ['nearest-center', 'nearest-medoid'];
+
+/** Metrics a definition can assign with (and write as portable SQL). */
+export type DefinitionMetric = 'euclidean' | 'sqeuclidean' | 'manhattan';
+export const DEFINITION_METRICS: readonly DefinitionMetric[] = ['euclidean', 'sqeuclidean', 'manhattan'];
+
+/** The percentile of training distances beyond which a row counts as far from a segment. */
+export const FAR_PERCENTILE = 99;
+
+export interface DefinitionSegment {
+  /** People-facing number, 1..k, in segment order. */
+  readonly number: number;
+  readonly title?: string;
+  readonly text?: string;
+  /** Training rows in this segment. */
+  readonly size: number;
+  /** Centre (segment mean) or medoid vector, in the prepared space. */
+  readonly center: number[];
+  /** nearest-medoid only: the id of the training row that is the medoid. */
+  readonly medoidId?: string;
+  /**
+   * The FAR_PERCENTILE-th percentile (linear interpolation between order statistics) of the
+   * distances of this segment's training rows to its centre. A row farther than this from every
+   * segment is flagged `far`.
+   */
+  readonly farBeyond: number;
+}
+
+export interface SegmentDefinition {
+  readonly kind: typeof DEFINITION_KIND;
+  readonly formatVersion: number;
+  /** "kinsort <version>" of the writer. */
+  readonly writtenBy: string;
+  /** The caller's note (no clock is read: put a date here if you want one; files stay reproducible). */
+  readonly note?: string;
+  readonly method: { readonly name: DefinitionMethodName; readonly options: { [key: string]: JsonValue } };
+  readonly rule: AssignmentRule;
+  readonly metric: DefinitionMetric;
+  /** The intake's serialisable Preparation, keys sorted. */
+  readonly preparation: { [key: string]: JsonValue };
+  /** Names of the prepared features, in centre order (from the preparation). */
+  readonly features: string[];
+  readonly segments: DefinitionSegment[];
+  readonly training: {
+    readonly rows: number;
+    /** Order-independent hash of ids + prepared values (see fingerprint.ts). */
+    readonly fingerprint: string;
+  };
+  /** Optional evidence for the choice of k (keys sorted), as the caller gives it. */
+  readonly evidence?: { [key: string]: JsonValue };
+}
