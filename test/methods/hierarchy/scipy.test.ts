@@ -63,6 +63,12 @@ describe('agglomerate against SciPy 1.10 linkage (data of our own making)', () =
           if (new Set(labels).size !== k) continue;
           expect(canonical(tree.cut({ k })), `k = ${k}`).toEqual(canonical(labels));
         }
+        // Inversions (centroid / median): a merge lower than a merge beneath it, read off SciPy's Z.
+        const inverted = ref.merges.flatMap(([a, b]: number[], i: number) =>
+          [a, b].some((c) => c >= n && ref.heights[c - n] > ref.heights[i]) ? [i] : [],
+        );
+        expect(tree.monotonic.inversions.map((v: any) => v.merge)).toEqual(inverted);
+        expect(tree.monotonic.ok).toBe(inverted.length === 0);
         expect(tree.copheneticCorrelation()).toBeCloseTo(ref.copheneticCorrelation, 10);
         expect(tree.copheneticCorrelation(d)).toBeCloseTo(ref.copheneticCorrelation, 10);
         if (ref.cophenetic) expectClose(Array.from(tree.cophenetic().condensed), ref.cophenetic, 1e-10);
