@@ -9,7 +9,9 @@
 // Rules, the same as `assign`:
 // - numeric: COALESCE(x, fill) under the 'median' policy, LN(1 + x) when logged, then
 //   (x − centre) / spread × weight; categorical: one indicator per training level (an unseen
-//   level gives all indicators 0); binary: 0/1 by the two training levels.
+//   level gives all indicators 0); binary: 0/1 by the two training levels (and, for a yes/no-like
+//   pair, by 'true' / 'false', which is what an engine that typed the column BOOLEAN casts it to;
+//   assign would refuse such text, so the two differ only on a column that mixes both spellings).
 // - nearest centre by squared Euclidean (or Manhattan) distance, ties to the lower segment number.
 // - a row with a missing feature value under 'refuse' or 'drop' gets segment NULL (assign reports it by
 //   id); a binary or ordinal value never seen in training also gives NULL.
@@ -48,6 +50,25 @@ function textValue(col: PreparedColumn): string {
   return col.fill !== null && col.fill !== undefined ? `COALESCE(${raw}, ${quoteString(String(col.fill))})` : raw;
 }
 
+const FALSE_WORDS = ['no', 'n', 'false', 'f', '0', 'off'];
+const TRUE_WORDS = ['yes', 'y', 'true', 't', '1', 'on'];
+
+/**
+ * Engines may read a yes/no (or 0/1, t/f, …) column as BOOLEAN, and a boolean cast to text is
+ * 'true' / 'false'. When the two training levels are such a pair, those texts are matched too.
+ */
+function booleanAliases(levels: readonly string[]): string[] {
+  const [a, b] = levels.map((l) => l.toLowerCase());
+  let falseCode: number;
+  if (FALSE_WORDS.includes(a) && TRUE_WORDS.includes(b)) falseCode = 0;
+  else if (TRUE_WORDS.includes(a) && FALSE_WORDS.includes(b)) falseCode = 1;
+  else return [];
+  const out: string[] = [];
+  if (!levels.includes('false')) out.push(`WHEN 'false' THEN ${falseCode}E0`);
+  if (!levels.includes('true')) out.push(`WHEN 'true' THEN ${1 - falseCode}E0`);
+  return out;
+}
+
 /** (v − centre) / spread × weight, in the same order of operations as the JavaScript. */
 function scaled(value: string, col: PreparedColumn): string {
   let e = value;
@@ -72,7 +93,8 @@ export function columnFeatureSql(col: PreparedColumn): string[] {
     }
     case 'binary': {
       const text = textValue(col);
-      const code = `CASE ${text} WHEN ${quoteString(levels[0])} THEN 0E0 WHEN ${quoteString(levels[1])} THEN 1E0 ELSE NULL END`;
+      const whens = [`WHEN ${quoteString(levels[0])} THEN 0E0`, `WHEN ${quoteString(levels[1])} THEN 1E0`, ...booleanAliases(levels)];
+      const code = `CASE ${text} ${whens.join(' ')} ELSE NULL END`;
       return [scaled(code, col)];
     }
     case 'categorical': {
