@@ -10,3 +10,5 @@ export { normalizedMutualInfo, MUTUAL_INFORMATION_AVERAGES } from './mutual-info
 export type { NormalizedMutualInfoOptions, MutualInformationAverage } from './mutual-information';
 export { gapStatistic, GAP_RULE } from './gap-statistic';
 export type { GapStatisticOptions, GapStatisticResult, GapRow } from './gap-statistic';
+export { findKnee, KNEE_DIRECTIONS, KNEE_CURVES } from './knee';
+export type { FindKneeOptions, KneeResult } from './knee';
