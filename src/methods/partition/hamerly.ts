@@ -3,6 +3,7 @@
 // A row whose upper bound is below max(lower bound, half the distance from its centre to the
 // nearest other centre) cannot change segment, so its distances are not computed at all.
 // All state lives in flat typed arrays allocated once per k-means call and reused by restarts.
+import type { SeedingState } from './seeding';
 
 /** Scratch arrays for one k-means call (n rows, d columns, k centres). */
 export interface LloydWorkspace {
@@ -61,40 +62,12 @@ export function runHamerly(
   maxIterations: number,
   tolerance: number,
   trace: boolean,
+  seeded?: SeedingState,
 ): LloydRun {
   const { n, d, k, assignment, upper, lower, sums, counts, previous, moved, halfGap } = ws;
   const traceValues: number[] | undefined = trace ? [] : undefined;
-  sums.fill(0);
-  counts.fill(0);
-
-  // First assignment: every distance, once.
-  for (let i = 0; i < n; i++) {
-    const ib = i * d;
-    let best = 0;
-    let bestD = Infinity;
-    let secondD = Infinity;
-    for (let c = 0; c < k; c++) {
-      const cb = c * d;
-      let s = 0;
-      for (let j = 0; j < d; j++) {
-        const diff = data[ib + j] - centers[cb + j];
-        s += diff * diff;
-      }
-      if (s < bestD) {
-        secondD = bestD;
-        bestD = s;
-        best = c;
-      } else if (s < secondD) {
-        secondD = s;
-      }
-    }
-    assignment[i] = best;
-    upper[i] = Math.sqrt(bestD);
-    lower[i] = Math.sqrt(secondD);
-    counts[best]++;
-    const sb = best * d;
-    for (let j = 0; j < d; j++) sums[sb + j] += data[ib + j];
-  }
+  if (seeded) startFromSeeding(data, ws, seeded);
+  else firstAssignment(data, centers, ws);
 
   let iterations = 0;
   let converged = false;
@@ -119,11 +92,10 @@ export function runHamerly(
     }
     iterations++;
     if (traceValues) traceValues.push(withinFor(data, centers, assignment, n, d));
-    if (shift <= tolerance) {
-      converged = true;
-      break;
-    }
-    if (iterations >= maxIterations) break;
+    if (shift <= tolerance) converged = true;
+    // Nothing moved: the assignment is already nearest-centre for these centres.
+    if (shift === 0) break;
+    const last = converged || iterations >= maxIterations;
 
     // Bounds follow the centres: own centre's move widens the upper bound; the largest move of
     // any other centre narrows the lower bound.
@@ -163,11 +135,14 @@ export function runHamerly(
       }
     }
 
-    // Assignment step: only rows whose bounds allow a change are looked at.
+    // Assignment step: only rows whose bounds allow a change are looked at. After the last
+    // centre update it runs once more, so the result is nearest-centre for the final centres.
+    // The skip test is strict, so a row that may be tied with another centre is looked at and
+    // the tie goes to the lower segment number.
     for (let i = 0; i < n; i++) {
       const a = assignment[i];
       const bound = halfGap[a] > lower[i] ? halfGap[a] : lower[i];
-      if (upper[i] <= bound) continue;
+      if (upper[i] < bound) continue;
       const ib = i * d;
       const ab = a * d;
       let own = 0;
@@ -177,7 +152,7 @@ export function runHamerly(
       }
       own = Math.sqrt(own);
       upper[i] = own;
-      if (own <= bound) continue;
+      if (own < bound) continue;
       let best = a;
       let bestD = own * own;
       let secondD = Infinity;
@@ -189,7 +164,6 @@ export function runHamerly(
           const diff = data[ib + j] - centers[cb + j];
           s += diff * diff;
         }
-        // Ties go to the lower segment number.
         if (s < bestD || (s === bestD && c < best)) {
           secondD = bestD;
           bestD = s;
@@ -212,8 +186,55 @@ export function runHamerly(
         }
       }
     }
+    if (last) break;
   }
   return { iterations, converged, trace: traceValues };
+}
+
+/** First assignment from given or random centres: every distance, once. */
+function firstAssignment(data: Float64Array, centers: Float64Array, ws: LloydWorkspace): void {
+  const { n, d, k, assignment, upper, lower, sums, counts } = ws;
+  sums.fill(0);
+  counts.fill(0);
+  for (let i = 0; i < n; i++) {
+    const ib = i * d;
+    let best = 0;
+    let bestD = Infinity;
+    let secondD = Infinity;
+    for (let c = 0; c < k; c++) {
+      const s = squaredDistance(data, ib, centers, c * d, d);
+      if (s < bestD) {
+        secondD = bestD;
+        bestD = s;
+        best = c;
+      } else if (s < secondD) {
+        secondD = s;
+      }
+    }
+    assignment[i] = best;
+    upper[i] = Math.sqrt(bestD);
+    lower[i] = Math.sqrt(secondD);
+    counts[best]++;
+    const sb = best * d;
+    for (let j = 0; j < d; j++) sums[sb + j] += data[ib + j];
+  }
+}
+
+/** First assignment from what k-means++ already knows (nearest centre and bounds). */
+function startFromSeeding(data: Float64Array, ws: LloydWorkspace, seeded: SeedingState): void {
+  const { n, d, assignment, upper, lower, sums, counts } = ws;
+  sums.fill(0);
+  counts.fill(0);
+  for (let i = 0; i < n; i++) {
+    const a = seeded.nearest[i];
+    assignment[i] = a;
+    upper[i] = Math.sqrt(seeded.closest[i]);
+    lower[i] = seeded.secondLower[i];
+    counts[a]++;
+    const ib = i * d;
+    const sb = a * d;
+    for (let j = 0; j < d; j++) sums[sb + j] += data[ib + j];
+  }
 }
 
 /**
@@ -267,9 +288,19 @@ export function squaredDistance(a: Float64Array, ab: number, b: Float64Array, bb
   return s;
 }
 
-/** Within-SS of an assignment against given centres. */
-export function withinFor(data: Float64Array, centers: Float64Array, assignment: Int32Array, n: number, d: number): number {
+/**
+ * Within-SS of an assignment against given centres, summed segment by segment and then over
+ * segments (the same order as the reported per-segment figures, so the totals agree to the bit).
+ */
+export function withinFor(data: Float64Array, centers: Float64Array, assignment: Int32Array, n: number, d: number, bySegment?: number[]): number {
+  const k = centers.length / d;
+  const parts = bySegment ?? new Array<number>(k);
+  parts.fill(0);
+  for (let i = 0; i < n; i++) {
+    const a = assignment[i];
+    parts[a] += squaredDistance(data, i * d, centers, a * d, d);
+  }
   let total = 0;
-  for (let i = 0; i < n; i++) total += squaredDistance(data, i * d, centers, assignment[i] * d, d);
+  for (let c = 0; c < k; c++) total += parts[c];
   return total;
 }

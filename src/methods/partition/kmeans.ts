@@ -5,10 +5,10 @@ import { toMatrix, type RowsInput } from '../../core/matrix';
 import { checkInteger, checkNumber, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
 import { createRandom, type Seed } from '../../random';
-import { createWorkspace, runHamerly } from './hamerly';
 import { checkSegmentCount, partitionRows } from './partition-input';
-import { assignNearest, centresToMeans, meanColumnVariance, partitionFigures } from './partition-summary';
-import { seedPlusPlus, seedRandomRows } from './seeding';
+import { createWorkspace, runHamerly, withinFor } from './hamerly';
+import { centresToMeans, meanColumnVariance, partitionFigures } from './partition-summary';
+import { createSeedingState, seedPlusPlus, seedRandomRows } from './seeding';
 
 export type KmeansStart = 'k-means++' | 'random' | readonly (readonly number[])[];
 
@@ -103,25 +103,29 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   const absoluteTolerance = tolerance * meanColumnVariance(data, n, d);
   const ws = createWorkspace(n, d, k);
   const centers = new Float64Array(k * d);
+  const seeding = createSeedingState(n);
   const root = createRandom(opts.seed ?? 0);
 
   let best: { within: number; assignment: Int32Array; centers: Float64Array; iterations: number; converged: boolean; trace?: number[] } | undefined;
   const restartWithinSS: number[] = [];
   for (let r = 0; r < restarts; r++) {
+    let seeded: typeof seeding | undefined;
     if (given) centers.set(given);
     else if (start === 'random') seedRandomRows(data, n, d, k, root.fork(r), centers);
-    else seedPlusPlus(data, n, d, k, root.fork(r), centers);
+    else {
+      seedPlusPlus(data, n, d, k, root.fork(r), centers, seeding);
+      seeded = seeding;
+    }
 
-    const run = runHamerly(data, centers, ws, maxIterations, absoluteTolerance, trace);
-    // Exact finish: nearest centre for every row, then centres to the means of their rows.
-    assignNearest(data, centers, ws);
+    const run = runHamerly(data, centers, ws, maxIterations, absoluteTolerance, trace, seeded);
+    // Exact finish: centres to the means of their rows (sums from scratch), within-SS from them.
     centresToMeans(data, centers, ws);
-    const figures = partitionFigures(data, n, d, k, ws.assignment, centers);
-    restartWithinSS.push(figures.withinSS);
+    const within = withinFor(data, centers, ws.assignment, n, d);
+    restartWithinSS.push(within);
     // Strictly lower: ties keep the earlier restart.
-    if (best === undefined || figures.withinSS < best.within) {
+    if (best === undefined || within < best.within) {
       best = {
-        within: figures.withinSS,
+        within,
         assignment: ws.assignment.slice(),
         centers: centers.slice(),
         iterations: run.iterations,

@@ -1,30 +1,7 @@
 // The exact end of a k-means run: every row to its nearest centre (ties: lower segment number),
 // centres recomputed as the means of their rows, and the sums of squares from scratch — so the
 // reported figures do not carry rounding drift from the incremental updates of the iterations.
-import { createWorkspace, repairEmpty, squaredDistance, type LloydWorkspace } from './hamerly';
-
-/** Assign every row to its nearest centre; returns how many rows changed segment. Fills counts. */
-export function assignNearest(data: Float64Array, centers: Float64Array, ws: LloydWorkspace): number {
-  const { n, d, k, assignment, counts } = ws;
-  counts.fill(0);
-  let changed = 0;
-  for (let i = 0; i < n; i++) {
-    const ib = i * d;
-    let best = 0;
-    let bestD = Infinity;
-    for (let c = 0; c < k; c++) {
-      const s = squaredDistance(data, ib, centers, c * d, d);
-      if (s < bestD) {
-        bestD = s;
-        best = c;
-      }
-    }
-    if (assignment[i] !== best) changed++;
-    assignment[i] = best;
-    counts[best]++;
-  }
-  return changed;
-}
+import { createWorkspace, repairEmpty, squaredDistance, withinFor, type LloydWorkspace } from './hamerly';
 
 /** Sums per segment from scratch (counts must be filled). */
 export function sumsFromScratch(data: Float64Array, ws: LloydWorkspace): void {
@@ -69,38 +46,32 @@ export function partitionFigures(
   for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) grand[j] += data[i * d + j];
   for (let j = 0; j < d; j++) grand[j] /= n;
   const sizes = new Array<number>(k).fill(0);
-  const bySegment = new Array<number>(k).fill(0);
+  const bySegment = new Array<number>(k);
   let totalSS = 0;
   for (let i = 0; i < n; i++) {
-    const a = assignment[i];
-    sizes[a]++;
-    bySegment[a] += squaredDistance(data, i * d, centers, a * d, d);
+    sizes[assignment[i]]++;
     totalSS += squaredDistance(data, i * d, grand, 0, d);
   }
-  let withinSS = 0;
+  const withinSS = withinFor(data, centers, assignment, n, d, bySegment);
   let betweenSS = 0;
-  for (let c = 0; c < k; c++) {
-    withinSS += bySegment[c];
-    betweenSS += sizes[c] * squaredDistance(centers, c * d, grand, 0, d);
-  }
+  for (let c = 0; c < k; c++) betweenSS += sizes[c] * squaredDistance(centers, c * d, grand, 0, d);
   return { sizes, withinSS, withinSSBySegment: bySegment, betweenSS, totalSS };
 }
 
 /** Mean over columns of the column variances (population), which scales the tolerance. */
 export function meanColumnVariance(data: Float64Array, n: number, d: number): number {
+  // Two passes in row order (cache-friendly): the means, then the squared deviations.
+  const mean = new Float64Array(d);
+  for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) mean[j] += data[i * d + j];
+  for (let j = 0; j < d; j++) mean[j] /= n;
   let total = 0;
-  for (let j = 0; j < d; j++) {
-    let mean = 0;
-    for (let i = 0; i < n; i++) mean += data[i * d + j];
-    mean /= n;
-    let s = 0;
-    for (let i = 0; i < n; i++) {
-      const diff = data[i * d + j] - mean;
-      s += diff * diff;
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < d; j++) {
+      const diff = data[i * d + j] - mean[j];
+      total += diff * diff;
     }
-    total += s / n;
   }
-  return d > 0 ? total / d : 0;
+  return d > 0 ? total / n / d : 0;
 }
 
 export { createWorkspace };

@@ -2,9 +2,27 @@
 import type { Random } from '../../random';
 
 /**
+ * What k-means++ learns about every row on the way, handed to the iterations so their first
+ * assignment costs nothing: the nearest chosen centre, the squared distance to it, and a lower
+ * bound on the distance to any other chosen centre.
+ */
+export interface SeedingState {
+  readonly nearest: Int32Array;
+  readonly closest: Float64Array;
+  readonly secondLower: Float64Array;
+}
+
+export function createSeedingState(n: number): SeedingState {
+  return { nearest: new Int32Array(n), closest: new Float64Array(n), secondLower: new Float64Array(n) };
+}
+
+/**
  * k-means++ with greedy trials: for each new centre, draw `trials` candidates with probability
  * proportional to the squared distance to the nearest chosen centre and keep the one that lowers
- * the total the most. 2 + floor(ln k) trials is common practice. Writes k × d values into `out`.
+ * the total the most (2 + floor(ln k) trials is common practice). Writes k × d values into `out`.
+ *
+ * The triangle inequality skips rows that a candidate cannot win: if the candidate is at least
+ * twice as far from a row's nearest centre as the row is, the row keeps its nearest centre.
  */
 export function seedPlusPlus(
   data: Float64Array,
@@ -13,19 +31,20 @@ export function seedPlusPlus(
   k: number,
   random: Random,
   out: Float64Array,
+  state: SeedingState = createSeedingState(n),
   trials = 2 + Math.floor(Math.log(k)),
 ): void {
-  const closest = new Float64Array(n);
+  const { nearest, closest, secondLower } = state;
   const cumulative = new Float64Array(n);
-  let bestTrial = new Float64Array(n);
-  let trial = new Float64Array(n);
+  const toCentres = new Float64Array(k);
+  const bestToCentres = new Float64Array(k);
 
   const first = random.int(n);
   copyRow(data, first, d, out, 0);
-  let potential = 0;
   for (let i = 0; i < n; i++) {
-    closest[i] = squaredToRow(data, i, d, out, 0);
-    potential += closest[i];
+    closest[i] = squaredDistanceRows(data, i * d, out, 0, d);
+    nearest[i] = 0;
+    secondLower[i] = Infinity;
   }
 
   for (let c = 1; c < k; c++) {
@@ -34,35 +53,62 @@ export function seedPlusPlus(
       running += closest[i];
       cumulative[i] = running;
     }
-    potential = running;
+    const potential = running;
     let bestPotential = Infinity;
     let bestIndex = -1;
     for (let t = 0; t < trials; t++) {
       const candidate = potential > 0 ? drawWeighted(cumulative, random.next() * potential) : random.int(n);
-      let total = 0;
       const cb = candidate * d;
+      for (let e = 0; e < c; e++) toCentres[e] = squaredDistanceRows(data, cb, out, e * d, d);
+      let total = 0;
       for (let i = 0; i < n; i++) {
-        let s = 0;
+        const own = closest[i];
+        if (toCentres[nearest[i]] >= 4 * own) {
+          total += own;
+          continue;
+        }
         const ib = i * d;
+        let s = 0;
         for (let j = 0; j < d; j++) {
           const diff = data[ib + j] - data[cb + j];
           s += diff * diff;
         }
-        const v = s < closest[i] ? s : closest[i];
-        trial[i] = v;
-        total += v;
+        total += s < own ? s : own;
       }
       // Strictly lower: ties keep the earlier candidate.
       if (total < bestPotential) {
         bestPotential = total;
         bestIndex = candidate;
-        const swap = bestTrial;
-        bestTrial = trial;
-        trial = swap;
+        bestToCentres.set(toCentres.subarray(0, c));
       }
     }
     copyRow(data, bestIndex, d, out, c * d);
-    closest.set(bestTrial);
+    const cb = c * d;
+    for (let i = 0; i < n; i++) {
+      const own = closest[i];
+      const gap = bestToCentres[nearest[i]];
+      if (gap >= 4 * own) {
+        const bound = Math.sqrt(gap) - Math.sqrt(own);
+        if (bound < secondLower[i]) secondLower[i] = bound;
+        continue;
+      }
+      const ib = i * d;
+      let s = 0;
+      for (let j = 0; j < d; j++) {
+        const diff = data[ib + j] - out[cb + j];
+        s += diff * diff;
+      }
+      // Strictly closer: ties keep the earlier (lower-numbered) centre.
+      if (s < own) {
+        const previous = Math.sqrt(own);
+        if (previous < secondLower[i]) secondLower[i] = previous;
+        closest[i] = s;
+        nearest[i] = c;
+      } else {
+        const root = Math.sqrt(s);
+        if (root < secondLower[i]) secondLower[i] = root;
+      }
+    }
   }
 }
 
@@ -95,11 +141,10 @@ function copyRow(data: Float64Array, i: number, d: number, out: Float64Array, at
   for (let j = 0; j < d; j++) out[at + j] = data[i * d + j];
 }
 
-function squaredToRow(data: Float64Array, i: number, d: number, centers: Float64Array, at: number): number {
+function squaredDistanceRows(a: Float64Array, ab: number, b: Float64Array, bb: number, d: number): number {
   let s = 0;
-  const ib = i * d;
   for (let j = 0; j < d; j++) {
-    const diff = data[ib + j] - centers[at + j];
+    const diff = a[ab + j] - b[bb + j];
     s += diff * diff;
   }
   return s;
