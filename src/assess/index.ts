@@ -12,3 +12,5 @@ export { gapStatistic, GAP_RULE } from './gap-statistic';
 export type { GapStatisticOptions, GapStatisticResult, GapRow } from './gap-statistic';
 export { findKnee, KNEE_DIRECTIONS, KNEE_CURVES } from './knee';
 export type { FindKneeOptions, KneeResult } from './knee';
+export { compareK, COMPARE_K_RULE } from './compare-k';
+export type { CompareKOptions, CompareKResult, CompareKRow, CompareKByCriterion } from './compare-k';
