@@ -1,0 +1,144 @@
+// Bootstrap stability of segments (Hennig 2007): draw n rows with replacement, segment the
+// resample again, and for each original segment take the largest Jaccard similarity with any new
+// segment, both restricted to the distinct rows that were drawn. A segment that keeps coming back
+// has a mean Jaccard near 1; one that dissolves scores low.
+import { compactLabels, AssignmentInput } from '../core/assignment';
+import { KinsortError, checkChoice } from '../core/errors';
+import { Matrix, RowsInput, takeRows, toMatrix } from '../core/matrix';
+import { checkInteger, checkOptions } from '../core/options';
+import { ProgressCallback, report } from '../core/progress';
+import { kmeans } from '../methods/partition/kmeans';
+import { createRandom, Seed } from '../random';
+
+export const STABILITY_METHODS = ['kmeans'] as const;
+export type StabilityMethod = (typeof STABILITY_METHODS)[number];
+
+export interface BootstrapStabilityOptions {
+  /** Number of segments; taken from `assignment` when that is given. */
+  k?: number;
+  /** Number of bootstrap resamples (default 50). */
+  resamples?: number;
+  seed?: Seed;
+  /** How the original rows and each resample are segmented (default 'kmeans'). */
+  method?: StabilityMethod;
+  /** k-means restarts per fit (default 5). */
+  restarts?: number;
+  /** The original segmentation to judge; by default the method is run on all rows. */
+  assignment?: AssignmentInput;
+  onProgress?: ProgressCallback;
+}
+
+export type StabilityReading = 'stable' | 'doubtful' | 'unstable';
+
+export interface BootstrapStabilityResult {
+  readonly k: number;
+  /** The original segmentation (0..k-1) that was judged. */
+  readonly assignment: Int32Array;
+  /** Mean over resamples of each segment's best Jaccard similarity. */
+  readonly jaccard: number[];
+  /** Share of resamples in which the segment's best Jaccard was below 0.5. */
+  readonly dissolved: number[];
+  /** Share of resamples in which the segment's best Jaccard was at least 0.75. */
+  readonly recovered: number[];
+  readonly reading: StabilityReading[];
+  /** Best Jaccard per segment (rows) and resample (columns); NaN where no row of the segment was drawn. */
+  readonly jaccardByResample: number[][];
+  readonly resamples: number;
+}
+
+// Reading of the mean Jaccard (common practice, after Hennig 2007): below 0.6 the segment is not
+// stable, from 0.75 it is; in between it is doubtful.
+export const UNSTABLE_BELOW = 0.6;
+export const STABLE_FROM = 0.75;
+const DISSOLVED_BELOW = 0.5;
+
+const OPTIONS = ['k', 'resamples', 'seed', 'method', 'restarts', 'assignment', 'onProgress'] as const;
+
+type Segmenter = (m: Matrix, k: number, seed: number) => Int32Array;
+
+function segmenterFor(method: StabilityMethod, restarts: number): Segmenter {
+  switch (method) {
+    case 'kmeans':
+      return (m, k, seed) => kmeans(m, { k, seed, restarts }).assignment;
+  }
+}
+
+export function bootstrapStability(rows: RowsInput, options: BootstrapStabilityOptions): BootstrapStabilityResult {
+  const where = 'bootstrapStability';
+  const opts = checkOptions(options, OPTIONS, where);
+  const m = toMatrix(rows, { what: `${where} rows`, minRows: 2 });
+  const n = m.rows;
+  const method = checkChoice(opts.method ?? 'kmeans', STABILITY_METHODS, `${where} method`);
+  const restarts = checkInteger(opts.restarts ?? 5, `${where}: restarts`, 1);
+  const resamples = checkInteger(opts.resamples ?? 50, `${where}: resamples`, 1);
+  const root = createRandom(opts.seed ?? 0);
+  const segment = segmenterFor(method, restarts);
+
+  let original: Int32Array;
+  let k: number;
+  if (opts.assignment !== undefined) {
+    const compact = compactLabels(opts.assignment, n, where);
+    k = compact.k;
+    if (opts.k !== undefined && opts.k !== k) {
+      throw new KinsortError(`${where}: k = ${opts.k} but the assignment given has ${k} segments; leave k out or make them agree.`, 'bad-k');
+    }
+    original = compact.labels;
+  } else {
+    if (opts.k === undefined) {
+      throw new KinsortError(`${where}: give k (number of segments) or an assignment to judge, e.g. { k: 3 }.`, 'bad-k');
+    }
+    k = checkInteger(opts.k, `${where}: k`, 1, n);
+    original = segment(m, k, root.fork('original').uint32());
+  }
+
+  const byResample: number[][] = Array.from({ length: k }, () => new Array<number>(resamples).fill(NaN));
+  const drawnAt = new Int32Array(n).fill(-1); // resample in which row i was last seen
+  const intersection = new Float64Array(k * k);
+  const newSizes = new Float64Array(k);
+  const keptSizes = new Float64Array(k);
+  const indices = new Int32Array(n);
+  for (let b = 0; b < resamples; b++) {
+    const random = root.fork(`resample ${b}`);
+    for (let r = 0; r < n; r++) indices[r] = random.int(n);
+    const fit = segment(takeRows(m, indices), k, random.uint32());
+    // Distinct drawn rows: a row drawn twice is the same entity; its first copy's segment stands.
+    intersection.fill(0);
+    newSizes.fill(0);
+    keptSizes.fill(0);
+    for (let r = 0; r < n; r++) {
+      const i = indices[r];
+      if (drawnAt[i] === b) continue;
+      drawnAt[i] = b;
+      const c = original[i];
+      keptSizes[c]++;
+      newSizes[fit[r]]++;
+      intersection[c * k + fit[r]]++;
+    }
+    for (let c = 0; c < k; c++) {
+      if (keptSizes[c] === 0) continue; // segment not drawn: no evidence from this resample
+      let best = 0;
+      for (let d = 0; d < k; d++) {
+        const both = intersection[c * k + d];
+        if (both === 0) continue;
+        const jaccard = both / (keptSizes[c] + newSizes[d] - both);
+        if (jaccard > best) best = jaccard;
+      }
+      byResample[c][b] = best;
+    }
+    report(opts.onProgress, { task: 'bootstrap resamples', done: b + 1, total: resamples, detail: `k = ${k}` });
+  }
+
+  const jaccard: number[] = [];
+  const dissolved: number[] = [];
+  const recovered: number[] = [];
+  const reading: StabilityReading[] = [];
+  for (let c = 0; c < k; c++) {
+    const seen = byResample[c].filter((v) => !Number.isNaN(v));
+    const mean = seen.length ? seen.reduce((s, v) => s + v, 0) / seen.length : NaN;
+    jaccard.push(mean);
+    dissolved.push(seen.length ? seen.filter((v) => v < DISSOLVED_BELOW).length / seen.length : NaN);
+    recovered.push(seen.length ? seen.filter((v) => v >= STABLE_FROM).length / seen.length : NaN);
+    reading.push(mean >= STABLE_FROM ? 'stable' : mean >= UNSTABLE_BELOW ? 'doubtful' : 'unstable');
+  }
+  return { k, assignment: original, jaccard, dissolved, recovered, reading, jaccardByResample: byResample, resamples };
+}
