@@ -2,7 +2,6 @@
 import { KinsortError, didYouMean } from '../core/errors';
 import { checkOptions } from '../core/options';
 import { readTable } from '../table/read';
-import { requireColumn } from '../table/names';
 import { isTable, type Cell, type Table } from '../table/types';
 import { assemble } from './assemble';
 import { readIds, rowText } from './ids';
@@ -39,7 +38,13 @@ export function applyPreparation(
   const table = isTable(input) ? input : readTable(input);
   const names = table.columns.map((c) => c.name);
   const idColumn = opts.id === undefined ? preparation.idColumn : opts.id;
-  if (idColumn !== null) requireColumn(idColumn, names, 'applyPreparation id column');
+  if (idColumn !== null && !names.includes(idColumn)) {
+    throw new KinsortError(
+      `applyPreparation: the new rows have no id column "${idColumn}".${didYouMean(idColumn, names)} ` +
+        `Pass { id: 'other_column' } to name it, or { id: null } to number the rows 1..n.`,
+      'unknown-column',
+    );
+  }
   const needed = preparation.columns.map((c) => c.name);
   const absent = needed.filter((n) => !names.includes(n));
   if (absent.length > 0) {

@@ -5,7 +5,7 @@ import type { Cell } from '../table/types';
 import type { UsedColumn } from './roles';
 import { mean, median, minMax, quantileSorted, sampleSd, scaledMad, sortedCopy } from './stats';
 import type { PreparedColumn, ScaleMethod } from './types';
-import { numericCell, requireLevel } from './values';
+import { levelCodes, numericCell, requireLevel } from './values';
 
 export interface FitContext {
   scale: ScaleMethod;
@@ -27,11 +27,14 @@ export function fitColumn(
   const base = { name, type, log: ctx.log, weight: ctx.weight, fill: ctx.fill };
   if (type === 'numeric' || type === 'ordinal') {
     const levels = type === 'ordinal' ? column.ordinalLevels! : null;
+    const codes = levels ? levelCodes(levels) : null;
     const values = new Float64Array(kept.length);
     for (let r = 0; r < kept.length; r++) {
-      const cell = cells[kept[r]] as Exclude<Cell, null>;
-      const where = () => ctx.where(kept[r]);
-      values[r] = levels ? requireLevel(cell, levels, name, 'ordinal', where) : numericCell(cell, name, ctx.log, where);
+      const row = kept[r];
+      const cell = cells[row] as Exclude<Cell, null>;
+      values[r] = codes
+        ? requireLevel(cell, codes, name, 'ordinal', ctx.where, row)
+        : numericCell(cell, name, ctx.log, ctx.where, row);
     }
     const [lo, hi] = minMax(values);
     if (!(hi > lo)) return null;
@@ -106,7 +109,7 @@ export function fillValue(
     throw new KinsortError(`column "${column.name}" has no values at all, so there is nothing to impute from.`, 'empty');
   }
   if (column.type === 'numeric') {
-    const values = Float64Array.from(rows, (i) => numericCell(cells[i]!, column.name, false, () => where(i)));
+    const values = Float64Array.from(rows, (i) => numericCell(cells[i]!, column.name, false, where, i));
     return median(values);
   }
   const counts = new Map<string, number>();

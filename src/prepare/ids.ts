@@ -4,7 +4,11 @@ import { levelKey } from '../table/cells';
 import type { Table } from '../table/types';
 
 export function readIds(table: Table, idColumn: string | null, where: string): string[] {
-  if (idColumn === null) return Array.from({ length: table.rowCount }, (_, i) => String(i + 1));
+  if (idColumn === null) {
+    const ids = new Array<string>(table.rowCount);
+    for (let i = 0; i < table.rowCount; i++) ids[i] = String(i + 1);
+    return ids;
+  }
   const column = table.columns.find((c) => c.name === idColumn)!;
   const firstRow = new Map<string, number>();
   return column.values.map((cell, i) => {

@@ -41,7 +41,8 @@ export function applyMissingPolicy(input: MissingInput): MissingOutcome {
     }
   }
   const cells = new Map<string, Cell[]>(names.map((n) => [n, raw.get(n)! as Cell[]]));
-  const all = Int32Array.from({ length: rowCount }, (_, i) => i);
+  const all = new Int32Array(rowCount);
+  for (let i = 0; i < rowCount; i++) all[i] = i;
   if (total === 0) return { kept: all, dropped: [], imputed: [], cells };
 
   if (policy === 'refuse') {

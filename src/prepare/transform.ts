@@ -4,7 +4,7 @@ import type { MixedColumn } from '../core/mixed';
 import { levelKey } from '../table/cells';
 import type { Cell } from '../table/types';
 import type { PreparedColumn, UnseenLevel } from './types';
-import { levelIndex, numericCell, requireLevel } from './values';
+import { levelCodes, levelIndex, numericCell, requireLevel } from './values';
 
 export interface TransformInput {
   columns: readonly PreparedColumn[];
@@ -34,32 +34,33 @@ export function transformRows(input: TransformInput): TransformOutput {
     const cells = input.cells.get(spec.name)!;
     const codes = new Float64Array(n);
     const levels = spec.levels ?? [];
+    const codesOf = levelCodes(levels);
+    const where = input.where;
     for (let r = 0; r < n; r++) {
       const row = rows[r];
       const cell = cells[row] as Exclude<Cell, null>;
-      const where = () => input.where(row);
       const at = r * p + offset;
       switch (spec.type) {
         case 'numeric': {
-          const v = numericCell(cell, spec.name, spec.log, where);
+          const v = numericCell(cell, spec.name, spec.log, where, row);
           codes[r] = v;
           data[at] = ((v - spec.centre) / spec.spread) * spec.weight;
           break;
         }
         case 'ordinal': {
-          const k = requireLevel(cell, levels, spec.name, 'ordinal', where);
+          const k = requireLevel(cell, codesOf, spec.name, 'ordinal', where, row);
           codes[r] = k;
           data[at] = ((k - spec.centre) / spec.spread) * spec.weight;
           break;
         }
         case 'binary': {
-          const k = requireLevel(cell, levels, spec.name, 'binary', where);
+          const k = requireLevel(cell, codesOf, spec.name, 'binary', where, row);
           codes[r] = k;
           data[at] = k * spec.weight;
           break;
         }
         case 'categorical': {
-          const k = levelIndex(cell, levels);
+          const k = levelIndex(cell, codesOf);
           if (k < 0) {
             // Documented rule: an unseen level sits at the baseline (all indicators 0) and is reported.
             codes[r] = NaN;

@@ -39,7 +39,8 @@ export function levelKey(cell: Exclude<Cell, null>): string {
 export function normaliseCell(
   value: unknown,
   markers: ReadonlySet<string>,
-  where: () => string,
+  where: (row: number) => string,
+  row: number,
 ): Cell {
   if (value === null || value === undefined) return null;
   if (typeof value === 'number') return Number.isNaN(value) ? null : value;
@@ -48,7 +49,7 @@ export function normaliseCell(
   if (typeof value === 'bigint') return Number(value);
   if (value instanceof Date) return Number.isNaN(value.getTime()) ? null : value.toISOString();
   throw new KinsortError(
-    `${where()} holds ${Array.isArray(value) ? 'an array' : typeof value}; a cell must be a number, text, ` +
+    `${where(row)} holds ${Array.isArray(value) ? 'an array' : typeof value}; a cell must be a number, text, ` +
       `true/false, a date or empty.`,
     'bad-input',
   );

@@ -14,12 +14,16 @@ const TEXT_MIN_DISTINCT = 20;
 export function inferType(values: readonly Cell[]): InferredType {
   let present = 0;
   let numeric = 0;
-  const distinct = new Set<string>();
+  // Counting distinct values past this cap changes no decision below (binary needs exactly 2; text
+  // needs more than TEXT_MIN_DISTINCT and more than half the present values).
+  const cap = Math.max(TEXT_MIN_DISTINCT, values.length / 2) + 1;
+  const distinct = new Set<number | string>();
   for (const v of values) {
     if (v === null) continue;
     present++;
-    if (finiteNumber(v) !== undefined) numeric++;
-    distinct.add(levelKey(v));
+    const n = finiteNumber(v);
+    if (n !== undefined) numeric++;
+    if (distinct.size <= cap) distinct.add(n ?? levelKey(v));
   }
   if (present === 0) return 'numeric';
   if (distinct.size === 2) return 'binary';

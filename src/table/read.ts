@@ -74,11 +74,9 @@ function buildTable(raw: RawColumns, options: ReadTableOptions): Table {
   const markers = new Set((options.missingMarkers ?? DEFAULT_MISSING_MARKERS).map((m) => String(m).trim()));
   const { types, levels } = checkTypeOverrides(raw.names, options.types, options.ordinalLevels, 'readTable');
   const columns: TableColumn[] = raw.names.map((name, j) => {
-    const cells = raw.columns[j].map((value, i) =>
-      normaliseCell(value, markers, () =>
-        raw.lines ? `${raw.source}: line ${raw.lines[i]}, column "${name}"` : `${raw.source}: row ${i + 1}, column "${name}"`,
-      ),
-    );
+    const where = (i: number) =>
+      raw.lines ? `${raw.source}: line ${raw.lines[i]}, column "${name}"` : `${raw.source}: row ${i + 1}, column "${name}"`;
+    const cells = raw.columns[j].map((value, i) => normaliseCell(value, markers, where, i));
     const inferred = inferType(cells);
     const declared = types.get(name);
     const values = convertNumbers(cells, declared === 'numeric' || (declared === undefined && inferred === 'numeric'));
