@@ -6,3 +6,4 @@ export { distanceFunction, METRICS, ROW_METRICS, TRUE_METRICS } from './metrics'
 export type { MetricName, RowMetric, PairKernel } from './metrics';
 export { crossDistances } from './cross';
 export type { CrossDistanceOptions } from './cross';
+export { setDissimilarityThreads, lastDissimilarityShare } from './parallel';
