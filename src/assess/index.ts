@@ -14,5 +14,5 @@ export { findKnee, KNEE_DIRECTIONS, KNEE_CURVES } from './knee';
 export type { FindKneeOptions, KneeResult } from './knee';
 export { compareK, COMPARE_K_RULE } from './compare-k';
 export type { CompareKOptions, CompareKResult, CompareKRow, CompareKByCriterion } from './compare-k';
-export { bootstrapStability, STABILITY_METHODS, UNSTABLE_BELOW, STABLE_FROM } from './bootstrap-stability';
-export type { BootstrapStabilityOptions, BootstrapStabilityResult, StabilityReading, StabilityMethod } from './bootstrap-stability';
+export { bootstrapStability, STABILITY_METHODS, UNSTABLE_BELOW, STABLE_FROM } from './stability';
+export type { BootstrapStabilityOptions, BootstrapStabilityResult, StabilityResult, StabilityReading, StabilityMethod } from './stability';

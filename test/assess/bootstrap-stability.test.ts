@@ -5,6 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import fixture from '../reference/fixtures/gap_clusgap.json';
 import { bootstrapStability } from '../../src/assess';
+import { dissimilarity } from '../../src/measure';
 
 const blobs = fixture.gap.blobs.rows;
 
@@ -46,6 +47,24 @@ describe('bootstrapStability', () => {
       const mean = a.jaccardByResample[c].reduce((s, v) => s + v, 0) / 6;
       expect(a.jaccard[c]).toBeCloseTo(mean, 12);
     }
+  });
+
+  it('k-medoids from rows and from a dissimilarity: Ruspini\'s four groups (1970; pam(ruspini, 4) in R) are stable', () => {
+    const ruspini = fixture.pamRuspini;
+    const fromRows = bootstrapStability(ruspini.rows, { k: 4, method: 'kmedoids', resamples: 15, seed: 4 });
+    const fromDiss = bootstrapStability(dissimilarity(ruspini.rows), { k: 4, method: 'kmedoids', resamples: 15, seed: 4 });
+    // PAM is deterministic: the same resampled rows give the same segments either way.
+    expect(fromDiss.jaccard).toEqual(fromRows.jaccard);
+    expect(fromRows.method).toBe('kmedoids');
+    expect(fromRows.reading).toEqual(['stable', 'stable', 'stable', 'stable']);
+    // the original PAM segments are R's pam(ruspini, 4) clustering, up to numbering
+    const counts = new Map<string, number>();
+    ruspini.clustering.forEach((c, i) => counts.set(`${c}-${fromRows.assignment[i]}`, (counts.get(`${c}-${fromRows.assignment[i]}`) ?? 0) + 1));
+    expect(counts.size).toBe(4);
+  });
+
+  it('refuses k-means on a dissimilarity', () => {
+    expect(() => bootstrapStability(dissimilarity(blobs), { k: 4 })).toThrow(/use method "kmedoids" with a dissimilarity/);
   });
 
   it('refuses a missing k, a k that disagrees with the assignment, and unknown methods', () => {

@@ -5,12 +5,15 @@
 import { compactLabels, AssignmentInput } from '../core/assignment';
 import { KinsortError, checkChoice } from '../core/errors';
 import { Matrix, RowsInput, takeRows, toMatrix } from '../core/matrix';
+import { Dissimilarity, isDissimilarity, makeDissimilarity } from '../measure/condensed';
+import type { MetricName } from '../measure/metrics';
+import { kmedoids } from '../methods/partition/kmedoids';
 import { checkInteger, checkOptions } from '../core/options';
 import { ProgressCallback, report } from '../core/progress';
 import { kmeans } from '../methods/partition/kmeans';
 import { createRandom, Seed } from '../random';
 
-export const STABILITY_METHODS = ['kmeans'] as const;
+export const STABILITY_METHODS = ['kmeans', 'kmedoids'] as const;
 export type StabilityMethod = (typeof STABILITY_METHODS)[number];
 
 export interface BootstrapStabilityOptions {
@@ -21,16 +24,22 @@ export interface BootstrapStabilityOptions {
   seed?: Seed;
   /** How the original rows and each resample are segmented (default 'kmeans'). */
   method?: StabilityMethod;
-  /** k-means restarts per fit (default 5). */
+  /** k-means restarts per fit (default 5; k-means only). */
   restarts?: number;
+  /** Metric for k-medoids on rows (default 'euclidean'); a dissimilarity given carries its own. */
+  metric?: MetricName;
   /** The original segmentation to judge; by default the method is run on all rows. */
   assignment?: AssignmentInput;
   onProgress?: ProgressCallback;
 }
 
+/** Short name used by the fluent layer. */
+export type StabilityResult = BootstrapStabilityResult;
+
 export type StabilityReading = 'stable' | 'doubtful' | 'unstable';
 
 export interface BootstrapStabilityResult {
+  readonly method: StabilityMethod;
   readonly k: number;
   /** The original segmentation (0..k-1) that was judged. */
   readonly assignment: Int32Array;
@@ -52,27 +61,66 @@ export const UNSTABLE_BELOW = 0.6;
 export const STABLE_FROM = 0.75;
 const DISSOLVED_BELOW = 0.5;
 
-const OPTIONS = ['k', 'resamples', 'seed', 'method', 'restarts', 'assignment', 'onProgress'] as const;
+const OPTIONS = ['k', 'resamples', 'seed', 'method', 'restarts', 'metric', 'assignment', 'onProgress'] as const;
 
-type Segmenter = (m: Matrix, k: number, seed: number) => Int32Array;
+/** The data being resampled: rows, or a dissimilarity (k-medoids only). */
+type Source = { kind: 'rows'; m: Matrix } | { kind: 'dissimilarity'; d: Dissimilarity };
+/** Segment the rows at `indices` (with repeats) into k; returns one label per index. */
+type Segmenter = (indices: Int32Array | null, k: number, seed: number) => Int32Array;
 
-function segmenterFor(method: StabilityMethod, restarts: number): Segmenter {
-  switch (method) {
-    case 'kmeans':
-      return (m, k, seed) => kmeans(m, { k, seed, restarts }).assignment;
+/** The dissimilarity among the rows at `indices`, in that order (repeats give distance 0). */
+function subDissimilarity(d: Dissimilarity, indices: Int32Array): Dissimilarity {
+  const n = indices.length;
+  const out = new Float64Array((n * (n - 1)) / 2);
+  let p = 0;
+  for (let a = 0; a < n - 1; a++) {
+    const i = indices[a];
+    for (let b = a + 1; b < n; b++) out[p++] = d.get(i, indices[b]);
   }
+  return makeDissimilarity(n, out, d.metric);
 }
 
-export function bootstrapStability(rows: RowsInput, options: BootstrapStabilityOptions): BootstrapStabilityResult {
+function segmenterFor(source: Source, method: StabilityMethod, restarts: number, metric: MetricName | undefined): Segmenter {
+  if (source.kind === 'dissimilarity') {
+    const d = source.d;
+    return (indices, k) => kmedoids(indices ? subDissimilarity(d, indices) : d, { k }).assignment;
+  }
+  const m = source.m;
+  if (method === 'kmeans') return (indices, k, seed) => kmeans(indices ? takeRows(m, indices) : m, { k, seed, restarts }).assignment;
+  return (indices, k) => kmedoids(indices ? takeRows(m, indices) : m, { k, metric }).assignment;
+}
+
+/**
+ * Bootstrap stability of a segmentation. `rowsOrDissimilarity` may be a dissimilarity only with
+ * method 'kmedoids' (PAM is deterministic, so resamples differ only in the rows drawn).
+ */
+export function bootstrapStability(
+  rowsOrDissimilarity: RowsInput | Dissimilarity,
+  options: BootstrapStabilityOptions,
+): BootstrapStabilityResult {
   const where = 'bootstrapStability';
   const opts = checkOptions(options, OPTIONS, where);
-  const m = toMatrix(rows, { what: `${where} rows`, minRows: 2 });
-  const n = m.rows;
   const method = checkChoice(opts.method ?? 'kmeans', STABILITY_METHODS, `${where} method`);
+  let source: Source;
+  let n: number;
+  if (isDissimilarity(rowsOrDissimilarity)) {
+    if (method !== 'kmedoids') {
+      throw new KinsortError(
+        `${where}: k-means needs rows, but a dissimilarity was given; use method "kmedoids" with a dissimilarity, or pass the rows.`,
+        'bad-option',
+      );
+    }
+    source = { kind: 'dissimilarity', d: rowsOrDissimilarity };
+    n = rowsOrDissimilarity.size;
+  } else {
+    const m = toMatrix(rowsOrDissimilarity, { what: `${where} rows`, minRows: 2 });
+    source = { kind: 'rows', m };
+    n = m.rows;
+  }
   const restarts = checkInteger(opts.restarts ?? 5, `${where}: restarts`, 1);
   const resamples = checkInteger(opts.resamples ?? 50, `${where}: resamples`, 1);
   const root = createRandom(opts.seed ?? 0);
-  const segment = segmenterFor(method, restarts);
+  const segment = segmenterFor(source, method, restarts, opts.metric);
 
   let original: Int32Array;
   let k: number;
@@ -88,7 +136,7 @@ export function bootstrapStability(rows: RowsInput, options: BootstrapStabilityO
       throw new KinsortError(`${where}: give k (number of segments) or an assignment to judge, e.g. { k: 3 }.`, 'bad-k');
     }
     k = checkInteger(opts.k, `${where}: k`, 1, n);
-    original = segment(m, k, root.fork('original').uint32());
+    original = segment(null, k, root.fork('original').uint32());
   }
 
   const byResample: number[][] = Array.from({ length: k }, () => new Array<number>(resamples).fill(NaN));
@@ -100,7 +148,7 @@ export function bootstrapStability(rows: RowsInput, options: BootstrapStabilityO
   for (let b = 0; b < resamples; b++) {
     const random = root.fork(`resample ${b}`);
     for (let r = 0; r < n; r++) indices[r] = random.int(n);
-    const fit = segment(takeRows(m, indices), k, random.uint32());
+    const fit = segment(indices, k, random.uint32());
     // Distinct drawn rows: a row drawn twice is the same entity; its first copy's segment stands.
     intersection.fill(0);
     newSizes.fill(0);
@@ -140,5 +188,5 @@ export function bootstrapStability(rows: RowsInput, options: BootstrapStabilityO
     recovered.push(seen.length ? seen.filter((v) => v >= STABLE_FROM).length / seen.length : NaN);
     reading.push(mean >= STABLE_FROM ? 'stable' : mean >= UNSTABLE_BELOW ? 'doubtful' : 'unstable');
   }
-  return { k, assignment: original, jaccard, dissolved, recovered, reading, jaccardByResample: byResample, resamples };
+  return { method, k, assignment: original, jaccard, dissolved, recovered, reading, jaccardByResample: byResample, resamples };
 }
