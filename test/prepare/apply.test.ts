@@ -71,6 +71,15 @@ describe('applyPreparation', () => {
     expect(ok.report.notes.filter((n) => n.startsWith('Ignored columns'))).toEqual(['Ignored columns not in the preparation: extra, other.']);
   });
 
+  test('new rows without the id column: refused by name, or numbered 1..n with { id: null }', () => {
+    const fitted = prepareTable(riders(30, 5), options);
+    const rows = riders(3, 6).map(({ rider: _rider, ...rest }) => rest);
+    expect(() => applyPreparation(fitted.preparation, rows)).toThrow(/no id column "rider".*\{ id: null \}/);
+    const out = applyPreparation(fitted.preparation, rows, { id: null });
+    expect(out.ids).toEqual(['1', '2', '3']);
+    expect(() => applyPreparation(fitted.preparation, rows, { idd: null } as never)).toThrow(/Did you mean "id"\?/);
+  });
+
   test('missing cells follow the stored policy: median uses the stored training values', () => {
     const train = riders(30, 11);
     train[2].trips = null as never;

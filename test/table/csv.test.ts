@@ -64,6 +64,18 @@ describe('CSV text', () => {
   });
 });
 
+describe('CSV text: odd corners', () => {
+  test('an unclosed quote is refused naming the line where its row starts', () => {
+    expect(() => readTable('a,b\n1,2\n3,"x\n4,5\n')).toThrow(/Quoted field unterminated \(row starting on line 3\)/);
+  });
+
+  test('a single-column file (no delimiter to detect) reads as one column', () => {
+    const t = readTable('score\n1.5\n2\nNA\n4\n');
+    expect(t.columns.map((c) => c.name)).toEqual(['score']);
+    expect(col(t, 'score')).toEqual([1.5, 2, null, 4]);
+  });
+});
+
 describe('CSV file', () => {
   test('readCsvFile reads a file with BOM, CRLF and semicolons', () => {
     const dir = mkdtempSync(join(tmpdir(), 'kinsort-csv-'));
