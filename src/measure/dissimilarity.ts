@@ -48,7 +48,8 @@ export function dissimilarity(input: RowsInput | MixedTable, options?: Dissimila
     }
     return gowerDissimilarity(input, opts.weights, WHERE);
   }
-  const m = toMatrix(input, { what: WHERE });
+  // Gower skips a missing value (NaN) pair by pair; every other metric refuses it.
+  const m = toMatrix(input, { what: WHERE, finite: metric !== 'gower' });
   if (m.cols === 0) throw new KinsortError(`${WHERE}: the rows have no columns.`, 'empty');
   if (metric === 'gower') return gowerDissimilarity(numericTable(m), opts.weights, WHERE);
   const weights = checkWeights(metric, opts.weights, m.cols, WHERE, (j) => (m.colNames?.[j] ? `column "${m.colNames[j]}"` : `column ${j + 1}`));
