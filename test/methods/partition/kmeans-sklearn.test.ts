@@ -11,14 +11,13 @@ describe('kmeans within-SS against scikit-learn KMeans (data of our own making)'
     for (const r of c.results) {
       // Some of these landscapes have many local minima (scikit-learn's own single starts reach
       // its n_init = 10 value only 2–4 % of the time), so "enough restarts" here is 300.
-      it(`${c.name}, k = ${r.k}: ours with 300 restarts ≤ scikit-learn n_init = 10 × (1 + 1e-9)`, () => {
+      // The same 300 restarts also give the median single-start within-SS, compared with the
+      // median of scikit-learn's 200 single starts (a check on the quality of k-means++ starts).
+      it(`${c.name}, k = ${r.k}: best of 300 restarts ≤ scikit-learn n_init = 10 × (1 + 1e-9); median start within 1 %`, () => {
         const fit = kmeans(c.rows, { k: r.k, restarts: 300, seed: 7 });
         expect(fit.withinSS).toBeLessThanOrEqual(r.withinSS * (1 + 1e-9));
-      });
-      it(`${c.name}, k = ${r.k}: median single-start within-SS within 1 % of scikit-learn's (200 starts each)`, () => {
-        const fit = kmeans(c.rows, { k: r.k, restarts: 200, seed: 11 });
         const sorted = [...fit.restartWithinSS].sort((a, b) => a - b);
-        const median = (sorted[99] + sorted[100]) / 2;
+        const median = (sorted[149] + sorted[150]) / 2;
         expect(Math.abs(median - r.singleStartMedianWithinSS) / r.singleStartMedianWithinSS).toBeLessThan(0.01);
       });
     }
