@@ -6,9 +6,8 @@
 import { KinsortError, didYouMean } from '../core/errors';
 import { checkOptions } from '../core/options';
 import { applyPreparation } from '../prepare';
-import { readIds, rowText } from '../prepare/ids';
-import type { ImputedColumn, Preparation, UnseenLevel } from '../prepare/types';
-import { numericCell, requireLevel } from '../prepare/values';
+import { readIds } from '../prepare/ids';
+import type { ImputedColumn, Preparation, PreparedData, UnseenLevel } from '../prepare/types';
 import { readTable } from '../table';
 import type { Table, TableColumn } from '../table/types';
 import { nearestCenters } from './assign-nearest';
@@ -52,25 +51,14 @@ export interface AssignmentOutcome {
   readonly report: AssignmentReport;
 }
 
-/** Why row i cannot be prepared, or undefined when it can. */
-function rowProblem(prep: Preparation, columns: Map<string, TableColumn>, i: number, where: () => string): string | undefined {
+/** The used columns of row i that are missing and that the stored policy does not fill. */
+function unfilledMissing(prep: Preparation, columns: Map<string, TableColumn>, i: number): string[] {
   const missing: string[] = [];
   for (const spec of prep.columns) {
-    const cell = columns.get(spec.name)!.values[i];
-    if (cell === null) {
-      if (prep.missing !== 'median' || spec.fill === null) missing.push(spec.name);
-      continue;
-    }
-    try {
-      if (spec.type === 'numeric') numericCell(cell, spec.name, spec.log, where);
-      else if (spec.type === 'binary' || spec.type === 'ordinal') requireLevel(cell, spec.levels ?? [], spec.name, spec.type, where);
-    } catch (e) {
-      if (e instanceof KinsortError) return e.message;
-      throw e;
-    }
+    if (columns.get(spec.name)!.values[i] !== null) continue;
+    if (prep.missing !== 'median' || spec.fill === null) missing.push(spec.name);
   }
-  if (missing.length > 0) return `missing value in ${missing.join(', ')} (missing-value policy '${prep.missing}')`;
-  return undefined;
+  return missing;
 }
 
 function subsetTable(table: Table, names: readonly string[], rows: readonly number[]): Table {
@@ -102,18 +90,45 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
   const byName = new Map(table.columns.map((c) => [c.name, c]));
 
   const refused: RefusedRow[] = [];
-  const good: number[] = [];
+  let good: number[] = [];
   for (let i = 0; i < table.rowCount; i++) {
-    const problem = rowProblem(prep, byName, i, () => rowText(i, ids, prep.idColumn !== null));
-    if (problem === undefined) good.push(i);
-    else refused.push({ id: ids[i], row: i, reason: problem });
+    const missing = unfilledMissing(prep, byName, i);
+    if (missing.length === 0) good.push(i);
+    else {
+      const why = prep.missing === 'median' ? 'no training median stored for it' : `missing-value policy '${prep.missing}'`;
+      refused.push({ id: ids[i], row: i, reason: `missing value in ${missing.join(', ')} (${why})` });
+    }
+  }
+
+  // One pass over the rows that can be prepared; if a cell is refused (text in a numeric column,
+  // a binary or ordinal level never seen in training), find the rows that fail one at a time.
+  let prepared: PreparedData | undefined;
+  if (good.length > 0) {
+    try {
+      prepared = applyPreparation(prep, subsetTable(table, needed, good));
+    } catch (e) {
+      if (!(e instanceof KinsortError)) throw e;
+      const stillGood: number[] = [];
+      for (const i of good) {
+        try {
+          applyPreparation(prep, subsetTable(table, needed, [i]));
+          stillGood.push(i);
+        } catch (one) {
+          if (!(one instanceof KinsortError)) throw one;
+          // The message names the row inside the one-row table; name the input row instead.
+          refused.push({ id: ids[i], row: i, reason: one.message.replace(/\brow 1\b/, `row ${i + 1}`) });
+        }
+      }
+      refused.sort((a, b) => a.row - b.row);
+      good = stillGood;
+      prepared = good.length > 0 ? applyPreparation(prep, subsetTable(table, needed, good)) : undefined;
+    }
   }
 
   const rows: AssignedRow[] = ids.map((id) => ({ id, segment: null, distance: null, far: null }));
   let unseenLevels: UnseenLevel[] = [];
   let imputed: ImputedColumn[] = [];
-  if (good.length > 0) {
-    const prepared = applyPreparation(prep, subsetTable(table, needed, good));
+  if (prepared !== undefined) {
     const m = prepared.matrix;
     if (m.cols !== definition.features.length || m.rows !== good.length) {
       throw new KinsortError(`assign: the preparation gave ${m.rows} × ${m.cols} values for ${good.length} rows × ${definition.features.length} features.`, 'bad-definition');

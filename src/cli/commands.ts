@@ -1,0 +1,135 @@
+// The three commands. Each takes its arguments and an output sink and returns the exit status;
+// errors are thrown as KinsortError and worded by main.ts.
+import { writeFileSync } from 'fs';
+import { KinsortError, checkChoice } from '../core/errors';
+import { readCsvFile } from '../table';
+import { prepareTable, SCALE_METHODS, MISSING_POLICIES } from '../prepare';
+import { silhouette } from '../assess';
+import { buildDefinition } from '../segments/definition-build';
+import { loadDefinition } from '../segments/definition-handle';
+import { writeDefinitionJson } from '../segments/definition-json';
+import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
+import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';
+import { scoredCsv } from './csv-out';
+import { fitMatrix } from './fit-methods';
+import { ASSIGN_HELP, FIT_HELP, SQL_HELP } from './help';
+
+export interface Io {
+  out(text: string): void;
+  err(text: string): void;
+}
+
+function writeFile(path: string, text: string, what: string): void {
+  try {
+    writeFileSync(path, text, 'utf8');
+  } catch (e) {
+    throw new KinsortError(`cannot write ${what} to "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`, 'bad-input');
+  }
+}
+
+const FIT_OPTIONS = {
+  id: { type: 'string' }, use: { type: 'string' }, keep: { type: 'string' }, method: { type: 'string' },
+  k: { type: 'string' }, linkage: { type: 'string' }, metric: { type: 'string' }, scale: { type: 'string' },
+  missing: { type: 'string' }, log: { type: 'string' }, seed: { type: 'string' }, restarts: { type: 'string' },
+  note: { type: 'string' }, out: { type: 'string' },
+} as const;
+
+export function fitCommand(args: string[], io: Io): number {
+  const c = 'fit';
+  const { values, positionals } = parseCommandArgs(c, args, FIT_OPTIONS);
+  if (values.help) return io.out(FIT_HELP), 0;
+  const [dataPath] = exactPositionals(positionals, ['DATA.csv'], c);
+  const method = checkChoice(requireString(values, 'method', c), DEFINITION_METHODS, 'method');
+  const k = integerOption(requireString(values, 'k', c), 'k', c, 1)!;
+  const out = requireString(values, 'out', c);
+  const id = requireString(values, 'id', c);
+  const use = listOption(requireString(values, 'use', c), 'use', c);
+  const keep = values.keep === undefined ? undefined : listOption(optionalString(values, 'keep')!, 'keep', c);
+  const log = values.log === undefined ? undefined : listOption(optionalString(values, 'log')!, 'log', c);
+  const scale = values.scale === undefined ? undefined : checkChoice(values.scale, SCALE_METHODS, 'scale');
+  const missing = values.missing === undefined ? undefined : checkChoice(values.missing, MISSING_POLICIES, 'missing-value policy');
+  const metric = values.metric === undefined ? undefined : checkChoice(values.metric, DEFINITION_METRICS, 'metric');
+  if (values.linkage !== undefined && method !== 'hierarchy') {
+    throw new KinsortError(`fit: --linkage applies to --method hierarchy only.`, 'bad-option');
+  }
+  if (values.restarts !== undefined && method !== 'kmeans') {
+    throw new KinsortError(`fit: --restarts applies to --method kmeans only.`, 'bad-option');
+  }
+  const seed = integerOption(optionalString(values, 'seed'), 'seed', c, 0);
+  const restarts = integerOption(optionalString(values, 'restarts'), 'restarts', c, 1);
+
+  const table = readCsvFile(dataPath);
+  const prepared = prepareTable(table, { id, use, keep, log, scale, missing });
+  const fit = fitMatrix(prepared.matrix, { method, k, seed, restarts, linkage: optionalString(values, 'linkage'), metric });
+  const definition = buildDefinition({
+    preparation: prepared.preparation,
+    method: { name: method, options: fit.options },
+    centers: fit.centers,
+    medoids: fit.medoids,
+    metric: fit.metric,
+    training: { ids: prepared.ids, matrix: prepared.matrix, assignment: fit.assignment },
+    note: optionalString(values, 'note'),
+  });
+  writeFile(out, writeDefinitionJson(definition), 'the definition');
+
+  const report = prepared.report;
+  const lines = [
+    `kinsort fit: ${report.keptRows} of ${report.inputRows} rows, ${prepared.matrix.cols} prepared feature${prepared.matrix.cols === 1 ? "" : "s"}, ${method} with k = ${k}`,
+  ];
+  if (report.dropped.length > 0) {
+    const shown = report.dropped.slice(0, 5).map((d) => `${d.id} (${d.reason})`).join('; ');
+    lines.push(`dropped ${report.dropped.length} row(s): ${shown}${report.dropped.length > 5 ? '; …' : ''}`);
+  }
+  for (const imp of report.imputed) lines.push(`imputed ${imp.count} missing value(s) in ${imp.column} with ${imp.value}`);
+  lines.push(`segment sizes: ${definition.segments.map((s) => `${s.number}: ${s.size}`).join(', ')}`);
+  lines.push(fit.figure);
+  if (k >= 2 && k < prepared.matrix.rows) {
+    const silhouetteMetric = method === 'kmedoids' ? fit.metric : 'euclidean';
+    const s = silhouette(prepared.matrix, fit.assignment, { metric: silhouetteMetric });
+    lines.push(`average silhouette (${silhouetteMetric}): ${Number(s.average.toPrecision(4))}`);
+  }
+  lines.push(`definition written to ${out}`);
+  io.out(lines.join('\n') + '\n');
+  return 0;
+}
+
+export function assignCommand(args: string[], io: Io): number {
+  const c = 'assign';
+  const { values, positionals } = parseCommandArgs(c, args, { out: { type: 'string' } });
+  if (values.help) return io.out(ASSIGN_HELP), 0;
+  const [defPath, dataPath] = exactPositionals(positionals, ['DEF.json', 'DATA.csv'], c);
+  const handle = loadDefinition(defPath);
+  const outcome = handle.assign(readCsvFile(dataPath));
+  const idColumn = (handle.definition.preparation.idColumn as string | null) ?? 'row';
+  const csv = scoredCsv(idColumn, outcome);
+  const out = optionalString(values, 'out');
+  // Without --out the CSV owns standard output; the summary goes to standard error.
+  const say = out === undefined ? io.err : io.out;
+  if (out === undefined) io.out(csv);
+  else writeFile(out, csv, 'the scored rows');
+  const r = outcome.report;
+  const lines = [`kinsort assign: ${r.assignedRows} of ${r.inputRows} rows given a segment`];
+  lines.push(...r.notes.filter((n) => !n.includes('"refused"')));
+  for (const refused of r.refused) lines.push(`no segment for ${refused.id}: ${refused.reason}`);
+  if (out !== undefined) lines.push(`scored rows written to ${out}`);
+  say(lines.join('\n') + '\n');
+  return 0;
+}
+
+export function sqlCommand(args: string[], io: Io): number {
+  const c = 'sql';
+  const { values, positionals } = parseCommandArgs(c, args, {
+    table: { type: 'string' }, 'id-column': { type: 'string' }, out: { type: 'string' },
+  });
+  if (values.help) return io.out(SQL_HELP), 0;
+  const [defPath] = exactPositionals(positionals, ['DEF.json'], c);
+  const table = requireString(values, 'table', c);
+  const sql = loadDefinition(defPath).toSql({ table, idColumn: optionalString(values, 'id-column') });
+  const out = optionalString(values, 'out');
+  if (out === undefined) io.out(sql);
+  else {
+    writeFile(out, sql, 'the SQL');
+    io.out(`SQL written to ${out}\n`);
+  }
+  return 0;
+}

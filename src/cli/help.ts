@@ -1,0 +1,61 @@
+// Help texts of the command line.
+export const MAIN_HELP = `kinsort — segments from a table of entities
+
+Usage:
+  kinsort fit DATA.csv --id COL --use A,B,C --method kmeans|kmedoids|hierarchy --k N --out DEF.json
+  kinsort assign DEF.json DATA.csv [--out SCORED.csv]
+  kinsort sql DEF.json --table NAME [--id-column COL] [--out QUERY.sql]
+
+Run "kinsort COMMAND --help" for the options of each command.
+Errors print one line to standard error and exit with status 2.
+`;
+
+export const FIT_HELP = `kinsort fit DATA.csv --id COL --use A,B,C --method M --k N --out DEF.json [options]
+
+Fit segments to a CSV table and write a segment definition (JSON). The same data, options and
+seed always give a byte-identical file (no clock is read; put a date in --note if you want one).
+
+Required:
+  --id COL            column of unique row ids
+  --use A,B,C         feature columns, comma-separated
+  --method M          kmeans | kmedoids | hierarchy
+  --k N               number of segments
+  --out DEF.json      where to write the definition
+
+Options:
+  --keep X,Y          profile-only columns (stored, never used to fit)
+  --scale S           zscore (default) | robust | minmax | none
+  --missing P         refuse (default) | drop | median
+  --log A,B           numeric columns to pass through log1p before scaling
+  --seed N            random seed (default 0; k-means and k-medoids)
+  --restarts N        k-means starts, the best kept (default 10)
+  --linkage L         hierarchy: ward (default) | single | complete | average | weighted | centroid | median
+  --metric D          euclidean (default) | manhattan | sqeuclidean — k-medoids and hierarchy
+  --note TEXT         a note stored in the definition
+
+A hierarchy cut assigns new rows to the nearest segment mean in the prepared space.
+Prints the segment sizes, the within-segment sum of squares (k-means, hierarchy) or the
+total distance to the medoids (k-medoids), and the average silhouette.
+`;
+
+export const ASSIGN_HELP = `kinsort assign DEF.json DATA.csv [--out SCORED.csv]
+
+Apply a definition to the rows of a CSV table: the stored preparation, then the nearest segment.
+Writes a CSV with the id column, segment (1-based), distance and far (1 when farther than every
+segment's 99th-percentile training distance); without --out it goes to standard output.
+A row that cannot be prepared (a missing value under the stored policy, an unknown binary level,
+text in a numeric column) keeps its line with empty segment, distance and far, and is named by id
+on standard error. Extra columns are ignored (said once).
+`;
+
+export const SQL_HELP = `kinsort sql DEF.json --table NAME [--id-column COL] [--out QUERY.sql]
+
+Write one portable SQL SELECT that computes the stored preparation and nearest segment where the
+data lives. Returns the id column, segment, distance and far. Only portable SQL is used, so the
+same text runs on an embedded engine and on a distributed SQL engine. Rows with a missing value
+that the stored policy does not fill get segment NULL.
+
+  --table NAME        table or view to score (a qualified name such as schema.table is written as given)
+  --id-column COL     id column, when it differs from the training table's
+  --out QUERY.sql     write to a file instead of standard output
+`;
