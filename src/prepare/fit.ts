@@ -39,7 +39,8 @@ export function fitColumn(
     const [lo, hi] = minMax(values);
     if (!(hi > lo)) return null;
     const { centre, spread, spreadKind } = scaleOf(values, ctx.scale, lo, hi, name, ctx.notes);
-    return { ...base, levels: levels ? [...levels] : null, centre, spread, spreadKind, features: [name] };
+    // `+ 0` turns a -0 centre into +0: JSON writes -0 as 0, and the re-applied matrix must match bit for bit.
+    return { ...base, levels: levels ? [...levels] : null, centre: centre + 0, spread, spreadKind, features: [name] };
   }
   const present = new Set<string>();
   for (let r = 0; r < kept.length; r++) present.add(levelKey(cells[kept[r]] as Exclude<Cell, null>));
@@ -110,7 +111,7 @@ export function fillValue(
   }
   if (column.type === 'numeric') {
     const values = Float64Array.from(rows, (i) => numericCell(cells[i]!, column.name, false, where, i));
-    return median(values);
+    return median(values) + 0; // no -0: it would not survive JSON
   }
   const counts = new Map<string, number>();
   for (const i of rows) {

@@ -49,6 +49,13 @@ describe('applyPreparation', () => {
     }
   });
 
+  test('bit-for-bit after JSON even when the minimum (the min-max centre) is -0', () => {
+    const rows = [{ v: -0 }, { v: 1 }, { v: 3 }];
+    const fitted = prepareTable(rows, { scale: 'minmax' });
+    const again = applyPreparation(JSON.parse(JSON.stringify(fitted.preparation)), rows);
+    expect(Object.is(again.matrix.data[0], fitted.matrix.data[0])).toBe(true);
+  });
+
   test('a level never seen in training: all its indicators 0, reported by id, column and level', () => {
     const fitted = prepareTable(riders(40, 3), options);
     const fresh = [
