@@ -16,3 +16,4 @@ export * from './assess';
 export * from './segments';
 export * from './views';
 export * from './notebook';
+export * from './study';

@@ -1,0 +1,91 @@
+// The fluent hierarchy: a tree that knows its ids and prepared data, draws its dendrogram and
+// cuts into the same Segmentation that k-means gives.
+import { checkOptions } from '../core/options';
+import { KinsortError } from '../core/errors';
+import type { PreparedData } from '../prepare';
+import type { Tree, CutSpec } from '../methods/hierarchy';
+import type { Dissimilarity } from '../measure/condensed';
+import { dissimilarity } from '../measure/dissimilarity';
+import { dendrogramView, heatmapView, HEATMAP_MAX_ROWS, type View } from '../views';
+import { Segmentation } from './segmentation';
+import { segmentMeans } from './centres';
+
+export class Hierarchy {
+  readonly tree: Tree;
+  readonly data: PreparedData;
+  /** The dissimilarity the tree was built on, when it was built on one. */
+  readonly dissimilarity?: Dissimilarity;
+  private readonly options: Record<string, unknown>;
+
+  constructor(tree: Tree, data: PreparedData, options: Record<string, unknown>, used?: Dissimilarity) {
+    this.tree = tree;
+    this.data = data;
+    this.options = options;
+    this.dissimilarity = used;
+  }
+
+  get merges(): Tree['merges'] {
+    return this.tree.merges;
+  }
+
+  /** Leaves in drawing order, as ids. */
+  get order(): string[] {
+    return this.tree.order.map((i) => this.data.ids[i]);
+  }
+
+  get monotonic(): Tree['monotonic'] {
+    return this.tree.monotonic;
+  }
+
+  /** Pearson correlation between cophenetic heights and the original dissimilarities. */
+  copheneticCorrelation(): number {
+    return this.dissimilarity ? this.tree.copheneticCorrelation(this.dissimilarity) : this.tree.copheneticCorrelation();
+  }
+
+  /** Cut into exactly k segments, or at a height; the result works like any other segmentation. */
+  cut(spec: CutSpec): Segmentation {
+    const assignment = this.tree.cut(spec);
+    let k = 0;
+    for (let i = 0; i < assignment.length; i++) if (assignment[i] + 1 > k) k = assignment[i] + 1;
+    const centers = segmentMeans(this.data.matrix, assignment, k);
+    return new Segmentation({
+      method: 'hierarchy',
+      options: { ...this.options, ...spec, k },
+      assignment,
+      centers,
+      fit: this.tree,
+      objective: { name: 'cutHeight', value: cutHeight(this.tree, k) },
+      data: this.data,
+      dissimilarity: this.dissimilarity,
+    });
+  }
+
+  /** The dendrogram, coloured by a cut when `k` or `height` is given, leaves labelled by id. */
+  dendrogram(options: { k?: number; height?: number; orientation?: 'upright' | 'lying'; title?: string } = {}): View {
+    const opts = checkOptions(options, ['k', 'height', 'orientation', 'title'], 'dendrogram');
+    const t = this.tree;
+    const drawn = { kind: t.kind, size: t.size, method: t.method, merges: t.merges, order: t.order, labels: this.data.ids, cut: (c: CutSpec) => t.cut(c) };
+    return dendrogramView(drawn, opts);
+  }
+
+  /** The dissimilarity matrix as a heatmap, rows in dendrogram order. */
+  heatmap(options: { title?: string } = {}): View {
+    const opts = checkOptions(options, ['title'], 'heatmap');
+    const n = this.data.ids.length;
+    if (n > HEATMAP_MAX_ROWS) {
+      throw new KinsortError(
+        `heatmap: ${n} rows are too many to draw as ${n}² cells (at most ${HEATMAP_MAX_ROWS}); use the projection or the dendrogram, or a hierarchy of a sample.`,
+        'too-large',
+      );
+    }
+    const d = this.dissimilarity ?? dissimilarity(this.data.matrix, { metric: (this.options.metric as 'euclidean') ?? 'euclidean' });
+    return heatmapView(d, { order: this.tree.order, labels: this.data.ids, title: opts.title });
+  }
+}
+
+/** The height between the (n−k)-th and the next merge: where a k-segment cut sits. */
+function cutHeight(tree: Tree, k: number): number {
+  const n = tree.size;
+  if (k >= n) return 0;
+  return tree.merges[n - k - 1].height;
+}

@@ -1,0 +1,7 @@
+// The fluent layer: study → prepare → segmentations and hierarchies that draw themselves.
+export { study, Study, PreparedStudy } from './study';
+export type { StudyRoles, StudyPrepareOptions } from './study';
+export { Segmentation } from './segmentation';
+export type { SegmentName, SegmentationParts } from './segmentation';
+export { Hierarchy } from './hierarchy';
+export type { Showable } from './showable';

@@ -1,0 +1,180 @@
+// The fluent entry: study(table, roles).prepare(options) gives a prepared study whose calls each
+// return a result that draws itself. Every call here is thin sugar over a functional twin.
+import { KinsortError } from '../core/errors';
+import { checkOptions } from '../core/options';
+import type { ProgressCallback } from '../core/progress';
+import { readTable, type Table } from '../table';
+import { isTable } from '../table/types';
+import { prepareTable, type PrepareOptions, type PreparedData } from '../prepare';
+import { dissimilarity, type DissimilarityOptions } from '../measure/dissimilarity';
+import type { Dissimilarity } from '../measure/condensed';
+import { kmeans, kmedoids, type KmeansOptions } from '../methods/partition';
+import { agglomerate, type LinkageMethod } from '../methods/hierarchy';
+import { project, type Projection } from '../methods/project';
+import { compareK, type CompareKOptions, type CompareKResult } from '../assess/compare-k';
+import { kEvidenceView, screeView } from '../views';
+import { insideNotebookKernel, progressDisplay } from '../notebook';
+import { showable, type Showable } from './showable';
+import { Segmentation } from './segmentation';
+import { Hierarchy } from './hierarchy';
+import { rowsAt } from './centres';
+
+/** Which columns play which part. */
+export interface StudyRoles {
+  /** Column of unique row ids. */
+  id?: string;
+  /** Feature columns used for fitting (default: every column but id and keep). */
+  use?: readonly string[];
+  /** Profile-only columns, kept to describe segments. */
+  keep?: readonly string[];
+  /** Override the inferred type of a column. */
+  types?: PrepareOptions['types'];
+  /** Level order of ordinal columns, lowest first. */
+  ordinalLevels?: PrepareOptions['ordinalLevels'];
+}
+
+export type StudyPrepareOptions = Pick<PrepareOptions, 'scale' | 'log' | 'weights' | 'missing'>;
+
+const ROLE_NAMES = ['id', 'use', 'keep', 'types', 'ordinalLevels'];
+const PREPARE_NAMES = ['scale', 'log', 'weights', 'missing'];
+
+/** Start a study of a table: records, column object, CSV text, dataframe-like object or number[][]. */
+export function study(input: unknown, roles: StudyRoles = {}): Study {
+  checkOptions(roles, ROLE_NAMES, 'study');
+  const table = isTable(input) ? input : readTable(input);
+  return new Study(table, { ...roles });
+}
+
+export class Study {
+  constructor(readonly table: Table, readonly roles: StudyRoles) {}
+
+  /** Column names with their inferred types and how many values are missing. */
+  columns(): { name: string; type: string; missing: number }[] {
+    return this.table.columns.map((c) => ({
+      name: c.name,
+      type: c.inferred,
+      missing: c.values.reduce<number>((n, v) => n + (v === null ? 1 : 0), 0),
+    }));
+  }
+
+  /** Fit the preparation (scaling, one-hot, missing-value policy) and apply it. */
+  prepare(options: StudyPrepareOptions = {}): PreparedStudy {
+    checkOptions(options, PREPARE_NAMES, 'prepare');
+    const data = prepareTable(this.table, { ...this.roles, ...options } as PrepareOptions);
+    return new PreparedStudy(data);
+  }
+}
+
+/** Progress shown in place inside the notebook kernel, unless the caller gave its own callback. */
+function progressFor(given: ProgressCallback | undefined, title: string): ProgressCallback | undefined {
+  if (given) return given;
+  return insideNotebookKernel() ? progressDisplay(title) : undefined;
+}
+
+export class PreparedStudy {
+  private readonly dissimilarities = new Map<string, Dissimilarity>();
+  private projection?: Projection;
+
+  constructor(readonly data: PreparedData) {}
+
+  get ids(): readonly string[] {
+    return this.data.ids;
+  }
+
+  get report(): PreparedData['report'] {
+    return this.data.report;
+  }
+
+  get preparation(): PreparedData['preparation'] {
+    return this.data.preparation;
+  }
+
+  get featureNames(): readonly string[] {
+    return this.data.featureNames;
+  }
+
+  /** Pairwise dissimilarities of the prepared rows ('gower' works on the unscaled mixed columns). */
+  dissimilarity(options: DissimilarityOptions = {}): Dissimilarity {
+    const opts = checkOptions(options, ['metric', 'p', 'weights'], 'dissimilarity');
+    const metric = opts.metric ?? 'euclidean';
+    const key = opts.weights === undefined ? `${metric}:${opts.p ?? ''}` : '';
+    const cached = key ? this.dissimilarities.get(key) : undefined;
+    if (cached) return cached;
+    const input = metric === 'gower' ? { ...this.data.mixed, rowLabels: this.data.ids } : this.data.matrix;
+    const d = dissimilarity(input, opts);
+    if (key) this.dissimilarities.set(key, d);
+    return d;
+  }
+
+  /** The evidence for how many segments: every criterion over a range of k, with a recommendation. */
+  compareK(options: CompareKOptions = {}): CompareKResult & Showable {
+    const onProgress = progressFor(options.onProgress, 'Comparing k');
+    const result = compareK(this.data.matrix, { ...options, onProgress });
+    return showable(result, () => kEvidenceView(result));
+  }
+
+  /** k-means on the prepared rows. */
+  kmeans(options: KmeansOptions): Segmentation {
+    const onProgress = progressFor(options?.onProgress, 'k-means restarts');
+    const fit = kmeans(this.data.matrix, { ...options, onProgress });
+    return new Segmentation({
+      method: 'kmeans',
+      options: { k: fit.k, seed: options.seed ?? 0, restarts: options.restarts ?? 10, ...pick(options, ['maxIterations', 'tolerance']) },
+      assignment: fit.assignment,
+      centers: fit.centers,
+      fit,
+      objective: { name: 'withinSS', value: fit.withinSS },
+      data: this.data,
+    });
+  }
+
+  /** k-medoids (PAM) on the prepared rows, or on Gower dissimilarities of the mixed columns. */
+  kmedoids(options: { k: number; metric?: DissimilarityOptions['metric']; seed?: number; onProgress?: ProgressCallback }): Segmentation {
+    const opts = checkOptions(options, ['k', 'metric', 'seed', 'onProgress'], 'kmedoids');
+    const metric = opts.metric ?? 'euclidean';
+    const d = this.dissimilarity({ metric });
+    const fit = kmedoids(d, { k: opts.k, seed: opts.seed, onProgress: progressFor(opts.onProgress, 'k-medoids') });
+    return new Segmentation({
+      method: 'kmedoids',
+      options: { k: fit.k, metric, seed: opts.seed ?? 0 },
+      assignment: fit.assignment,
+      centers: rowsAt(this.data.matrix, fit.medoids),
+      medoids: [...fit.medoids],
+      fit,
+      objective: { name: 'cost', value: fit.cost },
+      data: this.data,
+      dissimilarity: d,
+    });
+  }
+
+  /** An agglomerative hierarchy of the prepared rows (Ward, average, complete, single, …). */
+  agglomerate(options: { method: LinkageMethod; metric?: DissimilarityOptions['metric'] }): Hierarchy {
+    const opts = checkOptions(options, ['method', 'metric'], 'agglomerate');
+    if (!opts.method) {
+      throw new KinsortError('agglomerate: give a linkage method, e.g. { method: "ward" }.', 'bad-option');
+    }
+    const metric = opts.metric ?? 'euclidean';
+    const vectors = metric === 'euclidean' && ['ward', 'centroid', 'median'].includes(opts.method);
+    const used = vectors ? undefined : this.dissimilarity({ metric });
+    const tree = agglomerate(used ?? this.data.matrix, { method: opts.method });
+    return new Hierarchy(tree, this.data, { linkage: opts.method, metric }, used);
+  }
+
+  /** Principal components of the prepared rows; `.show()` draws the scree. */
+  project(options: { components?: number } = {}): Projection & Showable {
+    const opts = checkOptions(options, ['components'], 'project');
+    const components = opts.components ?? Math.min(this.data.matrix.cols, 10);
+    const p = project(this.data.matrix, { components });
+    if (components === 2) this.projection = p;
+    return showable(p, () => screeView(p));
+  }
+}
+
+function pick(source: object, keys: readonly string[]): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const key of keys) {
+    const v = (source as Record<string, unknown>)[key];
+    if (v !== undefined) out[key] = v;
+  }
+  return out;
+}
