@@ -5,13 +5,13 @@
 
 export const SEGMENT_COLOURS: readonly string[] = [
   '#1a6699', // 1 harbour blue
-  '#e6801a', // 2 amber
-  '#33cce6', // 3 sky
-  '#99331a', // 4 brick
-  '#cc8099', // 5 rose
+  '#e6991a', // 2 marigold
+  '#993333', // 3 brick
+  '#33cce6', // 4 sky
+  '#e63366', // 5 raspberry
   '#8080e6', // 6 periwinkle
-  '#1a8066', // 7 pine
-  '#e6b380', // 8 sand
+  '#1a9980', // 7 jade
+  '#99cc80', // 8 sage
 ];
 
 /** Neutral ink and paper shared by every view. */
@@ -24,7 +24,7 @@ export const INK = {
   panel: '#f6f7f9',
   accent: '#b8324a', // marks a recommendation or a cut line
   above: '#1a6699', // bars above the whole
-  below: '#e6801a', // bars below the whole
+  below: '#d9822b', // bars below the whole
 } as const;
 
 /** Colour of segment `s` (0-based). Past eight segments the colours repeat; numbers tell them apart. */

@@ -16,7 +16,8 @@ export const VIEW_CSS = `
 .kinsort-view .ks-cards{display:grid;grid-template-columns:repeat(auto-fill,minmax(290px,1fr));gap:12px}
 .kinsort-view .ks-card{border:1px solid ${INK.grid};border-radius:9px;padding:10px 12px;background:${INK.paper};border-top-width:5px}
 .kinsort-view .ks-card header{display:flex;gap:8px;align-items:center;margin-bottom:4px}
-.kinsort-view .ks-card h4{margin:0;font-size:14.5px;font-weight:650}
+.kinsort-view .ks-card h4{margin:0;font-size:14.5px;font-weight:650;overflow-wrap:anywhere}
+.kinsort-view .ks-card{overflow-wrap:anywhere}
 .kinsort-view .ks-card .ks-size{font-size:12.5px;color:${INK.muted};margin:0 0 6px}
 .kinsort-view .ks-card .ks-text{font-size:13px;margin:4px 0 8px;line-height:1.4}
 .kinsort-view .ks-card h5{margin:8px 0 3px;font-size:11.5px;text-transform:uppercase;letter-spacing:.06em;color:${INK.muted};font-weight:600}

@@ -48,6 +48,7 @@ export function linearScale(domain: readonly [number, number], range: readonly [
 /** Round tick values (1, 2, 5 × 10^k steps) covering [min, max]. */
 export function niceTicks(min: number, max: number, count = 5): number[] {
   if (!Number.isFinite(min) || !Number.isFinite(max)) return [];
+  if (min > max) [min, max] = [max, min];
   if (min === max) return [min];
   const raw = (max - min) / Math.max(1, count);
   const power = 10 ** Math.floor(Math.log10(raw));

@@ -1,0 +1,157 @@
+// Ordered dissimilarity heatmap: rows and columns in dendrogram order, so segments show as dark
+// blocks on the diagonal. Refused above a size a page can draw.
+import { checkOptions } from '../core/options';
+import { axisStyle, baseLayout, kindOf, plotText, refuse } from './common';
+import { INK } from './palette';
+import { encodePng } from './png';
+import { frame, svgDocument, svgEl } from './svg';
+import { makeView, View } from './view';
+
+export interface DissimilarityLike {
+  readonly size: number;
+  readonly condensed: ArrayLike<number>;
+  readonly labels?: readonly string[];
+  get(i: number, j: number): number;
+}
+
+export interface HeatmapOptions {
+  /** Row order: a permutation of 0..n-1, or a tree (its leaf order is used). */
+  order?: readonly number[] | { readonly order: readonly number[] };
+  labels?: readonly string[];
+  title?: string;
+}
+
+/** Above this many rows the view is refused: n² cells no longer fit a page. */
+export const HEATMAP_MAX_ROWS = 1500;
+/** Above this many rows the live chart is left out (its data would weigh megabytes); the image stays. */
+const LIVE_MAX_ROWS = 600;
+
+// Our sequential ramp: dark (alike) to pale (different); lightness rises steadily, so it reads in grey too.
+const RAMP = ['#0f2a3f', '#1a4f6e', '#2f7f8f', '#6aae9a', '#b9d7a8', '#f4f1de'];
+
+function rampColour(t: number): [number, number, number] {
+  const x = Math.min(1, Math.max(0, t)) * (RAMP.length - 1);
+  const i = Math.min(RAMP.length - 2, Math.floor(x));
+  const f = x - i;
+  const a = parseInt(RAMP[i].slice(1), 16);
+  const b = parseInt(RAMP[i + 1].slice(1), 16);
+  const mix = (shift: number): number => Math.round(((a >> shift) & 255) * (1 - f) + ((b >> shift) & 255) * f);
+  return [mix(16), mix(8), mix(0)];
+}
+
+export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOptions = {}): View {
+  const where = 'heatmapView';
+  const opts = checkOptions(options, ['order', 'labels', 'title'], where);
+  const d = dissimilarity;
+  if (!d || typeof d.size !== 'number' || typeof d.get !== 'function') {
+    refuse(where, `needs a dissimilarity from dissimilarity(rows, { metric }), but got ${kindOf(d)}.`);
+  }
+  const n = d.size;
+  if (n > HEATMAP_MAX_ROWS) {
+    refuse(
+      where,
+      `${n.toLocaleString('en-US')} rows is more than the ${HEATMAP_MAX_ROWS.toLocaleString('en-US')} a heatmap can draw legibly ` +
+        `(${(n * n).toLocaleString('en-US')} cells). Draw it for a sample of the rows, or look at the segments with projectionView instead.`,
+    );
+  }
+  const order = opts.order === undefined ? Array.from({ length: n }, (_, i) => i) : Array.isArray(opts.order) ? opts.order : (opts.order as { order: readonly number[] }).order;
+  if (order.length !== n || new Set(order).size !== n || order.some((i) => !Number.isInteger(i) || i < 0 || i >= n)) {
+    refuse(where, `the order must list each of the ${n} rows once (0-based row numbers, or a tree's order).`);
+  }
+  const labels = (opts.labels ?? d.labels ?? Array.from({ length: n }, (_, i) => `row ${i + 1}`)).map(String);
+  if (labels.length !== n) refuse(where, `${labels.length} labels for ${n} rows.`);
+  let max = 0;
+  for (let t = 0; t < d.condensed.length; t++) if (d.condensed[t] > max) max = d.condensed[t];
+  max = max || 1;
+  const title = opts.title ?? `Dissimilarities between ${n} rows, in ${opts.order ? 'dendrogram' : 'input'} order`;
+  const caption =
+    'Each cell is the dissimilarity of two rows: dark is alike, pale is different. With rows in dendrogram order, ' +
+    'segments show as dark squares along the diagonal.';
+
+  const rgb = new Uint8Array(n * n * 3);
+  for (let a = 0; a < n; a++) {
+    for (let b = 0; b < n; b++) {
+      const [r, g, bl] = rampColour(d.get(order[a], order[b]) / max);
+      const p = (a * n + b) * 3;
+      rgb[p] = r;
+      rgb[p + 1] = g;
+      rgb[p + 2] = bl;
+    }
+  }
+  const png = encodePng(n, n, rgb).toString('base64');
+  const side = 560;
+  const showLabels = n <= 60;
+  const room = showLabels ? 12 + Math.min(20, Math.max(...labels.map((l) => l.length))) * 6 : 20;
+  const width = side + room + 110;
+  const height = side + room + 20;
+  const f = frame({
+    width,
+    height,
+    margin: { left: room, right: 110, top: 10, bottom: room + 10 },
+    x: { domain: [-0.5, n - 0.5], title: '', ticks: [], tickLabels: [] },
+    y: { domain: [-0.5, n - 0.5], title: '', ticks: [], tickLabels: [], reversed: true },
+  });
+  const body = [
+    `<image x="${f.left}" y="${f.top}" width="${f.right - f.left}" height="${f.bottom - f.top}" preserveAspectRatio="none" ` +
+      `style="image-rendering:pixelated" href="data:image/png;base64,${png}"/>`,
+  ];
+  if (showLabels) {
+    order.forEach((row, i) => {
+      const text = labels[row].slice(0, 20);
+      body.push(svgEl.text(text, { x: f.left - 4, y: f.y(i) + 3.5, 'text-anchor': 'end', 'font-size': 10, fill: INK.text }));
+      const x = f.x(i);
+      body.push(svgEl.text(text, { x, y: f.bottom + 6, 'text-anchor': 'end', 'font-size': 10, fill: INK.text, transform: `rotate(-60 ${x.toFixed(1)} ${(f.bottom + 6).toFixed(1)})` }));
+    });
+  }
+  // Colour key.
+  const kx = f.right + 30;
+  for (let t = 0; t < 40; t++) {
+    const [r, g, b] = rampColour(t / 39);
+    body.push(svgEl.rect({ x: kx, y: f.top + (t * (f.bottom - f.top)) / 40, width: 16, height: (f.bottom - f.top) / 40 + 0.5, fill: `rgb(${r},${g},${b})` }));
+  }
+  body.push(svgEl.text('0 (alike)', { x: kx + 20, y: f.top + 9, 'font-size': 10.5, fill: INK.text }));
+  body.push(svgEl.text(`${Number(max.toPrecision(3))}`, { x: kx + 20, y: f.bottom - 2, 'font-size': 10.5, fill: INK.text }));
+  body.push(svgEl.text('dissimilarity', { x: kx - 4, y: f.top - 2 + (f.bottom - f.top) / 2, 'font-size': 11, fill: INK.muted, transform: `rotate(-90 ${kx - 4} ${f.top + (f.bottom - f.top) / 2})`, 'text-anchor': 'middle' }));
+  const still = svgDocument(width, height, title, body);
+
+  if (n > LIVE_MAX_ROWS) {
+    return makeView({ kind: 'heatmap', title, caption, still, notes: [`${n} rows: shown as a still image (an interactive chart would weigh several megabytes).`] });
+  }
+  const z: number[][] = [];
+  for (let a = 0; a < n; a++) {
+    const line: number[] = new Array(n);
+    for (let b = 0; b < n; b++) line[b] = Number(d.get(order[a], order[b]).toPrecision(4));
+    z.push(line);
+  }
+  const names = order.map((r) => plotText(labels[r]));
+  const data = [
+    {
+      type: 'heatmap',
+      z,
+      x: order.map((_, i) => i),
+      y: order.map((_, i) => i),
+      text: order.map((ra) => order.map((rb) => `${plotText(labels[ra])} – ${plotText(labels[rb])}`)),
+      hovertemplate: '%{text}<br>dissimilarity %{z}<extra></extra>',
+      colorscale: RAMP.map((c, i) => [i / (RAMP.length - 1), c]),
+      zmin: 0,
+      zmax: max,
+      colorbar: { title: { text: 'dissimilarity', side: 'right' }, thickness: 14 },
+    },
+  ];
+  const axis = (extra: object) =>
+    axisStyle('', {
+      tickmode: 'array',
+      tickvals: showLabels ? order.map((_, i) => i) : [],
+      ticktext: showLabels ? names : [],
+      showgrid: false,
+      zeroline: false,
+      tickfont: { size: 10 },
+      ...extra,
+    });
+  const layout = baseLayout(640, {
+    xaxis: axis({ scaleanchor: 'y', constrain: 'domain' }),
+    yaxis: axis({ autorange: 'reversed', constrain: 'domain' }),
+    plot_bgcolor: '#ffffff',
+  });
+  return makeView({ kind: 'heatmap', title, caption, still, plot: { data, layout } });
+}
