@@ -62,15 +62,37 @@ function featureNamesOf(preparation: object, matrix: Matrix): string[] {
   return Array.from({ length: matrix.cols }, (_, j) => `feature ${j + 1}`);
 }
 
+/** Evidence may hold NaN (e.g. an undefined index); the file stores such values as null. */
+function finiteOrNull(value: unknown): unknown {
+  if (typeof value === 'number') return Number.isFinite(value) ? value : null;
+  if (ArrayBuffer.isView(value)) value = Array.from(value as unknown as ArrayLike<number>);
+  if (Array.isArray(value)) return value.map(finiteOrNull);
+  if (value !== null && typeof value === 'object') {
+    return Object.fromEntries(Object.entries(value).map(([k, v]) => [k, finiteOrNull(v)]));
+  }
+  return value;
+}
+
 export function buildDefinition(input: BuildDefinitionInput): SegmentDefinition {
-  checkOptions(input, INPUT_KEYS, 'buildDefinition');
   const where = 'buildDefinition';
+  checkOptions(input, INPUT_KEYS, where);
   if (input.preparation === null || typeof input.preparation !== 'object') {
     throw new KinsortError(`${where}: "preparation" must be the Preparation object from prepareTable.`, 'bad-argument');
   }
   const methodName = checkChoice(input.method?.name, DEFINITION_METHODS, 'method');
-  const metric = checkChoice(input.metric ?? 'euclidean', DEFINITION_METRICS, 'assignment metric');
   const rule = checkChoice(input.rule ?? (methodName === 'kmedoids' ? 'nearest-medoid' : 'nearest-center'), ASSIGNMENT_RULES, 'assignment rule');
+  // Medoids are compared under the metric they were chosen with; centres (k-means, a hierarchy
+  // cut) always under Euclidean distance in the prepared space.
+  const optionMetric = (input.method?.options as { metric?: unknown } | undefined)?.metric;
+  const wanted = input.metric ?? (rule === 'nearest-medoid' && optionMetric !== undefined ? optionMetric : 'euclidean');
+  if (typeof wanted === 'string' && !(DEFINITION_METRICS as readonly string[]).includes(wanted) && input.metric === undefined) {
+    throw new KinsortError(
+      `${where}: the segments were found with the "${wanted}" metric, but a definition assigns new rows (and writes SQL) ` +
+        `with ${DEFINITION_METRICS.join(', ')} only. Refit k-medoids with one of those to hand the segments on.`,
+      'not-supported',
+    );
+  }
+  const metric = checkChoice(wanted, DEFINITION_METRICS, 'assignment metric');
 
   const matrix = toMatrix(input.training?.matrix as Matrix, { what: `${where}: training rows` });
   const ids = input.training.ids;
@@ -157,6 +179,6 @@ export function buildDefinition(input: BuildDefinitionInput): SegmentDefinition 
     features,
     segments,
     training: { rows: matrix.rows, fingerprint: fingerprintRows(ids.map(String), matrix) },
-    evidence: input.evidence === undefined ? undefined : (sortedKeys(input.evidence) as { [key: string]: JsonValue }),
+    evidence: input.evidence === undefined ? undefined : (sortedKeys(finiteOrNull(input.evidence)) as { [key: string]: JsonValue }),
   };
 }

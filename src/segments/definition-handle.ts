@@ -56,7 +56,7 @@ export function definitionHandle(definition: SegmentDefinition): DefinitionHandl
  */
 export function loadDefinition(source: string | object): DefinitionHandle {
   if (typeof source === 'string') {
-    if (looksLikeJsonText(source)) return definitionHandle(readDefinition(source));
+    if (looksLikeJsonText(source) || source.trim() === '') return definitionHandle(readDefinition(source));
     let text: string;
     try {
       text = readFileSync(source, 'utf8');

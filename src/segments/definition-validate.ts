@@ -12,6 +12,7 @@ import {
   SegmentDefinition,
 } from './definition-types';
 import { kinsortVersion } from './definition-version';
+import { checkStoredPreparation } from './definition-validate-preparation';
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');
@@ -67,6 +68,7 @@ function numbers(v: unknown, length: number, where: string): number[] {
 export function readDefinition(source: string | object, where = 'loadDefinition'): SegmentDefinition {
   let raw: unknown = source;
   if (typeof source === 'string') {
+    if (source.trim() === '') fail(where, 'the text is empty; expected a definition (JSON).');
     try {
       raw = JSON.parse(source.charCodeAt(0) === 0xfeff ? source.slice(1) : source);
     } catch (e) {
@@ -101,6 +103,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   });
   const dims = features.length;
   if (dims === 0) fail(where, 'key "features" is empty; a definition needs at least one prepared feature.');
+  checkStoredPreparation(preparation, features as string[], where);
   const segmentsRaw: unknown[] = need(d, 'segments', 'array', where);
   if (segmentsRaw.length === 0) fail(where, 'key "segments" is empty; a definition needs at least one segment.');
   const segments: DefinitionSegment[] = segmentsRaw.map((s, c) => {

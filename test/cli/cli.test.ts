@@ -57,6 +57,8 @@ describe('kinsort fit', () => {
     const fit = kmeans(prepared.matrix, { k: 4, seed: 9, restarts: 3 });
     const def = loadDefinition(join(dir, 'a.json')).definition;
     expect(def.segments.map((s) => s.center)).toEqual(fit.centers);
+    // The package version is read from package.json by the built code in dist/ too.
+    expect(def.writtenBy).toBe(`kinsort ${JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')).version}`);
     expect(a.stdout).toContain(`sizes: ${fit.sizes.map((s, c) => `${c + 1}: ${s}`).join(', ')}`);
     expect(a.stdout).toContain(`within-segment sum of squares: ${Number(fit.withinSS.toPrecision(6))}`);
   });

@@ -6,7 +6,8 @@ import { join } from 'path';
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { prepareTable } from '../../src/prepare';
-import { kmeans } from '../../src/methods/partition';
+import { kmeans, kmedoids } from '../../src/methods/partition';
+import { KinsortError } from '../../src/core/errors';
 import { agglomerate } from '../../src/methods/hierarchy';
 import { buildDefinition, loadDefinition, writeDefinitionJson, DEFINITION_FORMAT_VERSION } from '../../src/segments/definition-exports';
 import { readDefinition } from '../../src/segments/definition-validate';
@@ -196,6 +197,38 @@ describe('a definition with medoids', () => {
   });
 });
 
+describe('a definition from k-medoids (PAM)', () => {
+  it('takes the metric from the method options and reproduces the PAM assignment on the training rows', () => {
+    const records = riders(90, 17);
+    const prepared = prepareTable(records, { id: 'rider', use: ['trips', 'peak', 'tenure'] });
+    const fit = kmedoids(prepared.matrix, { k: 4, metric: 'manhattan' });
+    const definition = buildDefinition({
+      preparation: prepared.preparation,
+      method: { name: 'kmedoids', options: { k: 4, metric: 'manhattan' } },
+      medoids: fit.medoids,
+      training: { ids: prepared.ids, matrix: prepared.matrix, assignment: fit.assignment },
+    });
+    expect(definition.metric).toBe('manhattan');
+    const outcome = loadDefinition(definition).assign(records);
+    expect(outcome.rows.map((r) => r.segment)).toEqual(Array.from(fit.assignment, (s) => s + 1));
+    const total = outcome.rows.reduce((sum, r) => sum + r.distance!, 0);
+    expect(total).toBeCloseTo(fit.cost, 9);
+  });
+
+  it('refuses a metric it cannot assign with, saying which ones it can', () => {
+    const prepared = prepareTable(riders(30, 3), { id: 'rider', use: ['trips', 'peak'] });
+    const fit = kmeans(prepared.matrix, { k: 2, seed: 1 });
+    expect(() =>
+      buildDefinition({
+        preparation: prepared.preparation,
+        method: { name: 'kmedoids', options: { metric: 'gower' } },
+        medoids: [0, 1],
+        training: { ids: prepared.ids, matrix: prepared.matrix, assignment: fit.assignment },
+      }),
+    ).toThrow(/"gower" metric.*euclidean, sqeuclidean, manhattan only/);
+  });
+});
+
 describe('loading a damaged or newer definition', () => {
   const text = writeDefinitionJson(fitKmeans().definition);
   const edit = (change: (d: any) => void) => {
@@ -236,7 +269,58 @@ describe('loading a damaged or newer definition', () => {
   });
 });
 
+describe('the loader under generated damage (fuzz, bounded)', () => {
+  it('either loads or throws a KinsortError naming the problem; never anything else', () => {
+    const text = writeDefinitionJson(fitKmeans().definition);
+    const base = JSON.parse(text);
+    const paths: (string | number)[][] = [];
+    const walk = (v: unknown, path: (string | number)[]) => {
+      paths.push(path);
+      if (v && typeof v === 'object') for (const [k, c] of Object.entries(v)) walk(c, [...path, Array.isArray(v) ? Number(k) : k]);
+    };
+    walk(base, []);
+    const sample = riders(8, 2);
+    const junk = fc.oneof(fc.constant(undefined), fc.constant(null), fc.double(), fc.string(), fc.integer(), fc.constant([]), fc.constant({}), fc.boolean());
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: paths.length - 1 }), junk, fc.integer({ min: 0, max: text.length }), (p, value, cut) => {
+        const d = JSON.parse(text);
+        const path = paths[p];
+        let parent = d;
+        for (const key of path.slice(0, -1)) parent = parent[key];
+        const last = path[path.length - 1];
+        if (value === undefined) delete parent[last];
+        else parent[last] = value;
+        for (const source of [JSON.stringify(d), text.slice(0, cut)]) {
+          try {
+            const handle = loadDefinition(source);
+            // What loads must also assign and write SQL (or refuse clearly).
+            handle.assign(sample);
+            handle.toSql({ table: 't' });
+          } catch (e) {
+            expect(e).toBeInstanceOf(KinsortError);
+            if ((e as KinsortError).code !== 'bad-definition') expect((e as Error).message).toMatch(/definition|row|column|level/);
+          }
+        }
+      }),
+      { numRuns: 300 },
+    );
+  });
+});
+
 describe('the writer', () => {
+  it('stores evidence with NaN as null', () => {
+    const { prepared, fit } = fitKmeans();
+    const d = buildDefinition({
+      preparation: prepared.preparation,
+      method: { name: 'kmeans' },
+      centers: fit.centers,
+      training: { ids: prepared.ids, matrix: prepared.matrix, assignment: fit.assignment },
+      evidence: { withinSS: fit.withinSS, gap: [NaN, 0.5], stability: new Float64Array([0.9, Infinity]) },
+    });
+    expect(d.evidence).toEqual({ gap: [null, 0.5], stability: [0.9, null], withinSS: fit.withinSS });
+    expect(loadDefinition(d).toJSON()).toBe(writeDefinitionJson(d));
+  });
+
   it('writes any finite numbers so that read → write is byte-identical (property)', () => {
     const base = fitKmeans().definition;
     const dims = base.features.length;
