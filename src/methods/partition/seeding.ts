@@ -36,8 +36,12 @@ export function seedPlusPlus(
 ): void {
   const { nearest, closest, secondLower } = state;
   const cumulative = new Float64Array(n);
-  const toCentres = new Float64Array(k);
-  const bestToCentres = new Float64Array(k);
+  // Per trial: distances to its candidate (−1 where the triangle inequality skipped the row),
+  // so the chosen candidate's update needs no second pass of distance evaluations.
+  const trialDistances = new Float64Array(trials * n);
+  const toCentres = new Float64Array(trials * k);
+  const candidates = new Int32Array(trials);
+  const totals = new Float64Array(trials);
 
   const first = random.int(n);
   copyRow(data, first, d, out, 0);
@@ -54,49 +58,46 @@ export function seedPlusPlus(
       cumulative[i] = running;
     }
     const potential = running;
-    let bestPotential = Infinity;
-    let bestIndex = -1;
     for (let t = 0; t < trials; t++) {
       const candidate = potential > 0 ? drawWeighted(cumulative, random.next() * potential) : random.int(n);
-      const cb = candidate * d;
-      for (let e = 0; e < c; e++) toCentres[e] = squaredDistanceRows(data, cb, out, e * d, d);
-      let total = 0;
-      for (let i = 0; i < n; i++) {
-        const own = closest[i];
-        if (toCentres[nearest[i]] >= 4 * own) {
-          total += own;
+      candidates[t] = candidate;
+      for (let e = 0; e < c; e++) toCentres[t * k + e] = squaredDistanceRows(data, candidate * d, out, e * d, d);
+      totals[t] = 0;
+    }
+    // All trials in one sweep over the rows: each row is read once.
+    for (let i = 0; i < n; i++) {
+      const own = closest[i];
+      const near = nearest[i];
+      const ib = i * d;
+      for (let t = 0; t < trials; t++) {
+        if (toCentres[t * k + near] >= 4 * own) {
+          trialDistances[t * n + i] = -1;
+          totals[t] += own;
           continue;
         }
-        const ib = i * d;
+        const cb = candidates[t] * d;
         let s = 0;
         for (let j = 0; j < d; j++) {
           const diff = data[ib + j] - data[cb + j];
           s += diff * diff;
         }
-        total += s < own ? s : own;
-      }
-      // Strictly lower: ties keep the earlier candidate.
-      if (total < bestPotential) {
-        bestPotential = total;
-        bestIndex = candidate;
-        bestToCentres.set(toCentres.subarray(0, c));
+        trialDistances[t * n + i] = s;
+        totals[t] += s < own ? s : own;
       }
     }
-    copyRow(data, bestIndex, d, out, c * d);
-    const cb = c * d;
+    // Strictly lower: ties keep the earlier candidate.
+    let bestTrial = 0;
+    for (let t = 1; t < trials; t++) if (totals[t] < totals[bestTrial]) bestTrial = t;
+    copyRow(data, candidates[bestTrial], d, out, c * d);
+    const gapBase = bestTrial * k;
+    const distBase = bestTrial * n;
     for (let i = 0; i < n; i++) {
       const own = closest[i];
-      const gap = bestToCentres[nearest[i]];
-      if (gap >= 4 * own) {
-        const bound = Math.sqrt(gap) - Math.sqrt(own);
+      const s = trialDistances[distBase + i];
+      if (s < 0) {
+        const bound = Math.sqrt(toCentres[gapBase + nearest[i]]) - Math.sqrt(own);
         if (bound < secondLower[i]) secondLower[i] = bound;
         continue;
-      }
-      const ib = i * d;
-      let s = 0;
-      for (let j = 0; j < d; j++) {
-        const diff = data[ib + j] - out[cb + j];
-        s += diff * diff;
       }
       // Strictly closer: ties keep the earlier (lower-numbered) centre.
       if (s < own) {
