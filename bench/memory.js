@@ -31,6 +31,9 @@ function runKinsortChild(distDir, set, method, timeoutMs) {
   });
 }
 
+// SciPy at n = 30,000 took 77 s on a quiet run here (7 GB peak); a loaded machine needs longer.
+const SCIPY_TIMEOUT_MS = 600_000;
+
 /** SciPy's linkage keeps the condensed matrix and a copy: about n² · 8 bytes. */
 function scipyNeedsMB(n) {
   return (n * n * 8) / 2 ** 20;
@@ -70,7 +73,7 @@ async function runMemoryCase({ kinsort, distDir, memoryCase, set, python, skipPy
       peer.note = `SciPy skipped: needs about ${need.toFixed(0)} MB, ${free.toFixed(0)} MB available`;
     } else {
       try {
-        const reply = await timePythonOnce(memoryCase.method, set, {}, { repeats: 1, budgetMs: 0, timeoutMs: 300_000 });
+        const reply = await timePythonOnce(memoryCase.method, set, {}, { repeats: 1, budgetMs: 0, timeoutMs: SCIPY_TIMEOUT_MS });
         peer = { ms: reply.times[0], peakMB: reply.peakMB };
       } catch (err) {
         peer.note = `SciPy failed: ${err.message}`;

@@ -96,11 +96,16 @@ function timePythonOnce(caseName, dataSet, params, { repeats, budgetMs, timeoutM
     const child = spawn(PYTHON, [PEER_SCRIPT, '--once', JSON.stringify(command)], { env: peerEnvironment() });
     let out = '';
     let err = '';
-    const timer = setTimeout(() => child.kill('SIGKILL'), timeoutMs);
+    let timedOut = false;
+    const timer = setTimeout(() => {
+      timedOut = true;
+      child.kill('SIGKILL');
+    }, timeoutMs);
     child.stdout.on('data', (c) => (out += c));
     child.stderr.on('data', (c) => (err = (err + c).slice(-4000)));
     child.on('exit', (code, signal) => {
       clearTimeout(timer);
+      if (timedOut) return reject(new Error(`python peer (once) stopped by the bench after ${timeoutMs / 1000} s`));
       if (code !== 0) return reject(new Error(`python peer (once) ended with ${signal ?? code}: ${err}`));
       try {
         const reply = JSON.parse(out.trim().split('\n').pop());
