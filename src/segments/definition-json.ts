@@ -48,7 +48,7 @@ export function writeDefinitionJson(value: unknown): string {
   return write(value, '', 'definition') + '\n';
 }
 
-/** A deep copy with every object's keys sorted (typed arrays become plain arrays, undefined dropped). */
+/** A deep copy with every object's keys sorted (typed arrays become plain arrays; undefined and functions dropped). */
 export function sortedKeys(value: unknown): JsonValue {
   if (isPlain(value)) return value as JsonValue;
   if (ArrayBuffer.isView(value)) return Array.from(value as unknown as ArrayLike<number>);
@@ -56,7 +56,8 @@ export function sortedKeys(value: unknown): JsonValue {
   const out: { [key: string]: JsonValue } = {};
   for (const key of Object.keys(value as object).sort()) {
     const v = (value as Record<string, unknown>)[key];
-    if (v !== undefined) out[key] = sortedKeys(v);
+    // Callbacks (e.g. a progress callback among the method's options) do not shape a result.
+    if (v !== undefined && typeof v !== 'function') out[key] = sortedKeys(v);
   }
   return out;
 }

@@ -138,7 +138,9 @@ describe('SQL text', () => {
   it('quotes identifiers and strings by doubling quotes, so hostile names cannot break out', async () => {
     expect(quoteIdentifier('a"b')).toBe('"a""b"');
     expect(quoteString("it's")).toBe("'it''s'");
-    const records = riders(60, 61).map((r) => ({ 'rider "id"': r.rider, 'trips; DROP TABLE x': r.trips, "fare'type": r.fare === 'student' ? "o'brien" : r.fare }));
+    // Unicode and very long ids travel through CSV, DuckDB and back unchanged.
+    const idOf = (id: string, i: number) => (i % 3 === 0 ? `${id}-Zürich-東京-🚇` : i % 3 === 1 ? id + 'x'.repeat(400) : id);
+    const records = riders(60, 61).map((r, i) => ({ 'rider "id"': idOf(r.rider, i), 'trips; DROP TABLE x': r.trips, "fare'type": r.fare === 'student' ? "o'brien" : r.fare }));
     const prepared = prepareTable(records, { id: 'rider "id"', use: ['trips; DROP TABLE x', "fare'type"] });
     const result = kmeans(prepared.matrix, { k: 2, seed: 1 });
     const handle = loadDefinition(
@@ -154,7 +156,30 @@ describe('SQL text', () => {
     await query(`CREATE OR REPLACE VIEW "odd table" AS SELECT * FROM read_csv(${quoteString(csv)}, header = true)`);
     const sqlRows = await query(handle.toSql({ table: 'odd table' }));
     const byId = new Map(sqlRows.map((r) => [String(r['rider "id"']), Number(r.segment)]));
-    for (const row of handle.assign(records).rows) expect(byId.get(row.id)).toBe(row.segment);
+    const assigned = handle.assign(records).rows;
+    expect(assigned.map((r) => r.id)).toEqual(records.map((r) => r['rider "id"']));
+    for (const row of assigned) expect(byId.get(row.id)).toBe(row.segment);
+  });
+
+  it('breaks ties to the lower segment number, as assign does', async () => {
+    const records = riders(30, 91);
+    const prepared = prepareTable(records, { id: 'rider', use: ['trips', 'peak'] });
+    const d = prepared.matrix.cols;
+    const far = Array.from({ length: d }, () => 50);
+    const twin = Array.from({ length: d }, () => 0);
+    const handle = loadDefinition(
+      buildDefinition({
+        preparation: prepared.preparation,
+        method: { name: 'kmeans' },
+        centers: [far, twin, twin.slice()],
+        training: { ids: prepared.ids, matrix: prepared.matrix, assignment: prepared.ids.map((_, i) => i % 3) },
+      }),
+    );
+    const outcome = handle.assign(records);
+    expect(outcome.rows.every((r) => r.segment === 2)).toBe(true);
+    const [csvView] = await stage('ties', records);
+    const sqlRows = await query(handle.toSql({ table: csvView }));
+    expect(sqlRows.every((r) => Number(r.segment) === 2)).toBe(true);
   });
 
   it('writes doubles as approximate literals that read back to the same double', async () => {
