@@ -5,6 +5,9 @@
 // matrix version (predecessor kept on ties, otherwise the smallest index; x < y keeps name y).
 import { RawMerges, createRawMerges } from './merges';
 
+/** Relative slack for abandoning a candidate on a partial sum (far above rounding error). */
+const ABANDON_MARGIN = 1 + 1e-9;
+
 /** `centroids` (n × dims, row-major) is overwritten. */
 export function wardFromVectors(n: number, dims: number, centroids: Float64Array): RawMerges {
   const raw = createRawMerges(n);
@@ -14,6 +17,7 @@ export function wardFromVectors(n: number, dims: number, centroids: Float64Array
   let count = n;
   const chain = new Int32Array(n);
   let chainLength = 0;
+  const half = dims >> 1;
 
   // Half the squared Ward dissimilarity: |A||B|/(|A|+|B|) · ‖cA − cB‖².
   const ward = (x: number, i: number): number => {
@@ -49,12 +53,21 @@ export function wardFromVectors(n: number, dims: number, centroids: Float64Array
         const i = active[p];
         if (i === x) continue;
         const io = i * dims;
+        const ni = size[i];
+        // Early abandon: after half the coordinates the partial sum already rules most
+        // candidates out. The margin keeps rounding from dropping an exact tie; the decision
+        // itself uses the same formula as \`ward\`, so equal values compare equal.
         let s = 0;
-        for (let t = 0; t < dims; t++) {
+        let t = 0;
+        for (; t < half; t++) {
           const diff = centroids[xo + t] - centroids[io + t];
           s += diff * diff;
         }
-        const ni = size[i];
+        if (s * nx * ni > current * (nx + ni) * ABANDON_MARGIN) continue;
+        for (; t < dims; t++) {
+          const diff = centroids[xo + t] - centroids[io + t];
+          s += diff * diff;
+        }
         const d = ((nx * ni) / (nx + ni)) * s;
         if (d < current) {
           current = d;
