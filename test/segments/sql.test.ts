@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DuckDBConnection, DuckDBInstance } from '@duckdb/node-api';
 import { prepareTable } from '../../src/prepare';
 import type { PrepareOptions } from '../../src/prepare';
-import { kmeans } from '../../src/methods/partition';
+import { kmeans, kmedoids } from '../../src/methods/partition';
 import { buildDefinition, loadDefinition } from '../../src/segments/definition-exports';
 import type { DefinitionHandle } from '../../src/segments/definition-exports';
 import { doubleLiteral, quoteIdentifier, quoteString } from '../../src/segments/sql-text';
@@ -130,6 +130,28 @@ describe('toSql in DuckDB (CSV and Parquet) equals assign on every row', () => {
     for (const scale of ['robust', 'minmax', 'none'] as const) {
       const handle = fit(training, { ...MIXED, scale }, 3);
       await expectSameAsAssign(handle, await stage(`new_${scale}`, fresh), fresh);
+    }
+  });
+});
+
+describe('toSql for medoids under other metrics, in DuckDB', () => {
+  it('manhattan and squared Euclidean k-medoids give the same segments, distances and far flags as assign', async () => {
+    const training = riders(120, 95);
+    const fresh = awkward(riders(40, 96, 'p'));
+    const [csvView, parquetView] = await stage('medoid_new', fresh);
+    for (const metric of ['manhattan', 'sqeuclidean'] as const) {
+      const prepared = prepareTable(training, MIXED);
+      const result = kmedoids(prepared.matrix, { k: 3, metric });
+      const handle = loadDefinition(
+        buildDefinition({
+          preparation: prepared.preparation,
+          method: { name: 'kmedoids', options: { k: 3, metric } },
+          medoids: result.medoids,
+          training: { ids: prepared.ids, matrix: prepared.matrix, assignment: result.assignment },
+        }),
+      );
+      expect(handle.definition.metric).toBe(metric);
+      await expectSameAsAssign(handle, [csvView, parquetView], fresh);
     }
   });
 });
