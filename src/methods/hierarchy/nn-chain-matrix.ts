@@ -80,7 +80,10 @@ export function nnChainOnMatrix(n: number, work: Float64Array, method: Reducible
   return raw;
 }
 
-/** Lance–Williams: new dissimilarities between the merged cluster (named y) and every other. */
+/**
+ * Lance–Williams: new dissimilarities between the merged cluster (named y) and every other.
+ * The same arithmetic as SciPy's updates, so tied values stay tied the same way.
+ */
 function updateRow(
   method: ReducibleMethod,
   work: Float64Array,
@@ -96,30 +99,25 @@ function updateRow(
 ): void {
   const sx = starts[x];
   const sy = starts[y];
+  // Positions of x and y in the sorted active list.
+  let px = 0;
+  while (active[px] !== x) px++;
+  let py = px + 1;
+  while (active[py] !== y) py++;
+  const total = nx + ny;
   for (let p = 0; p < count; p++) {
+    if (p === px || p === py) continue;
     const i = active[p];
-    if (i === x || i === y) continue;
-    // x < y always.
-    const ix = i < x ? starts[i] + x : sx + i;
-    const iy = i < y ? starts[i] + y : sy + i;
+    const ix = p < px ? starts[i] + x : sx + i;
+    const iy = p < py ? starts[i] + y : sy + i;
     const dxi = work[ix];
     const dyi = work[iy];
-    let value: number;
-    switch (method) {
-      case 'complete':
-        value = dxi > dyi ? dxi : dyi;
-        break;
-      case 'average':
-        value = (nx * dxi + ny * dyi) / (nx + ny);
-        break;
-      case 'weighted':
-        value = 0.5 * (dxi + dyi);
-        break;
-      default: {
-        const ni = size[i];
-        value = ((nx + ni) * dxi + (ny + ni) * dyi - ni * dxy) / (nx + ny + ni);
-      }
+    if (method === 'complete') work[iy] = dxi > dyi ? dxi : dyi;
+    else if (method === 'average') work[iy] = (nx * dxi + ny * dyi) / total;
+    else if (method === 'weighted') work[iy] = 0.5 * (dxi + dyi);
+    else {
+      const ni = size[i];
+      work[iy] = ((nx + ni) * dxi + (ny + ni) * dyi - ni * dxy) / (nx + ny + ni);
     }
-    work[iy] = value;
   }
 }

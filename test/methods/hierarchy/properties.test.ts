@@ -47,6 +47,9 @@ function kruskalWeights(rows: number[][]): number[] {
 const sortedHeights = (rows: number[][], method: (typeof LINKAGE_METHODS)[number]) =>
   agglomerate(rows, { method }).merges.map((m) => m.height).sort((a, b) => a - b);
 
+// Generous per-test timeout: each property takes well under a second alone, but cores are shared.
+const PROPERTY_TIMEOUT_MS = 30_000;
+
 const shape = fc.record({ seed: fc.integer({ min: 0, max: 1e6 }), n: fc.integer({ min: 2, max: 25 }), d: fc.integer({ min: 1, max: 4 }) });
 
 describe('hierarchy properties', () => {
@@ -63,7 +66,7 @@ describe('hierarchy properties', () => {
       }),
       { numRuns: 60 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 
   it('single-linkage heights equal the minimum spanning tree edge weights (Kruskal), with and without ties', () => {
     fc.assert(
@@ -75,7 +78,7 @@ describe('hierarchy properties', () => {
       }),
       { numRuns: 80 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 
   it('cut({ k }) gives exactly k segments for every k in 1..n, numbered by smallest row, even with ties', () => {
     fc.assert(
@@ -90,7 +93,7 @@ describe('hierarchy properties', () => {
       }),
       { numRuns: 80 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 
   it('cut({ height }) joins two rows exactly when their cophenetic dissimilarity is at most the height (monotone trees)', () => {
     fc.assert(
@@ -107,7 +110,7 @@ describe('hierarchy properties', () => {
       }),
       { numRuns: 30 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 
   it('merges: left < right, node n+i made by merge i, sizes add up, order is a permutation with each node contiguous', () => {
     fc.assert(
@@ -127,5 +130,5 @@ describe('hierarchy properties', () => {
       }),
       { numRuns: 80 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 });
