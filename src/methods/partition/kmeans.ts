@@ -4,11 +4,10 @@ import { KinsortError } from '../../core/errors';
 import { toMatrix, type RowsInput } from '../../core/matrix';
 import { checkInteger, checkNumber, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
-import { createRandom, type Seed } from '../../random';
+import type { Seed } from '../../random';
 import { checkSegmentCount, partitionRows } from './partition-input';
-import { createWorkspace, runHamerly, withinFor } from './hamerly';
-import { centresToMeans, meanColumnVariance, partitionFigures } from './partition-summary';
-import { createSeedingState, seedPlusPlus, seedRandomRows } from './seeding';
+import { meanColumnVariance, partitionFigures } from './partition-summary';
+import { runRestarts, type RestartPlan } from './restarts';
 
 export type KmeansStart = 'k-means++' | 'random' | readonly (readonly number[])[];
 
@@ -100,42 +99,25 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   const trace = opts.trace === true;
 
   const data = m.data;
-  const absoluteTolerance = tolerance * meanColumnVariance(data, n, d);
-  const ws = createWorkspace(n, d, k);
-  const centers = new Float64Array(k * d);
-  const seeding = createSeedingState(n);
-  const root = createRandom(opts.seed ?? 0);
-
-  let best: { within: number; assignment: Int32Array; centers: Float64Array; iterations: number; converged: boolean; trace?: number[] } | undefined;
-  const restartWithinSS: number[] = [];
-  for (let r = 0; r < restarts; r++) {
-    let seeded: typeof seeding | undefined;
-    if (given) centers.set(given);
-    else if (start === 'random') seedRandomRows(data, n, d, k, root.fork(r), centers);
-    else {
-      seedPlusPlus(data, n, d, k, root.fork(r), centers, seeding);
-      seeded = seeding;
-    }
-
-    const run = runHamerly(data, centers, ws, maxIterations, absoluteTolerance, trace, seeded);
-    // Exact finish: centres to the means of their rows (sums from scratch), within-SS from them.
-    centresToMeans(data, centers, ws);
-    const within = withinFor(data, centers, ws.assignment, n, d);
-    restartWithinSS.push(within);
-    // Strictly lower: ties keep the earlier restart.
-    if (best === undefined || within < best.within) {
-      best = {
-        within,
-        assignment: ws.assignment.slice(),
-        centers: centers.slice(),
-        iterations: run.iterations,
-        converged: run.converged,
-        trace: run.trace,
-      };
-    }
-    report(opts.onProgress, { task: 'k-means restarts', done: r + 1, total: restarts, detail: `k = ${k}` });
-  }
-  const kept = best!;
+  const plan: RestartPlan = {
+    data,
+    n,
+    d,
+    k,
+    start: given ?? (start as 'k-means++' | 'random'),
+    seed: opts.seed ?? 0,
+    maxIterations,
+    tolerance: tolerance * meanColumnVariance(data, n, d),
+    trace,
+  };
+  let reported = 0;
+  const progress = (done: number) => {
+    if (done <= reported) return;
+    reported = done;
+    report(opts.onProgress, { task: 'k-means restarts', done, total: restarts, detail: `k = ${k}` });
+  };
+  const { kept, withinByRestart: restartWithinSS } = runRestarts(plan, restarts, progress);
+  progress(restarts);
   const figures = partitionFigures(data, n, d, k, kept.assignment, kept.centers);
   return {
     kind: 'kmeans',
