@@ -39,6 +39,19 @@ describe('routes agree', () => {
     }
   });
 
+  it('Ward, centroid and median from 400 clustered rows (vector routes, early abandoning) equal the matrix routes', () => {
+    const g = createRandom(404);
+    const centres = Array.from({ length: 6 }, () => Array.from({ length: 5 }, () => g.uniform(-6, 6)));
+    const many = Array.from({ length: 400 }, () => centres[g.int(6)].map((c) => c + g.normal()));
+    const d = dissimilarity(many);
+    for (const method of ['ward', 'centroid', 'median'] as const) {
+      const a = agglomerate(many, { method });
+      const b = agglomerate(d, { method });
+      expect(a.merges.map((m) => [m.left, m.right]), method).toEqual(b.merges.map((m) => [m.left, m.right]));
+      a.merges.forEach((m, i) => expect(Math.abs(m.height - b.merges[i].height)).toBeLessThanOrEqual(1e-9 * Math.max(1, m.height)));
+    }
+  });
+
   it('another metric from rows (manhattan, minkowski p = 3) equals the tree of that dissimilarity', () => {
     for (const [metric, p] of [['manhattan', undefined], ['minkowski', 3]] as const) {
       const d = dissimilarity(rows, { metric, p });
