@@ -38,6 +38,7 @@ wine_std = StandardScaler().fit_transform(wine.data)  # population standard devi
 iris = load_iris()
 out = {
     "producedBy": f"scikit-learn {sklearn.__version__} sklearn.decomposition.PCA(svd_solver='full'), numpy {np.__version__}",
+    "source": "wine recognition data (Forina et al.) and Fisher's iris (1936), both as scikit-learn ships them",
     "cases": [
         case("wine", "wine recognition data (Forina et al.), sklearn.datasets.load_wine, standardised by StandardScaler", wine_std, wine.feature_names, 3),
         case("iris", "Fisher's iris data (1936), sklearn.datasets.load_iris, raw measurements", iris.data, iris.feature_names, 2),
