@@ -13,3 +13,4 @@ export type { HeatmapOptions, DissimilarityLike } from './heatmap';
 export { profileCardsView } from './cards';
 export type { CardsOptions } from './cards';
 export { SEGMENT_COLOURS, segmentColour } from './palette';
+export { viewsPage, saveViewsPage } from './page';

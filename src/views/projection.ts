@@ -183,7 +183,6 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
       xanchor: a.ax >= 0 ? 'left' : 'right',
       yanchor: a.ay >= 0 ? 'bottom' : 'top',
       font: { size: 11, color: INK.text },
-      bgcolor: 'rgba(255,255,255,0.7)',
     },
   ]);
   const layout = baseLayout(560, {

@@ -121,7 +121,7 @@ export function silhouetteView(
     shapes: [{ type: 'line', x0: avg, x1: avg, yref: 'paper', y0: 0, y1: 1, line: { color: INK.accent, dash: 'dash', width: 1.5 } }],
     annotations: [{ x: avg, yref: 'paper', y: 1, text: `average ${avg.toFixed(2)}`, showarrow: false, xanchor: 'center', yanchor: 'bottom', font: { color: INK.accent, size: 11 } }, ...segmentNotes],
     margin: { l: 150, r: 24, t: 28, b: 56 },
-    legend: { orientation: 'h', y: -0.12, x: 0, title: { text: 'segment' } },
+    showlegend: false,
   });
   return makeView({ kind: 'silhouette', title, caption, still, plot: { data, layout } });
 }

@@ -1,0 +1,26 @@
+// Several views on one offline page (a report): the plotting bundle is inlined once for all.
+import * as fs from 'fs';
+import * as path from 'path';
+import { escapeHtml } from './escape';
+import { plottingScript } from '../notebook/plotting';
+import type { View } from './view';
+
+export function viewsPage(title: string, views: readonly View[], intro?: string): string {
+  return (
+    `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width">` +
+    `<title>${escapeHtml(title)}</title>${plottingScript()}</head>` +
+    `<body style="margin:24px auto;max-width:1020px;padding:0 16px;background:#fbfbfc;font-family:system-ui,sans-serif;color:#22262b">` +
+    `<h1 style="font-size:24px;margin:0 0 6px">${escapeHtml(title)}</h1>` +
+    (intro ? `<p style="margin:0 0 16px;color:#5d6670">${escapeHtml(intro)}</p>` : '') +
+    views.map((v) => v.fragment()).join('') +
+    `</body></html>`
+  );
+}
+
+/** Write viewsPage() to `file`; returns the absolute path. */
+export function saveViewsPage(file: string, title: string, views: readonly View[], intro?: string): string {
+  const target = path.resolve(file);
+  fs.mkdirSync(path.dirname(target), { recursive: true });
+  fs.writeFileSync(target, viewsPage(title, views, intro));
+  return target;
+}

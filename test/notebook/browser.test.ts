@@ -1,0 +1,68 @@
+// Headless Chromium (Debian package, driven by playwright-core): with scripts on, every chart is
+// redrawn by plotly and no hostile string runs; with scripts off, the SVG / HTML stand-ins show.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as fs from 'fs';
+import * as os from 'os';
+import * as path from 'path';
+import { chromium, Browser } from 'playwright-core';
+import { saveViewsPage } from '../../src/views';
+import { allViewsList } from './views-list';
+
+export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
+
+let browser: Browser;
+let file: string;
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'kinsort-browser-'));
+
+beforeAll(async () => {
+  browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
+  file = saveViewsPage(path.join(dir, 'all.html'), 'Every view <with a hostile title>', allViewsList(true));
+}, 60_000);
+
+afterAll(async () => {
+  await browser?.close();
+  fs.rmSync(dir, { recursive: true, force: true });
+});
+
+describe('one page holding every view (hostile strings in ids, names and levels)', () => {
+  it('scripts on: every chart drawn by plotly, stand-ins hidden, nothing injected runs', async () => {
+    const context = await browser.newContext({ javaScriptEnabled: true, viewport: { width: 1100, height: 900 } });
+    const page = await context.newPage();
+    const requests: string[] = [];
+    page.on('request', (r) => requests.push(r.url()));
+    await page.goto('file://' + file);
+    const charts = await page.locator('.kinsort-view .ks-live').count();
+    expect(charts).toBe(6); // all but the cards
+    await page.waitForFunction((n) => document.querySelectorAll('[data-drawn="plotly"]').length === n, charts, { timeout: 45_000 });
+    const state = await page.evaluate(() => ({
+      pwned: (window as unknown as { __pwned?: number }).__pwned,
+      images: document.querySelectorAll('img').length,
+      plots: document.querySelectorAll('.js-plotly-plot').length,
+      hiddenStills: Array.from(document.querySelectorAll('[data-drawn="plotly"] > .ks-static')).filter((e) => (e as HTMLElement).offsetHeight === 0).length,
+    }));
+    expect(state.pwned).toBeUndefined();
+    expect(state.images).toBe(0);
+    expect(state.plots).toBe(6);
+    expect(state.hiddenStills).toBe(6);
+    // Offline: the only request is the page itself.
+    expect(requests.filter((u) => !u.startsWith('file://') && !u.startsWith('data:'))).toEqual([]);
+    await context.close();
+  }, 60_000);
+
+  it('scripts off: the SVG and card stand-ins show, the live areas stay hidden', async () => {
+    const context = await browser.newContext({ javaScriptEnabled: false, viewport: { width: 1100, height: 900 } });
+    const page = await context.newPage();
+    await page.goto('file://' + file);
+    const state = await page.evaluate(() => ({
+      svgs: Array.from(document.querySelectorAll('.ks-static > svg')).filter((e) => (e as SVGElement).getBoundingClientRect().height > 100).length,
+      cards: document.querySelectorAll('.ks-static .ks-card').length,
+      liveShown: Array.from(document.querySelectorAll('.ks-live')).filter((e) => (e as HTMLElement).offsetHeight > 0).length,
+      title: document.title,
+    }));
+    expect(state.svgs).toBe(6);
+    expect(state.cards).toBe(3);
+    expect(state.liveShown).toBe(0);
+    expect(state.title).toBe('Every view <with a hostile title>');
+    await context.close();
+  }, 60_000);
+});
