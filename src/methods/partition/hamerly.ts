@@ -98,7 +98,7 @@ export function runHamerly(
     const last = converged || iterations >= maxIterations;
 
     // Bounds follow the centres: own centre's move widens the upper bound; the largest move of
-    // any other centre narrows the lower bound.
+    // any other centre narrows the lower bound (applied row by row in the assignment sweep).
     let most = 0;
     let mostAt = -1;
     let secondMost = 0;
@@ -111,11 +111,6 @@ export function runHamerly(
       } else if (m > secondMost) {
         secondMost = m;
       }
-    }
-    for (let i = 0; i < n; i++) {
-      const a = assignment[i];
-      upper[i] += moved[a];
-      lower[i] -= a === mostAt ? secondMost : most;
     }
 
     // Half the distance from each centre to its nearest other centre.
@@ -141,8 +136,15 @@ export function runHamerly(
     // the tie goes to the lower segment number.
     for (let i = 0; i < n; i++) {
       const a = assignment[i];
-      const bound = halfGap[a] > lower[i] ? halfGap[a] : lower[i];
-      if (upper[i] < bound) continue;
+      // The bound updates above, applied here in the same sweep over the rows.
+      const up = upper[i] + moved[a];
+      const low = lower[i] - (a === mostAt ? secondMost : most);
+      lower[i] = low;
+      const bound = halfGap[a] > low ? halfGap[a] : low;
+      if (up < bound) {
+        upper[i] = up;
+        continue;
+      }
       const ib = i * d;
       const ab = a * d;
       let own = 0;

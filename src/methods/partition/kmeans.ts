@@ -6,7 +6,7 @@ import { checkInteger, checkNumber, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
 import type { Seed } from '../../random';
 import { checkSegmentCount, partitionRows } from './partition-input';
-import { meanColumnVariance, partitionFigures } from './partition-summary';
+import { meanColumnVariance, partitionFigures, settleExactly } from './partition-summary';
 import { runRestarts, type RestartPlan } from './restarts';
 
 export type KmeansStart = 'k-means++' | 'random' | readonly (readonly number[])[];
@@ -67,10 +67,12 @@ const KMEANS_OPTIONS = ['k', 'seed', 'restarts', 'maxIterations', 'tolerance', '
 /**
  * Partition rows into k segments by k-means.
  *
- * The final assignment puts every row at its nearest centre (ties: lower segment number) as the
- * iterations left them, and the centres are then the means of their rows; with tolerance 0 the
- * run continues until no row moves, so both hold together exactly. A segment that goes empty is
- * given the row farthest from its own centre (see `repairEmpty`).
+ * The kept restart ends with a full exact scan: every row goes to its nearest centre (ties: the
+ * lower segment number) and, while that moves any row, the centres become the means and the
+ * scan repeats (these extra updates count in `iterations`). So the reported assignment is
+ * nearest-centre for the reported centres, which are the means of their rows, and within-SS is
+ * computed from them. A segment that goes empty is given the row farthest from its own centre,
+ * taking rows in a fixed order (see `repairEmpty`).
  */
 export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   const where = 'kmeans';
@@ -118,7 +120,10 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   };
   const { kept, withinByRestart: restartWithinSS } = runRestarts(plan, restarts, progress);
   progress(restarts);
+  // One full exact scan of the kept restart (the iterations skipped rows by their bounds).
+  const extra = settleExactly(data, n, d, k, kept.assignment, kept.centers, Math.max(1, maxIterations - kept.iterations));
   const figures = partitionFigures(data, n, d, k, kept.assignment, kept.centers);
+  if (extra > 0) restartWithinSS[kept.restart] = figures.withinSS;
   return {
     kind: 'kmeans',
     variant: 'lloyd',
@@ -126,7 +131,7 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
     assignment: kept.assignment,
     centers: nestedCentres(kept.centers, k, d),
     ...figures,
-    iterations: kept.iterations,
+    iterations: kept.iterations + extra,
     converged: kept.converged,
     restartsRun: restarts,
     restartWithinSS,

@@ -75,3 +75,47 @@ export function meanColumnVariance(data: Float64Array, n: number, d: number): nu
 }
 
 export { createWorkspace };
+
+/**
+ * The exact last word on a kept k-means result: every row to its nearest centre by a full scan
+ * (ties: lower segment number), and while that moves any row, centres to the means and scan
+ * again (at most `maxSteps` times). Returns the number of extra centre updates. Afterwards the
+ * assignment is nearest-centre for centres that are the means of their rows, unless the cap hit.
+ */
+export function settleExactly(data: Float64Array, n: number, d: number, k: number, assignment: Int32Array, centers: Float64Array, maxSteps: number): number {
+  const ws = createWorkspace(n, d, k);
+  ws.assignment.set(assignment);
+  let steps = 0;
+  for (;;) {
+    const moved = assignNearest(data, centers, ws);
+    if (moved === 0 || steps >= maxSteps) break;
+    centresToMeans(data, centers, ws);
+    steps++;
+  }
+  if (steps > 0) centresToMeans(data, centers, ws);
+  assignment.set(ws.assignment);
+  return steps;
+}
+
+/** Every row to its nearest centre by a full scan; returns how many rows changed segment. Fills counts. */
+function assignNearest(data: Float64Array, centers: Float64Array, ws: LloydWorkspace): number {
+  const { n, d, k, assignment, counts } = ws;
+  counts.fill(0);
+  let changed = 0;
+  for (let i = 0; i < n; i++) {
+    const ib = i * d;
+    let best = 0;
+    let bestD = Infinity;
+    for (let c = 0; c < k; c++) {
+      const s = squaredDistance(data, ib, centers, c * d, d);
+      if (s < bestD) {
+        bestD = s;
+        best = c;
+      }
+    }
+    if (assignment[i] !== best) changed++;
+    assignment[i] = best;
+    counts[best]++;
+  }
+  return changed;
+}

@@ -21,12 +21,12 @@ function distinctCount(rows: number[][]): number {
 }
 
 describe('kmeans properties (fast-check)', () => {
-  it('after convergence every row is at its nearest centre (tolerance 0)', () => {
+  it('every row ends at its nearest reported centre, whatever the tolerance (the final exact scan)', () => {
     fc.assert(
-      fc.property(table, fc.integer({ min: 1, max: 5 }), fc.integer(), (rows, kWanted, seed) => {
+      fc.property(table, fc.integer({ min: 1, max: 5 }), fc.integer(), fc.constantFrom(0, 1e-4, 1e-1), (rows, kWanted, seed, tolerance) => {
         const k = Math.min(kWanted, distinctCount(rows));
-        const fit = kmeans(rows, { k, seed, restarts: 2, tolerance: 0, maxIterations: 1000 });
-        if (!fit.converged) return;
+        const fit = kmeans(rows, { k, seed, restarts: 2, tolerance, maxIterations: 1000 });
+        expect(fit.converged).toBe(true);
         rows.forEach((row, i) => {
           const own = squaredDistance(row, fit.centers[fit.assignment[i]]);
           for (const c of fit.centers) expect(own).toBeLessThanOrEqual(squaredDistance(row, c) * (1 + 1e-12) + 1e-12);

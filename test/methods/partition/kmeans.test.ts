@@ -87,6 +87,19 @@ describe('kmeans result', () => {
   });
 });
 
+describe('kmeans empty-segment repair (documented rule, worked by hand)', () => {
+  it('gives the empty segment the row farthest from its centre, the lower row on a tie', () => {
+    // Start [0], [0], [20]: segment 2 (duplicate centre) gets no row (ties go to the lower
+    // segment). Distances to own centre: 0, 1, 10, 9, 10 — rows 3 and 5 tie at 10, row 3 is
+    // taken, so segment 2 starts at [10] and ends as {10, 11}; segment 3 ends as {30}.
+    const rows = [[0], [1], [10], [11], [30]];
+    const fit = kmeans(rows, { k: 3, start: [[0], [0], [20]], tolerance: 0 });
+    expect(Array.from(fit.assignment)).toEqual([0, 0, 1, 1, 2]);
+    expect(fit.centers).toEqual([[0.5], [10.5], [30]]);
+    expect(fit.withinSS).toBeCloseTo(0.5 + 0.5, 12);
+  });
+});
+
 describe('kmeans refuses bad input', () => {
   const rows = [[0, 0], [1, 1], [2, 2], [0, 0]];
   const code = (f: () => unknown) => {
