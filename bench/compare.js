@@ -1,7 +1,6 @@
 'use strict';
 // Side-by-side rows: kinsort and one peer on the same data set, timed in the same run.
 const { median, timeRepeats } = require('./timing');
-const { toNestedRows } = require('./data');
 
 function targetText(ratioMax) {
   if (ratioMax === null || ratioMax === undefined) return 'none (information)';
@@ -44,8 +43,8 @@ async function timePython(python, caseName, set, params, timing) {
   }
 }
 
-async function timeNpm(work, set, timing) {
-  const rows = toNestedRows(set.data, set.n, set.d); // arrays of arrays: their input shape, built untimed
+/** `rows` are arrays of arrays (the npm peers' input shape), built once per data set, untimed. */
+async function timeNpm(work, rows, timing) {
   try {
     const times = await timeRepeats(() => work(rows), timing);
     return { ms: median(times), times };
@@ -79,3 +78,32 @@ function makeRow({ caseId, title, set, tool, kinsort, peer, ratioMax, extra }) {
 }
 
 module.exports = { timeKinsort, timePython, timeNpm, makeRow, targetText, verdict };
+
+/**
+ * Time kinsort and every peer of a case in interleaved rounds (kinsort, peer 1, peer 2, kinsort,
+ * …), so on a shared machine each tool sees the same background load rather than whatever load
+ * happened to fall on its own block of repeats. `tools` are { run(timing) -> {ms, times, note},
+ * maxRepeats? }; a tool stops when it failed, reached its repeats, or used its time budget.
+ */
+async function timeInterleaved(tools, { repeats, budgetMs }) {
+  const results = tools.map(() => ({ times: [], note: undefined, spent: 0, done: false }));
+  for (let round = 0; round < repeats; round++) {
+    for (let t = 0; t < tools.length; t++) {
+      const result = results[t];
+      if (result.done) continue;
+      const once = await tools[t].run({ repeats: 1, budgetMs: 0 });
+      if (once.note) result.note = once.note;
+      if (!once.times.length) {
+        result.done = true;
+        continue;
+      }
+      result.times.push(...once.times);
+      result.spent += once.times.reduce((a, b) => a + b, 0);
+      if (result.spent >= budgetMs || result.times.length >= (tools[t].maxRepeats ?? repeats)) result.done = true;
+    }
+    if (results.every((r) => r.done)) break;
+  }
+  return results.map((r) => ({ ms: r.times.length ? median(r.times) : NaN, times: r.times, note: r.note }));
+}
+
+module.exports.timeInterleaved = timeInterleaved;

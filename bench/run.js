@@ -12,8 +12,8 @@
 const fs = require('fs');
 const path = require('path');
 const { MAIN_CASES, HCLUST_CASES, HCLUST_MAX_ROWS, MEMORY_CASE, SCALING, SEED } = require('./cases');
-const { prepareDataSet, removeScratch } = require('./data');
-const { timeKinsort, timePython, timeNpm, makeRow } = require('./compare');
+const { prepareDataSet, removeScratch, toNestedRows } = require('./data');
+const { timeKinsort, timePython, timeNpm, timeInterleaved, makeRow } = require('./compare');
 const { pythonPeerAvailable, startPythonPeer, PYTHON } = require('./python-peer');
 const { loadNpmPeers } = require('./npm-peers');
 const { runMemoryCase } = require('./memory');
@@ -77,10 +77,16 @@ async function main() {
     for (const hc of HCLUST_CASES) {
       if (!wanted(hc.method)) continue;
       const set = prepareDataSet(kinsort, { ...size(hc), seed: SEED, tag: hc.id });
-      progress(`${hc.method} ${set.n} × ${set.d}: kinsort and ml-hclust`);
+      const nested = toNestedRows(set.data, set.n, set.d);
+      progress(`${hc.method} ${set.n} × ${set.d}: kinsort and ml-hclust, interleaved`);
       const call = (ks, m) => ks.agglomerate(m, { method: hc.method });
-      const mine = await timeKinsort(kinsort, 'agglomerate', call, set, timing);
-      const theirs = await timeNpm((r) => npmPeers.agglomerate(r, hc.method), set, { repeats: args.quick ? 2 : 3, budgetMs: 15_000 });
+      const [mine, theirs] = await timeInterleaved(
+        [
+          { run: (t) => timeKinsort(kinsort, 'agglomerate', call, set, t) },
+          { run: (t) => timeNpm((r) => npmPeers.agglomerate(r, hc.method), nested, t), maxRepeats: 3 },
+        ],
+        timing,
+      );
       hclustMeasured[hc.method] = { n: set.n, ms: theirs.ms };
       const title = MAIN_CASES.find((c) => c.id === hc.method).title;
       rows.push(makeRow({ caseId: hc.id, title, set, tool: `ml-hclust agnes ${hc.method}`, kinsort: mine, peer: theirs, ratioMax: 0.01 }));
@@ -89,17 +95,21 @@ async function main() {
     for (const c of MAIN_CASES) {
       if (!wanted(c.id)) continue;
       const set = prepareDataSet(kinsort, { ...size(c), seed: SEED, tag: c.id });
-      progress(`${c.id} ${set.n} × ${set.d}: kinsort`);
-      const mine = await timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, timing);
+      const nested = c.peers.some((p) => p.npm || p.hclust) ? toNestedRows(set.data, set.n, set.d) : null;
+      progress(`${c.id} ${set.n} × ${set.d}: kinsort, ${c.peers.map((p) => p.tool).join(', ')}, interleaved`);
+      const tools = [{ run: (t) => timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, t) }];
       for (const peer of c.peers) {
-        progress(`${c.id} ${set.n} × ${set.d}: ${peer.tool}`);
-        let theirs;
-        if (peer.python) theirs = await timePython(python, peer.python, set, peer.params, timing);
-        else if (peer.npm) theirs = await timeNpm((r) => peer.npm(npmPeers, r), set, { ...timing, repeats: peer.repeats ?? timing.repeats });
-        else if (peer.hclust && set.n > HCLUST_MAX_ROWS) theirs = { ms: NaN, times: [], note: hclustSkipNote(set.n, hclustMeasured[peer.hclust]) };
-        else theirs = await timeNpm((r) => npmPeers.agglomerate(r, peer.hclust), set, timing);
-        rows.push(makeRow({ caseId: c.id, title: c.title, set, tool: peer.tool, kinsort: mine, peer: theirs, ratioMax: peer.ratioMax }));
+        if (peer.python) tools.push({ run: (t) => timePython(python, peer.python, set, peer.params, t) });
+        else if (peer.npm) tools.push({ run: (t) => timeNpm((r) => peer.npm(npmPeers, r), nested, t), maxRepeats: peer.repeats });
+        else if (set.n > HCLUST_MAX_ROWS) {
+          const note = hclustSkipNote(set.n, hclustMeasured[peer.hclust]);
+          tools.push({ run: async () => ({ ms: NaN, times: [], note }) });
+        } else tools.push({ run: (t) => timeNpm((r) => npmPeers.agglomerate(r, peer.hclust), nested, t) });
       }
+      const [mine, ...theirs] = await timeInterleaved(tools, timing);
+      c.peers.forEach((peer, i) =>
+        rows.push(makeRow({ caseId: c.id, title: c.title, set, tool: peer.tool, kinsort: mine, peer: theirs[i], ratioMax: peer.ratioMax })),
+      );
     }
 
     if (wanted(MEMORY_CASE.id)) {
