@@ -152,16 +152,8 @@ function sharedRestarts(plan: RestartPlan, restarts: number, onDone: (done: numb
     workerCenters: sharedArray(Float64Array, plan.k * plan.d, 8),
   };
   const { control } = shared;
-  let thread: import('worker_threads').Worker | undefined;
-  try {
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
-    const { Worker } = require('worker_threads') as typeof import('worker_threads');
-    thread = new Worker(workerFile, { workerData: shared });
-    thread.unref();
-    thread.on('error', () => undefined); // the calling thread finishes whatever the worker leaves
-  } catch {
-    thread = undefined;
-  }
+  const thread = pooledWorker(workerFile);
+  if (thread) thread.postMessage(shared);
   const runner = new RestartRunner(sharedPlan);
   let kept: KeptRestart | undefined;
   for (;;) {
@@ -193,8 +185,32 @@ function sharedRestarts(plan: RestartPlan, restarts: number, onDone: (done: numb
       };
     }
   }
-  if (thread) void thread.terminate();
   return { kept: kept!, withinByRestart: Array.from(shared.within), byWorker };
+}
+
+// One worker, started on first use and kept for later calls (a notebook runs k-means many times:
+// k sweeps, gap references, bootstrap), so its start-up is paid once. It is unref'd: it never
+// keeps the process alive. If it fails, the calling thread simply does every restart.
+let pooled: import('worker_threads').Worker | undefined;
+let pooledFailed = false;
+
+function pooledWorker(workerFile: string): import('worker_threads').Worker | undefined {
+  if (pooled || pooledFailed) return pooled;
+  try {
+    // eslint-disable-next-line @typescript-eslint/no-var-requires
+    const { Worker } = require('worker_threads') as typeof import('worker_threads');
+    const worker = new Worker(workerFile);
+    worker.unref();
+    const drop = () => {
+      if (pooled === worker) pooled = undefined;
+    };
+    worker.on('error', drop);
+    worker.on('exit', drop);
+    pooled = worker;
+  } catch {
+    pooledFailed = true;
+  }
+  return pooled;
 }
 
 function waitFor(control: Int32Array, slot: number, target: number): void {
