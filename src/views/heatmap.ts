@@ -1,6 +1,8 @@
 // Ordered dissimilarity heatmap: rows and columns in dendrogram order, so segments show as dark
 // blocks on the diagonal. Refused above a size a page can draw.
 import { checkOptions } from '../core/options';
+import { compactLabels } from '../core/assignment';
+import { segmentColour, textOn } from './palette';
 import { axisStyle, baseLayout, kindOf, plotText, refuse } from './common';
 import { INK } from './palette';
 import { encodePng } from './png';
@@ -18,6 +20,8 @@ export interface HeatmapOptions {
   /** Row order: a permutation of 0..n-1, or a tree (its leaf order is used). */
   order?: readonly number[] | { readonly order: readonly number[] };
   labels?: readonly string[];
+  /** Segment of every row: drawn as numbered colour strips along both edges. */
+  assignment?: ArrayLike<number>;
   title?: string;
 }
 
@@ -41,7 +45,7 @@ function rampColour(t: number): [number, number, number] {
 
 export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOptions = {}): View {
   const where = 'heatmapView';
-  const opts = checkOptions(options, ['order', 'labels', 'title'], where);
+  const opts = checkOptions(options, ['order', 'labels', 'assignment', 'title'], where);
   const d = dissimilarity;
   if (!d || typeof d.size !== 'number' || typeof d.get !== 'function') {
     refuse(where, `needs a dissimilarity from dissimilarity(rows, { metric }), but got ${kindOf(d)}.`);
@@ -60,13 +64,24 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
   }
   const labels = (opts.labels ?? d.labels ?? Array.from({ length: n }, (_, i) => `row ${i + 1}`)).map(String);
   if (labels.length !== n) refuse(where, `${labels.length} labels for ${n} rows.`);
+  // Runs of one segment along the drawing order, for the edge strips.
+  const runs: { segment: number; from: number; to: number }[] = [];
+  if (opts.assignment !== undefined) {
+    const seg = compactLabels(opts.assignment, n, where, 'the dissimilarity').labels;
+    order.forEach((row, i) => {
+      const last = runs[runs.length - 1];
+      if (last && last.segment === seg[row]) last.to = i;
+      else runs.push({ segment: seg[row], from: i, to: i });
+    });
+  }
   let max = 0;
   for (let t = 0; t < d.condensed.length; t++) if (d.condensed[t] > max) max = d.condensed[t];
   max = max || 1;
   const title = opts.title ?? `Dissimilarities between ${n} rows, in ${opts.order ? 'dendrogram' : 'input'} order`;
   const caption =
     'Each cell is the dissimilarity of two rows: dark is alike, pale is different. With rows in dendrogram order, ' +
-    'segments show as dark squares along the diagonal.';
+    'segments show as dark squares along the diagonal' +
+    (opts.assignment !== undefined ? '; the numbered strips along the edges give each row its segment.' : '.');
 
   const rgb = new Uint8Array(n * n * 3);
   for (let a = 0; a < n; a++) {
@@ -82,12 +97,12 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
   const side = 560;
   const showLabels = n <= 60;
   const room = showLabels ? 12 + Math.min(20, Math.max(...labels.map((l) => l.length))) * 6 : 20;
-  const width = side + room + 110;
-  const height = side + room + 20;
+  const width = side + room + 130;
+  const height = side + room + 32;
   const f = frame({
     width,
     height,
-    margin: { left: room, right: 110, top: 10, bottom: room + 10 },
+    margin: { left: room, right: 130, top: runs.length ? 22 : 10, bottom: room + 10 },
     x: { domain: [-0.5, n - 0.5], title: '', ticks: [], tickLabels: [] },
     y: { domain: [-0.5, n - 0.5], title: '', ticks: [], tickLabels: [], reversed: true },
   });
@@ -103,15 +118,25 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
       body.push(svgEl.text(text, { x, y: f.bottom + 6, 'text-anchor': 'end', 'font-size': 10, fill: INK.text, transform: `rotate(-60 ${x.toFixed(1)} ${(f.bottom + 6).toFixed(1)})` }));
     });
   }
+  for (const r of runs) {
+    const y0 = f.y(r.from - 0.5);
+    const y1 = f.y(r.to + 0.5);
+    const x0 = f.x(r.from - 0.5);
+    const x1 = f.x(r.to + 0.5);
+    const colour = segmentColour(r.segment);
+    body.push(svgEl.rect({ x: f.right + 4, y: y0, width: 14, height: y1 - y0, fill: colour }));
+    body.push(svgEl.rect({ x: x0, y: f.top - 16, width: x1 - x0, height: 12, fill: colour }));
+    if (y1 - y0 >= 14) body.push(svgEl.text(String(r.segment + 1), { x: f.right + 11, y: (y0 + y1) / 2 + 4, 'text-anchor': 'middle', 'font-size': 10, 'font-weight': 700, fill: textOn(colour) }));
+  }
   // Colour key.
-  const kx = f.right + 30;
+  const kx = f.right + (runs.length ? 44 : 30);
   for (let t = 0; t < 40; t++) {
     const [r, g, b] = rampColour(t / 39);
     body.push(svgEl.rect({ x: kx, y: f.top + (t * (f.bottom - f.top)) / 40, width: 16, height: (f.bottom - f.top) / 40 + 0.5, fill: `rgb(${r},${g},${b})` }));
   }
   body.push(svgEl.text('0 (alike)', { x: kx + 20, y: f.top + 9, 'font-size': 10.5, fill: INK.text }));
   body.push(svgEl.text(`${Number(max.toPrecision(3))}`, { x: kx + 20, y: f.bottom - 2, 'font-size': 10.5, fill: INK.text }));
-  body.push(svgEl.text('dissimilarity', { x: kx - 4, y: f.top - 2 + (f.bottom - f.top) / 2, 'font-size': 11, fill: INK.muted, transform: `rotate(-90 ${kx - 4} ${f.top + (f.bottom - f.top) / 2})`, 'text-anchor': 'middle' }));
+  body.push(svgEl.text('dissimilarity', { x: kx + 36, y: f.top + (f.bottom - f.top) / 2, 'font-size': 11, fill: INK.muted, transform: `rotate(-90 ${kx + 36} ${f.top + (f.bottom - f.top) / 2})`, 'text-anchor': 'middle' }));
   const still = svgDocument(width, height, title, body);
 
   if (n > LIVE_MAX_ROWS) {
@@ -148,9 +173,22 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
       tickfont: { size: 10 },
       ...extra,
     });
+  // Strips in data units just outside the matrix, so they stay beside it when the cells are kept square.
+  const gap = n * 0.01;
+  const band = n * 0.03;
+  const reach = runs.length ? gap + band : 0;
+  const strips = runs.flatMap((r) => [
+    { type: 'rect', x0: n - 0.5 + gap, x1: n - 0.5 + gap + band, y0: r.from - 0.5, y1: r.to + 0.5, fillcolor: segmentColour(r.segment), line: { width: 0 } },
+    { type: 'rect', x0: r.from - 0.5, x1: r.to + 0.5, y0: -0.5 - gap, y1: -0.5 - gap - band, fillcolor: segmentColour(r.segment), line: { width: 0 } },
+  ]);
+  const stripNumbers = runs
+    .filter((r) => r.to - r.from + 1 >= n / 40)
+    .map((r) => ({ x: n - 0.5 + gap + band / 2, y: (r.from + r.to) / 2, text: `<b>${r.segment + 1}</b>`, showarrow: false, font: { size: 10, color: textOn(segmentColour(r.segment)) } }));
   const layout = baseLayout(640, {
-    xaxis: axis({ scaleanchor: 'y', constrain: 'domain' }),
-    yaxis: axis({ autorange: 'reversed', constrain: 'domain' }),
+    shapes: strips,
+    annotations: stripNumbers,
+    xaxis: axis({ scaleanchor: 'y', constrain: 'domain', range: [-0.5, n - 0.5 + reach] }),
+    yaxis: axis({ range: [n - 0.5, -0.5 - reach], constrain: 'domain' }),
     plot_bgcolor: '#ffffff',
   });
   return makeView({ kind: 'heatmap', title, caption, still, plot: { data, layout } });

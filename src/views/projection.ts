@@ -145,7 +145,8 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
     const rows: number[] = [];
     for (let i = 0; i < n; i++) if (labels[i] === s) rows.push(i);
     data.push({
-      type: 'scatter',
+      // Above a few thousand points SVG markers get slow; WebGL draws them instead.
+      type: n > 5000 ? 'scattergl' : 'scatter',
       mode: 'markers',
       name: plotText(names[s] ? `${s + 1} · ${names[s]}` : `${s + 1}`),
       x: rows.map((i) => x[i]),

@@ -10,7 +10,7 @@ export function allViewsList(hostile: boolean): View[] {
     screeView(v.projection),
     kEvidenceView(v.comparison),
     silhouetteView(v.sil, v.assignment, { ids: v.ids }),
-    heatmapView(v.dissimilarity, { order: v.tree }),
+    heatmapView(v.dissimilarity, { order: v.tree, assignment: v.assignment }),
     profileCardsView(v.profiles),
   ];
 }

@@ -23,7 +23,7 @@ function build(hostile: boolean) {
       screeView(v.projection),
       kEvidenceView(v.comparison),
       silhouetteView(v.sil, v.assignment, { ids: v.ids, names: { 1: v.profiles[0].title! } }),
-      heatmapView(v.dissimilarity, { order: v.tree }),
+      heatmapView(v.dissimilarity, { order: v.tree, assignment: v.assignment }),
       profileCardsView(v.profiles),
     ],
   };
@@ -92,6 +92,15 @@ describe('heatmapView', () => {
     const n = 1501;
     const big = makeDissimilarity(n, new Float64Array((n * (n - 1)) / 2), 'euclidean');
     expect(() => heatmapView(big)).toThrow(/1,501 rows[\s\S]*sample[\s\S]*projectionView/);
+  });
+  it('draws a numbered strip per run of one segment along both edges', () => {
+    const { rows, assignment } = sampleData(12);
+    const d = sampleDissimilarity(rows);
+    // Order rows by segment: three runs, so each segment colour appears on two strips.
+    const order = [0, 3, 6, 9, 1, 4, 7, 10, 2, 5, 8, 11];
+    const svg = heatmapView(d, { order, assignment }).svg();
+    for (const colour of ['#1a6699', '#e6991a', '#993333']) expect(svg.split(`fill="${colour}"`).length - 1).toBe(2);
+    expect(() => heatmapView(d, { assignment: [0, 1] })).toThrow(/2 entries/);
   });
   it('refuses an order that is not a permutation', () => {
     const d = sampleDissimilarity(sampleData(6).rows);
