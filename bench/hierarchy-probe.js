@@ -1,6 +1,6 @@
 // Probe for agglomerate() speed and memory, side by side with SciPy on the same data.
-//   npx tsc -p tsconfig.build.json && node bench/hierarchy-probe.js [ward8000|average5000|ward30000 ...]
-// Times only the call (median of repeats). The data are written to a temp file and the python twin
+//   npx tsc -p tsconfig.build.json && node bench/hierarchy-probe.js [ward8000|average5000|ward30000 ...] [--peer-all]
+// Times only the call (median of repeats), as wall-clock and as CPU time (steadier on a shared machine). The data are written to a temp file and the python twin
 // (bench/hierarchy_probe_scipy.py, Debian /usr/bin/python3) times scipy.cluster.hierarchy.linkage on
 // exactly those numbers. ward30000 runs in a child process so its peak RSS is its own.
 'use strict';
@@ -13,7 +13,8 @@ const { agglomerate, createMatrix, createRandom } = require('../dist');
 const CASES = {
   ward8000: { n: 8000, d: 10, method: 'ward', repeats: 3 },
   average5000: { n: 5000, d: 10, method: 'average', repeats: 3 },
-  ward30000: { n: 30000, d: 8, method: 'ward', repeats: 1, child: true },
+  // SciPy needs ~7 GB and minutes here (its pdist alone is 3.6 GB): run it only with --peer-all.
+  ward30000: { n: 30000, d: 8, method: 'ward', repeats: 1, child: true, peerOptional: true },
 };
 
 /** Gaussian blobs of our own making (seeded), so the tree has real structure. */
@@ -36,13 +37,17 @@ function median(values) {
 function timeOurs(data, n, d, method, repeats) {
   const m = createMatrix(n, d, data);
   const times = [];
+  const cpu = [];
   let tree;
   for (let r = 0; r < repeats; r++) {
+    const c0 = process.cpuUsage();
     const t0 = process.hrtime.bigint();
     tree = agglomerate(m, { method });
     times.push(Number(process.hrtime.bigint() - t0) / 1e9);
+    const c = process.cpuUsage(c0);
+    cpu.push((c.user + c.system) / 1e6);
   }
-  return { seconds: median(times), top: tree.merges[n - 2].height, maxRssMB: process.resourceUsage().maxRSS / 1024 };
+  return { seconds: median(times), cpuSeconds: median(cpu), top: tree.merges[n - 2].height, maxRssMB: process.resourceUsage().maxRSS / 1024 };
 }
 
 if (process.argv[2] === '--child') {
@@ -53,7 +58,10 @@ if (process.argv[2] === '--child') {
   process.exit(0);
 }
 
-const chosen = process.argv.slice(2).length ? process.argv.slice(2) : Object.keys(CASES);
+const args = process.argv.slice(2);
+const peerAll = args.includes('--peer-all');
+const named = args.filter((a) => !a.startsWith('--'));
+const chosen = named.length ? named : Object.keys(CASES);
 for (const name of chosen) {
   const c = CASES[name];
   if (!c) throw new Error(`unknown case ${name}; cases: ${Object.keys(CASES).join(', ')}`);
@@ -63,12 +71,19 @@ for (const name of chosen) {
   const ours = c.child
     ? JSON.parse(execFileSync(process.execPath, [__filename, '--child', file, c.n, c.d, c.method], { encoding: 'utf8', maxBuffer: 1 << 20 }))
     : timeOurs(data, c.n, c.d, c.method, c.repeats);
+  if (c.peerOptional && !peerAll) {
+    console.log(`${name.padEnd(12)} wall: kinsort ${ours.seconds.toFixed(3)} s  cpu: kinsort ${ours.cpuSeconds.toFixed(3)} s  ` +
+      `kinsort peak RSS ${ours.maxRssMB.toFixed(0)} MB  (SciPy skipped; --peer-all runs it)`);
+    continue;
+  }
   const peer = JSON.parse(
     execFileSync('/usr/bin/python3', [join(__dirname, 'hierarchy_probe_scipy.py'), file, c.n, c.d, c.method, c.repeats], { encoding: 'utf8' }),
   );
   const ratio = ours.seconds / peer.seconds;
+  const cpuRatio = ours.cpuSeconds / peer.cpuSeconds;
   console.log(
-    `${name.padEnd(12)} kinsort ${ours.seconds.toFixed(3)} s  SciPy ${peer.seconds.toFixed(3)} s  ratio ${ratio.toFixed(2)}  ` +
+    `${name.padEnd(12)} wall: kinsort ${ours.seconds.toFixed(3)} s  SciPy ${peer.seconds.toFixed(3)} s  ratio ${ratio.toFixed(2)}  ` +
+      `cpu: kinsort ${ours.cpuSeconds.toFixed(3)} s  SciPy ${peer.cpuSeconds.toFixed(3)} s  ratio ${cpuRatio.toFixed(2)}  ` +
       `kinsort peak RSS ${ours.maxRssMB.toFixed(0)} MB  SciPy peak RSS ${peer.maxRssMB.toFixed(0)} MB  ` +
       `top height kinsort ${ours.top.toFixed(6)} SciPy ${peer.top.toFixed(6)}`,
   );

@@ -11,7 +11,8 @@ import { dissimilarity } from '../../measure/dissimilarity';
 import { MetricName, ROW_METRICS, checkExponent, distanceFunction } from '../../measure/metrics';
 import { genericLinkage, matrixSpace, vectorSpace } from './generic';
 import { RawMerges, relabelInOrder, relabelSorted } from './merges';
-import { nnChainOnMatrix } from './nn-chain-matrix';
+import { ReducibleMethod, nnChainOnMatrix } from './nn-chain-matrix';
+import { FULL_MATRIX_LIMIT_BYTES, fullEuclidean, nnChainOnFull } from './nn-chain-full';
 import { singleFromCondensed, singleFromPairs, singleFromRowsEuclidean } from './single-mst';
 import { LinkageMethod, PairSource, Tree, buildTree } from './tree';
 import { wardFromVectors } from './ward-vectors';
@@ -84,8 +85,14 @@ function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: nu
     const raw = metric === 'euclidean' ? singleFromRowsEuclidean(n, dims, data) : singleFromPairs(n, source.pair);
     return finish(raw, true);
   }
+  const reducibleMethod = method as ReducibleMethod;
+  if (metric === 'euclidean' && n * n * 8 <= FULL_MATRIX_LIMIT_BYTES) {
+    // A full n × n array makes every chain scan contiguous; worth its double memory while it fits.
+    const full = allocateOrUndefined(() => fullEuclidean(n, dims, data));
+    if (full) return finish(nnChainOnFull(n, full, reducibleMethod), true);
+  }
   const d = dissimilarity(rows, { metric, p });
-  return finish(nnChainOnMatrix(n, d.condensed, method as 'complete' | 'average' | 'weighted'), true);
+  return finish(nnChainCondensed(n, d.condensed, reducibleMethod, true), true);
 }
 
 function fromDissimilarity(d: Dissimilarity, method: LinkageMethod): Tree {
@@ -114,13 +121,29 @@ function fromDissimilarity(d: Dissimilarity, method: LinkageMethod): Tree {
     buildTree(sorted ? relabelSorted(n, raw) : relabelInOrder(n, raw), n, method, d.metric, source, d.labels);
 
   if (method === 'single') return finish(singleFromCondensed(n, values), true);
-  const work = Float64Array.from(values);
   if (method === 'centroid' || method === 'median') {
+    const work = Float64Array.from(values);
     for (let k = 0; k < work.length; k++) work[k] *= work[k];
     return finish(genericLinkage(n, matrixSpace(n, work, method)), false);
   }
+  return finish(nnChainCondensed(n, values, method, false), true);
+}
+
+/** NN-chain on the condensed layout. `owned`: the array is ours to overwrite. Ward works on squares. */
+function nnChainCondensed(n: number, condensed: Float64Array, method: ReducibleMethod, owned: boolean): RawMerges {
+  const work = owned ? condensed : Float64Array.from(condensed);
   if (method === 'ward') for (let k = 0; k < work.length; k++) work[k] *= work[k];
-  return finish(nnChainOnMatrix(n, work, method as 'complete' | 'average' | 'weighted' | 'ward'), true);
+  return nnChainOnMatrix(n, work, method);
+}
+
+/** Run an allocation that may not fit; undefined instead of the RangeError, so a leaner route can run. */
+function allocateOrUndefined(build: () => Float64Array): Float64Array | undefined {
+  try {
+    return build();
+  } catch (e) {
+    if (e instanceof RangeError) return undefined;
+    throw e;
+  }
 }
 
 function notEuclidean(method: LinkageMethod, given: string): KinsortError {
