@@ -114,7 +114,7 @@ function main() {
 
   const stations = study(readCsvFile(path.join(dataDir, 'stations.csv')), { id: 'station' })
     .prepare({ scale: 'zscore', log: ['weekday_boardings', 'weekend_boardings', 'parking_spaces', 'bike_docks'] });
-  const tree = stations.agglomerate({ method: 'average' });
+  const tree = stations.agglomerate({ method: 'ward' });
 
   fs.mkdirSync(outDir, { recursive: true });
   const definitionFile = path.join(outDir, 'pass-holder-segments.json');
@@ -131,9 +131,9 @@ function main() {
     `nearly the same split (adjusted Rand index ${escape(agreement.toFixed(2))}).</p>`;
   const views = [evidence.view(), seg.projection({ loadings: true }), sil.view()];
   const hierarchy =
-    `<h2>Stations: a labelled hierarchy</h2><p>The 60 stations, average linkage on z-scored (and, for counts, logged) ` +
+    `<h2>Stations: a labelled hierarchy</h2><p>The 60 stations, Ward linkage on z-scored (and, for counts, logged) ` +
     `figures; cophenetic correlation ${escape(tree.copheneticCorrelation().toFixed(3))}.</p>` +
-    tree.dendrogram({ k: 5, title: 'Stations by average linkage, cut into 5' }).fragment();
+    tree.dendrogram({ k: 5, title: 'Stations by Ward linkage, cut into 5' }).fragment();
   const page =
     `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width">` +
     `<title>${escape(title)}</title><style>${style}</style>${plottingScript()}</head><body>` +
