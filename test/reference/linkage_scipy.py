@@ -34,7 +34,12 @@ def describe(Z, n, d):
     cuts = {}
     for k in range(1, min(n, 8) + 1):
         cuts[str(k)] = fcluster(Z, k, criterion="maxclust").tolist()
+    # Height cuts at midpoints between distinct merge heights (never on a tie), and at 0.
+    distinct = np.unique(Z[:, 2])
+    picks = [0.0] + [float((distinct[i] + distinct[i + 1]) / 2) for i in np.linspace(0, len(distinct) - 2, 6).astype(int)]
+    height_cuts = [{"height": t, "labels": fcluster(Z, t, criterion="distance").tolist()} for t in picks]
     return {
+        "heightCuts": height_cuts,
         "merges": Z[:, :2].astype(int).tolist(),
         "heights": Z[:, 2].tolist(),
         "sizes": Z[:, 3].astype(int).tolist(),
@@ -56,7 +61,7 @@ for name, X in [("blobs", blobs()), ("grid", grid()), ("small", small())]:
     sets.append(entry)
 
 out = {
-    "producedBy": f"SciPy {scipy.__version__} (scipy.cluster.hierarchy.linkage, fcluster maxclust, cophenet, leaves_list), numpy {np.__version__}",
+    "producedBy": f"SciPy {scipy.__version__} (scipy.cluster.hierarchy.linkage, fcluster maxclust and distance, cophenet, leaves_list), numpy {np.__version__}",
     "source": "data of our own making: numpy default_rng(20261202) normal blobs and small set; integer grid points for ties",
     "note": "Z merges use SciPy's numbering (leaves 0..n-1, merge i makes n+i); fcluster labels are 1-based and arbitrary.",
     "sets": sets,

@@ -60,7 +60,7 @@ export interface Tree {
   /**
    * Pearson correlation between the cophenetic and the original dissimilarities. Without an
    * argument the original is the tree's own input (rows: recomputed pair by pair with the
-   * metric, no matrix stored).
+   * metric, no matrix stored). NaN when either side has no spread (e.g. two rows, or all heights equal).
    */
   copheneticCorrelation(original?: Dissimilarity): number;
 }

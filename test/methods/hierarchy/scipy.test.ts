@@ -1,4 +1,4 @@
-// Outside check: SciPy 1.10 scipy.cluster.hierarchy (linkage, fcluster maxclust, cophenet,
+// Outside check: SciPy 1.10 scipy.cluster.hierarchy (linkage, fcluster maxclust / distance, cophenet,
 // leaves_list) on data of our own making — fixture from test/reference/linkage_scipy.py.
 import { describe, expect, it } from 'vitest';
 import { agglomerate, LINKAGE_METHODS } from '../../../src/methods/hierarchy';
@@ -62,6 +62,10 @@ describe('agglomerate against SciPy 1.10 linkage (data of our own making)', () =
           // fcluster's maxclust gives fewer than k clusters when the cut falls on a tie; compare only clean cuts.
           if (new Set(labels).size !== k) continue;
           expect(canonical(tree.cut({ k })), `k = ${k}`).toEqual(canonical(labels));
+        }
+        // fcluster(Z, t, 'distance'): SciPy keeps a node when the highest merge beneath it is ≤ t.
+        for (const { height, labels } of ref.heightCuts as { height: number; labels: number[] }[]) {
+          expect(canonical(tree.cut({ height })), `height ${height}`).toEqual(canonical(labels));
         }
         // Inversions (centroid / median): a merge lower than a merge beneath it, read off SciPy's Z.
         const inverted = ref.merges.flatMap(([a, b]: number[], i: number) =>
