@@ -174,7 +174,11 @@ interface Indicator {
   values: Float64Array;
 }
 
-/** Numeric columns as they are; text columns as one 0/1 column per level (levels sorted). */
+/**
+ * Numeric columns as they are; text columns as one 0/1 column per level (levels sorted). A
+ * two-level column gives only its second level: the first is its mirror image (same size of
+ * difference, opposite sign) and would take a second place in the list for nothing.
+ */
 function toIndicators(columns: ProfileColumns, n: number): Indicator[] {
   const out: Indicator[] = [];
   for (const [variable, raw] of Object.entries(columns)) {
@@ -186,7 +190,7 @@ function toIndicators(columns: ProfileColumns, n: number): Indicator[] {
       continue;
     }
     const levels = Array.from(new Set(raw.filter((v) => !isMissing(v)).map(String))).sort();
-    for (const level of levels) {
+    for (const level of levels.length === 2 ? levels.slice(1) : levels) {
       const values = new Float64Array(n);
       for (let i = 0; i < n; i++) values[i] = isMissing(raw[i]) ? NaN : String(raw[i]) === level ? 1 : 0;
       out.push({ variable, level, values });

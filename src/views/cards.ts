@@ -28,7 +28,9 @@ function differenceBars(p: SegmentProfile, width = 280): string {
   if (rows.length === 0) return '';
   const rowH = 22;
   const height = rows.length * rowH + 20;
-  const labelW = 112;
+  const labelW = 124;
+  // About 6.2 px per character at 11 px: longer names are shortened with an ellipsis (full name on hover).
+  const maxChars = Math.floor((labelW - 10) / 6.2);
   const mid = labelW + (width - labelW) / 2;
   const half = (width - labelW) / 2 - 38;
   const reach = Math.max(1, ...rows.map((d) => Math.abs(d.difference)));
@@ -41,7 +43,7 @@ function differenceBars(p: SegmentProfile, width = 280): string {
     body.push(
       svgEl.group(
         [
-          svgEl.text(name.length > 18 ? name.slice(0, 17) + '…' : name, { x: labelW - 6, y: y + 13, 'text-anchor': 'end', 'font-size': 11, fill: INK.text }),
+          svgEl.text(name.length > maxChars ? name.slice(0, maxChars - 1) + '…' : name, { x: labelW - 6, y: y + 13, 'text-anchor': 'end', 'font-size': 11, fill: INK.text }),
           svgEl.rect({ x: above ? mid : mid - w, y: y + 3, width: Math.max(1, w), height: rowH - 8, rx: 2, fill: above ? INK.above : INK.below }),
           svgEl.text(`${above ? '+' : '−'}${Math.abs(d.difference).toFixed(2)}`, {
             x: above ? mid + w + 3 : mid - w - 3,
