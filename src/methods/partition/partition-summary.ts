@@ -74,8 +74,6 @@ export function meanColumnVariance(data: Float64Array, n: number, d: number): nu
   return d > 0 ? total / n / d : 0;
 }
 
-export { createWorkspace };
-
 /**
  * The exact last word on a kept k-means result: every row to its nearest centre by a full scan
  * (ties: lower segment number), and while that moves any row, centres to the means and scan
