@@ -6,6 +6,7 @@
 import { KinsortError, checkChoice } from '../../core/errors';
 import { Matrix, RowsInput, isMatrix, toMatrix } from '../../core/matrix';
 import { checkOptions } from '../../core/options';
+import { ProgressCallback } from '../../core/progress';
 import { Dissimilarity, isDissimilarity, pairOf } from '../../measure/condensed';
 import { dissimilarity } from '../../measure/dissimilarity';
 import { MetricName, ROW_METRICS, checkExponent, distanceFunction } from '../../measure/metrics';
@@ -16,6 +17,7 @@ import { FULL_MATRIX_LIMIT_BYTES, fullEuclidean, nnChainOnFull } from './nn-chai
 import { singleFromCondensed, singleFromPairs, singleFromRowsEuclidean } from './single-mst';
 import { LinkageMethod, PairSource, Tree, buildTree } from './tree';
 import { wardFromVectors } from './ward-vectors';
+import { MergeTick, mergeTicker } from './ticker';
 
 export const LINKAGE_METHODS: readonly LinkageMethod[] = ['single', 'complete', 'average', 'weighted', 'centroid', 'median', 'ward'];
 
@@ -26,6 +28,8 @@ export interface AgglomerateOptions {
   metric?: MetricName;
   /** Minkowski exponent, with metric "minkowski". */
   p?: number;
+  /** Called about a hundred times with merges done / n-1 (task "agglomerating"). */
+  progress?: ProgressCallback;
 }
 
 const WHERE = 'agglomerate';
@@ -42,11 +46,14 @@ const EUCLIDEAN_ONLY: readonly LinkageMethod[] = ['ward', 'centroid', 'median'];
  * of its two parts' indices; merges of equal height keep the order they were found in.
  */
 export function agglomerate(input: RowsInput | Dissimilarity, options: AgglomerateOptions): Tree {
-  const opts = checkOptions(options, ['method', 'metric', 'p'], WHERE);
+  const opts = checkOptions(options, ['method', 'metric', 'p', 'progress'], WHERE);
   if (opts.method === undefined) {
     throw new KinsortError(`${WHERE}: option method is required; choose one of ${LINKAGE_METHODS.join(', ')}.`, 'bad-option');
   }
   const method = prefixed(() => checkChoice(opts.method, LINKAGE_METHODS, 'method'));
+  if (opts.progress !== undefined && typeof opts.progress !== 'function') {
+    throw new KinsortError(`${WHERE}: option progress must be a function (event) => void.`, 'bad-option');
+  }
   if (isDissimilarity(input)) {
     if (opts.metric !== undefined || opts.p !== undefined) {
       throw new KinsortError(
@@ -54,7 +61,7 @@ export function agglomerate(input: RowsInput | Dissimilarity, options: Agglomera
         'bad-option',
       );
     }
-    return fromDissimilarity(input, method);
+    return fromDissimilarity(input, method, mergeTicker(opts.progress, input.size, method));
   }
   const metric = prefixed(() => checkChoice(opts.metric ?? 'euclidean', ROW_METRICS, 'metric'));
   const p = checkExponent(metric, opts.p, WHERE);
@@ -63,10 +70,10 @@ export function agglomerate(input: RowsInput | Dissimilarity, options: Agglomera
   const rows = toMatrix(input as RowsInput, { what: `${WHERE}: rows`, minRows: 1 });
   if (rows.rows < 2) tooFew(rows.rows);
   if (rows.cols === 0) throw new KinsortError(`${WHERE}: the rows have no columns.`, 'empty');
-  return fromRows(rows, method, metric, p);
+  return fromRows(rows, method, metric, p, mergeTicker(opts.progress, rows.rows, method));
 }
 
-function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: number | undefined): Tree {
+function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: number | undefined, tick: MergeTick | undefined): Tree {
   const n = rows.rows;
   const dims = rows.cols;
   const kernel = distanceFunction(metric, p);
@@ -78,24 +85,24 @@ function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: nu
   if (EUCLIDEAN_ONLY.includes(method)) {
     if (metric !== 'euclidean') throw notEuclidean(method, `metric "${metric}"`);
     const points = Float64Array.from(data);
-    if (method === 'ward') return finish(wardFromVectors(n, dims, points), true);
-    return finish(genericLinkage(n, vectorSpace(dims, points, method as 'centroid' | 'median')), false);
+    if (method === 'ward') return finish(wardFromVectors(n, dims, points, tick), true);
+    return finish(genericLinkage(n, vectorSpace(dims, points, method as 'centroid' | 'median'), tick), false);
   }
   if (method === 'single') {
-    const raw = metric === 'euclidean' ? singleFromRowsEuclidean(n, dims, data) : singleFromPairs(n, source.pair);
+    const raw = metric === 'euclidean' ? singleFromRowsEuclidean(n, dims, data, tick) : singleFromPairs(n, source.pair, tick);
     return finish(raw, true);
   }
   const reducibleMethod = method as ReducibleMethod;
   if (metric === 'euclidean' && n * n * 8 <= FULL_MATRIX_LIMIT_BYTES) {
     // A full n × n array makes every chain scan contiguous; worth its double memory while it fits.
     const full = allocateOrUndefined(() => fullEuclidean(n, dims, data));
-    if (full) return finish(nnChainOnFull(n, full, reducibleMethod), true);
+    if (full) return finish(nnChainOnFull(n, full, reducibleMethod, tick), true);
   }
   const d = dissimilarity(rows, { metric, p });
-  return finish(nnChainCondensed(n, d.condensed, reducibleMethod, true), true);
+  return finish(nnChainCondensed(n, d.condensed, reducibleMethod, true, tick), true);
 }
 
-function fromDissimilarity(d: Dissimilarity, method: LinkageMethod): Tree {
+function fromDissimilarity(d: Dissimilarity, method: LinkageMethod, tick: MergeTick | undefined): Tree {
   const n = d.size;
   if (!Number.isInteger(n) || n < 2 || d.condensed.length !== (n * (n - 1)) / 2) {
     if (Number.isInteger(n) && n < 2) tooFew(n);
@@ -120,20 +127,20 @@ function fromDissimilarity(d: Dissimilarity, method: LinkageMethod): Tree {
   const finish = (raw: RawMerges, sorted: boolean) =>
     buildTree(sorted ? relabelSorted(n, raw) : relabelInOrder(n, raw), n, method, d.metric, source, d.labels);
 
-  if (method === 'single') return finish(singleFromCondensed(n, values), true);
+  if (method === 'single') return finish(singleFromCondensed(n, values, tick), true);
   if (method === 'centroid' || method === 'median') {
     const work = Float64Array.from(values);
     for (let k = 0; k < work.length; k++) work[k] *= work[k];
-    return finish(genericLinkage(n, matrixSpace(n, work, method)), false);
+    return finish(genericLinkage(n, matrixSpace(n, work, method), tick), false);
   }
-  return finish(nnChainCondensed(n, values, method, false), true);
+  return finish(nnChainCondensed(n, values, method, false, tick), true);
 }
 
 /** NN-chain on the condensed layout. `owned`: the array is ours to overwrite. Ward works on squares. */
-function nnChainCondensed(n: number, condensed: Float64Array, method: ReducibleMethod, owned: boolean): RawMerges {
+function nnChainCondensed(n: number, condensed: Float64Array, method: ReducibleMethod, owned: boolean, tick: MergeTick | undefined): RawMerges {
   const work = owned ? condensed : Float64Array.from(condensed);
   if (method === 'ward') for (let k = 0; k < work.length; k++) work[k] *= work[k];
-  return nnChainOnMatrix(n, work, method);
+  return nnChainOnMatrix(n, work, method, tick);
 }
 
 /** Run an allocation that may not fit; undefined instead of the RangeError, so a leaner route can run. */

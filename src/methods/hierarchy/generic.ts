@@ -6,6 +6,7 @@
 // order; heights may go down (inversions), which the tree reports.
 import { IndexedMinHeap } from './heap';
 import { RawMerges, createRawMerges } from './merges';
+import { MergeTick } from './ticker';
 import { condensedRowStarts } from './condensed-rows';
 
 export type GenericMethod = 'centroid' | 'median';
@@ -17,7 +18,7 @@ export interface ClusterSpace {
   merge(x: number, y: number, dxy: number, nx: number, ny: number, active: Int32Array, count: number): void;
 }
 
-export function genericLinkage(n: number, space: ClusterSpace): RawMerges {
+export function genericLinkage(n: number, space: ClusterSpace, tick?: MergeTick): RawMerges {
   const raw = createRawMerges(n);
   const size = new Float64Array(n).fill(1);
   const active = new Int32Array(n);
@@ -86,6 +87,7 @@ export function genericLinkage(n: number, space: ClusterSpace): RawMerges {
       }
     }
     heap.change(y, nearestAbove(py));
+    if (tick) tick(k + 1);
   }
   return raw;
 }

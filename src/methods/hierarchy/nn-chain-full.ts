@@ -4,6 +4,7 @@
 // time. Same chain, tie and naming rules and the same Lance–Williams arithmetic, so the merges
 // are identical to the condensed version's.
 import { RawMerges, createRawMerges } from './merges';
+import { MergeTick } from './ticker';
 import { ReducibleMethod } from './nn-chain-matrix';
 import { condensedRowStarts } from './condensed-rows';
 
@@ -66,7 +67,7 @@ export function fullEuclidean(n: number, dims: number, data: Float64Array): Floa
 }
 
 /** `full` is overwritten. For ward it must hold SQUARED distances. */
-export function nnChainOnFull(n: number, full: Float64Array, method: ReducibleMethod): RawMerges {
+export function nnChainOnFull(n: number, full: Float64Array, method: ReducibleMethod, tick?: MergeTick): RawMerges {
   const raw = createRawMerges(n);
   const size = new Float64Array(n).fill(1);
   const active = new Int32Array(n);
@@ -139,6 +140,7 @@ export function nnChainOnFull(n: number, full: Float64Array, method: ReducibleMe
     while (active[q] !== x) q++;
     active.copyWithin(q, q + 1, count);
     count--;
+    if (tick) tick(k + 1);
   }
   return raw;
 }

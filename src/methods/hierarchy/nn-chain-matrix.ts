@@ -5,12 +5,13 @@
 // guarantees termination); otherwise the active cluster with the smallest index wins. Merging
 // clusters x < y keeps the name y.
 import { RawMerges, createRawMerges } from './merges';
+import { MergeTick } from './ticker';
 import { condensedRowStarts } from './condensed-rows';
 
 export type ReducibleMethod = 'complete' | 'average' | 'weighted' | 'ward';
 
 /** `work` is overwritten (pass a copy). For ward it must hold SQUARED distances. */
-export function nnChainOnMatrix(n: number, work: Float64Array, method: ReducibleMethod): RawMerges {
+export function nnChainOnMatrix(n: number, work: Float64Array, method: ReducibleMethod, tick?: MergeTick): RawMerges {
   const raw = createRawMerges(n);
   const starts = condensedRowStarts(n);
   const size = new Float64Array(n).fill(1);
@@ -76,6 +77,7 @@ export function nnChainOnMatrix(n: number, work: Float64Array, method: Reducible
     while (active[q] !== x) q++;
     active.copyWithin(q, q + 1, count);
     count--;
+    if (tick) tick(k + 1);
   }
   return raw;
 }

@@ -2,10 +2,11 @@
 // O(n²) time, and from rows O(n) extra memory since distances are computed as they are needed.
 // Ties: among equal candidate distances the remaining row with the smallest index is taken.
 import { RawMerges, createRawMerges } from './merges';
+import { MergeTick } from './ticker';
 import { condensedRowStarts } from './condensed-rows';
 
 /** Prim over a condensed dissimilarity. Heights are the MST edge weights. */
-export function singleFromCondensed(n: number, condensed: Float64Array): RawMerges {
+export function singleFromCondensed(n: number, condensed: Float64Array, tick?: MergeTick): RawMerges {
   const starts = condensedRowStarts(n);
   return prim(n, (x, remaining, count, best, from) => {
     for (let p = 0; p < count; p++) {
@@ -16,11 +17,11 @@ export function singleFromCondensed(n: number, condensed: Float64Array): RawMerg
         from[i] = x;
       }
     }
-  }, false);
+  }, false, tick);
 }
 
 /** Prim on rows with Euclidean distances computed on the fly (compared squared). */
-export function singleFromRowsEuclidean(n: number, dims: number, data: Float64Array): RawMerges {
+export function singleFromRowsEuclidean(n: number, dims: number, data: Float64Array, tick?: MergeTick): RawMerges {
   return prim(n, (x, remaining, count, best, from) => {
     const xo = x * dims;
     for (let p = 0; p < count; p++) {
@@ -36,11 +37,11 @@ export function singleFromRowsEuclidean(n: number, dims: number, data: Float64Ar
         from[i] = x;
       }
     }
-  }, true);
+  }, true, tick);
 }
 
 /** Prim on rows with any pair function (other metrics). */
-export function singleFromPairs(n: number, pair: (i: number, j: number) => number): RawMerges {
+export function singleFromPairs(n: number, pair: (i: number, j: number) => number, tick?: MergeTick): RawMerges {
   return prim(n, (x, remaining, count, best, from) => {
     for (let p = 0; p < count; p++) {
       const i = remaining[p];
@@ -50,12 +51,12 @@ export function singleFromPairs(n: number, pair: (i: number, j: number) => numbe
         from[i] = x;
       }
     }
-  }, false);
+  }, false, tick);
 }
 
 type Relax = (x: number, remaining: Int32Array, count: number, best: Float64Array, from: Int32Array) => void;
 
-function prim(n: number, relax: Relax, squared: boolean): RawMerges {
+function prim(n: number, relax: Relax, squared: boolean, tick: MergeTick | undefined): RawMerges {
   const raw = createRawMerges(n);
   const best = new Float64Array(n).fill(Infinity);
   const from = new Int32Array(n);
@@ -82,6 +83,7 @@ function prim(n: number, relax: Relax, squared: boolean): RawMerges {
     raw.b[k] = y;
     raw.height[k] = squared ? Math.sqrt(min) : min;
     x = y;
+    if (tick) tick(k + 1);
   }
   return raw;
 }

@@ -4,12 +4,13 @@
 // (the scale SciPy reports). No n × n array: memory O(n·d). Same chain and tie rules as the
 // matrix version (predecessor kept on ties, otherwise the smallest index; x < y keeps name y).
 import { RawMerges, createRawMerges } from './merges';
+import { MergeTick } from './ticker';
 
 /** Relative slack for abandoning a candidate on a partial sum (far above rounding error). */
 const ABANDON_MARGIN = 1 + 1e-9;
 
 /** `centroids` (n × dims, row-major) is overwritten. */
-export function wardFromVectors(n: number, dims: number, centroids: Float64Array): RawMerges {
+export function wardFromVectors(n: number, dims: number, centroids: Float64Array, tick?: MergeTick): RawMerges {
   const raw = createRawMerges(n);
   const size = new Float64Array(n).fill(1);
   const active = new Int32Array(n);
@@ -98,6 +99,7 @@ export function wardFromVectors(n: number, dims: number, centroids: Float64Array
     while (active[q] !== x) q++;
     active.copyWithin(q, q + 1, count);
     count--;
+    if (tick) tick(k + 1);
   }
   return raw;
 }
