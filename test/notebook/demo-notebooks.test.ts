@@ -29,6 +29,7 @@ type Output = { output_type: string; name?: string; data?: Record<string, string
 type Cell = { cell_type: string; source: string | string[]; outputs?: Output[] };
 
 const executed = new Map<Name, Cell[]>();
+let aloneCells: Cell[] = [];
 let browser: Browser;
 
 async function execute(name: Name): Promise<void> {
@@ -42,13 +43,29 @@ async function execute(name: Name): Promise<void> {
   await run('/usr/bin/jupyter', ['nbconvert', '--to', 'html', path.join(out, `${name}.ipynb`)], { env, timeout: 120_000, maxBuffer: 64 << 20 });
 }
 
+/** Notebook 03 from a copy of the layout with no notebooks/out/: the fit-in-place path. */
+async function executeThreeAlone(): Promise<void> {
+  const copy = path.join(out, 'alone');
+  fs.mkdirSync(path.join(copy, 'notebooks'), { recursive: true });
+  fs.symlinkSync(path.join(repo, 'demo-data'), path.join(copy, 'demo-data'));
+  fs.symlinkSync(path.join(repo, 'node_modules'), path.join(copy, 'node_modules'));
+  fs.copyFileSync(path.join(notebooks, '03-scoring-next-month.ipynb'), path.join(copy, 'notebooks', 'three.ipynb'));
+  await run('/usr/bin/jupyter', ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', '--output', 'three-run', 'three.ipynb'], {
+    cwd: path.join(copy, 'notebooks'),
+    env,
+    timeout: 240_000,
+    maxBuffer: 64 << 20,
+  });
+  aloneCells = JSON.parse(fs.readFileSync(path.join(copy, 'notebooks', 'three-run.ipynb'), 'utf8')).cells;
+}
+
 beforeAll(async () => {
   if (!fs.existsSync(path.join(repo, 'dist/index.js'))) {
     execFileSync('npx', ['tsc', '-p', 'tsconfig.build.json'], { cwd: repo, env, stdio: 'inherit' });
   }
   execFileSync(path.join(repo, 'node_modules/.bin/tslab'), ['install', '--python=/usr/bin/python3', `--prefix=${out}`], { cwd: repo, env, stdio: 'ignore' });
   // 01 and 02 side by side (two cores); 03 after 01, so it scores with the definition 01 saved.
-  await Promise.all([execute('01-pass-holder-segments').then(() => execute('03-scoring-next-month')), execute('02-station-hierarchy')]);
+  await Promise.all([execute('01-pass-holder-segments').then(() => execute('03-scoring-next-month')), execute('02-station-hierarchy').then(executeThreeAlone)]);
 }, 480_000);
 
 afterAll(async () => {
@@ -108,6 +125,18 @@ describe('the demo notebooks in the tslab kernel', () => {
     expect(s).toMatch(/unseen level: PH-\d+ has fare_type = "youth"/);
     expect(s).toMatch(/missing avg_trip_km: \d+ filled with the training median/);
     expect(s).toContain('Same segment for 300 of 300 holders');
+  });
+
+  it('03 run on its own (no saved definition): fits the same recipe in place, and SQL still agrees', () => {
+    const outputs = aloneCells.flatMap((c) => c.outputs ?? []);
+    expect(outputs.filter((o) => o.output_type === 'error' || o.name === 'stderr')).toEqual([]);
+    const s = outputs.filter((o) => o.output_type === 'stream').map((o) => text(o.text)).join('');
+    expect(s).toContain('No saved definition found: fitted the notebook 1 recipe in place');
+    expect(s).toContain('Same segment for 300 of 300 holders');
+    // The same segments as the saved definition: same training sizes in the same order (the first table).
+    const sizes = (t: string) => [...t.matchAll(/│ \d+\s+│ (\d+)\s+│ '[^']*'\s+│ (\d+)\s+│/g)].map((m) => `${m[1]}:${m[2]}`).slice(0, 5);
+    expect(sizes(s)).toHaveLength(5);
+    expect(sizes(s)).toEqual(sizes(streams('03-scoring-next-month')));
   });
 
   it('exported to HTML: charts drawn with scripts on, stand-ins with scripts off; screenshots of the key views', async () => {
