@@ -150,7 +150,7 @@ function main() {
   console.log(`kinsort demo: done in ${((Date.now() - started) / 1000).toFixed(1)} s`);
   console.log(`  report:     ${reportFile}`);
   console.log(`  definition: ${definitionFile}`);
-  console.log(`  apply it:   node bin/kinsort.js assign ${path.relative(process.cwd(), definitionFile)} demo-data/pass-holders-next-month.csv --out scored.csv`);
+  console.log(`  apply it:   npx kinsort assign ${path.relative(process.cwd(), definitionFile)} demo-data/pass-holders-next-month.csv --out scored.csv`);
 }
 
 try {
