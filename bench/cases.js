@@ -22,7 +22,7 @@ const MAIN_CASES = [
     id: 'kmeans',
     title: `k-means, k = ${K}, ${RESTARTS} restarts`,
     full: { n: 100_000, d: 10 },
-    quick: { n: 2_000, d: 10 },
+    quick: { n: 1_000, d: 10 },
     kinsortFunction: 'kmeans',
     kinsort: (ks, m) => ks.kmeans(m, { k: K, seed: SEED, restarts: RESTARTS }),
     peers: [
@@ -95,12 +95,12 @@ const MAIN_CASES = [
  * ml-hclust is cubic in n and rebuilds its matrix each merge (about 2 s at n = 1,000 here, so
  * ~20 min at n = 8,000). It runs only up to this size; above it the bench says so and why.
  */
-const HCLUST_MAX_ROWS = 1_000;
+const HCLUST_MAX_ROWS = { full: 1_000, quick: 200 }; // quick: the main cases take the skip path
 
 /** ml-hclust's own cases: kinsort against it at a size where it finishes. */
 const HCLUST_CASES = [
-  { id: 'ward-small', method: 'ward', full: { n: 1_000, d: 10 }, quick: { n: 150, d: 10 } },
-  { id: 'average-small', method: 'average', full: { n: 1_000, d: 10 }, quick: { n: 150, d: 10 } },
+  { id: 'ward-small', method: 'ward', full: { n: 1_000, d: 10 }, quick: { n: 100, d: 10 } },
+  { id: 'average-small', method: 'average', full: { n: 1_000, d: 10 }, quick: { n: 100, d: 10 } },
 ];
 
 /** The memory case: Ward from vectors at n = 30,000, in its own process so peak RSS is its own. */
@@ -108,7 +108,7 @@ const MEMORY_CASE = {
   id: 'ward-memory',
   title: 'Ward from vectors, peak memory',
   full: { n: 30_000, d: 8 },
-  quick: { n: 1_000, d: 8 },
+  quick: { n: 500, d: 8 },
   kinsortFunction: 'agglomerate',
   method: 'ward',
   maxMB: 2048,
@@ -118,7 +118,7 @@ const MEMORY_CASE = {
 /** Scaling: each main case at n, 2n and 4n (small n), giving the growth factor per doubling. */
 const SCALING = {
   dissimilarity: { full: 1_000, quick: 100 },
-  kmeans: { full: 25_000, quick: 500 }, // below this, fixed costs hide the growth
+  kmeans: { full: 25_000, quick: 250 }, // below this, fixed costs hide the growth
   silhouette: { full: 1_000, quick: 100 },
   ward: { full: 1_000, quick: 100 },
   average: { full: 1_000, quick: 100 },

@@ -80,9 +80,19 @@ describe.skipIf(!hasDist)('bench harness, quick mode', () => {
     for (const row of lines().filter((l) => l.type === 'case' && l.tool !== '(limits only)')) {
       const isPython = /SciPy|scikit-learn/.test(row.tool);
       if (isPython && !hasPythonPeer) continue;
+      if (row.status === 'SKIP' && /^ml-hclust/.test(row.tool)) {
+        // Above its size limit ml-hclust is skipped, and the note must say why and how long it would take.
+        expect(row.note).toMatch(/ml-hclust skipped above n = \d+: it is cubic in n \(it took \d+ ms at n = \d+/);
+        continue;
+      }
       expect(Number.isFinite(row.peerMs) && row.peerMs > 0, `${row.case} / ${row.tool}: ${row.note}`).toBe(true);
       if (Number.isFinite(row.kinsortMs)) expect(row.ratio).toBeCloseTo(row.kinsortMs / row.peerMs, 9);
     }
+  }, 180_000);
+
+  it('takes the ml-hclust skip path in quick mode too (the main hierarchy cases are above its quick limit)', () => {
+    const skipped = lines().filter((l) => l.type === 'case' && /^ml-hclust/.test(l.tool) && l.status === 'SKIP');
+    expect(skipped.map((r) => r.case).sort()).toEqual(['average', 'ward']);
   }, 180_000);
 
   it('reports the memory case with a peak resident size, and growth per doubling for scaling', () => {
@@ -94,6 +104,13 @@ describe.skipIf(!hasDist)('bench harness, quick mode', () => {
       expect(s.sizes).toEqual([s.sizes[0], 2 * s.sizes[0], 4 * s.sizes[0]]);
       if (s.ms.every((x: number | null) => x !== null)) expect(s.growthPerDoubling).toBeCloseTo(Math.sqrt(s.ms[2] / s.ms[0]), 9);
     }
+  }, 180_000);
+
+  it('turns into the Markdown tables of BENCH.md, one table row per case row and scaling row', () => {
+    const { toMarkdown } = require(path.join(ROOT, 'bench', 'markdown.js'));
+    const md: string = toMarkdown(lines());
+    const tableRows = md.split('\n').filter((l) => l.startsWith('| ') && !l.startsWith('| case'));
+    expect(tableRows.length).toBe(lines().filter((l) => l.type !== 'machine').length);
   }, 180_000);
 
   it('prints the table for people as well', () => {
