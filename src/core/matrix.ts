@@ -118,10 +118,24 @@ export function toMatrix(input: RowsInput, options: ToMatrixOptions = {}): Matri
 }
 
 /** Refuse NaN / ±Infinity, naming the first offending row and column. */
+/**
+ * Largest size of a value that distances can square and sum without overflow, and smallest size
+ * of the largest value for which squared differences do not underflow to 0 (double precision).
+ */
+export const LARGEST_USABLE_MAGNITUDE = 1e150;
+export const SMALLEST_USABLE_SCALE = 1e-150;
+
 export function assertFinite(m: Matrix, what = 'rows'): void {
   const { data, cols } = m;
+  let largest = 0;
+  let largestAt = -1;
   for (let k = 0; k < data.length; k++) {
     const v = data[k];
+    const size = Math.abs(v);
+    if (size > largest) {
+      largest = size;
+      largestAt = k;
+    }
     if (!Number.isFinite(v)) {
       const i = Math.floor(k / cols);
       const j = k - i * cols;
@@ -131,6 +145,21 @@ export function assertFinite(m: Matrix, what = 'rows'): void {
         'not-finite',
       );
     }
+  }
+  // Squared distances of such values overflow to Infinity or underflow to 0, and every method
+  // would silently give wrong segments (or never finish): refuse instead, saying how to fix it.
+  if (largest > LARGEST_USABLE_MAGNITUDE || (largest > 0 && largest < SMALLEST_USABLE_SCALE)) {
+    const i = Math.floor(largestAt / cols);
+    const j = largestAt - i * cols;
+    const problem =
+      largest > LARGEST_USABLE_MAGNITUDE
+        ? `is ${data[largestAt]}, beyond ±${LARGEST_USABLE_MAGNITUDE} where squared distances overflow`
+        : `is ${data[largestAt]}, the largest value in size, and below ${SMALLEST_USABLE_SCALE} squared differences underflow to 0`;
+    throw new KinsortError(
+      `${what}: ${rowName(m, i)}, ${colName(m, j)} ${problem}; rescale the values (prepare the table with ` +
+        `scale 'zscore', 'robust' or 'minmax', or multiply by a power of ten) before clustering.`,
+      'bad-input',
+    );
   }
 }
 
