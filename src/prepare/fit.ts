@@ -39,6 +39,16 @@ export function fitColumn(
     const [lo, hi] = minMax(values);
     if (!(hi > lo)) return null;
     const { centre, spread, spreadKind } = scaleOf(values, ctx.scale, lo, hi, name, ctx.notes);
+    // Values near the ends of double precision overflow (1e300) or underflow (1e-300) in the
+    // spread; scaled by it every row would silently become 0 or NaN.
+    if (!Number.isFinite(centre) || !Number.isFinite(spread) || !(spread > 0) || !Number.isFinite(lo / spread) || !Number.isFinite(hi / spread)) {
+      throw new KinsortError(
+        `column "${name}": its values run from ${lo} to ${hi}, too large or too small in size to scale ` +
+          `in double precision (the ${spreadKind === 'none' ? 'centre' : spreadKind} comes out as ${spreadKind === 'none' ? centre : spread}); ` +
+          `multiply the column by a power of ten first.`,
+        'bad-input',
+      );
+    }
     // `+ 0` turns a -0 centre into +0: JSON writes -0 as 0, and the re-applied matrix must match bit for bit.
     return { ...base, levels: levels ? [...levels] : null, centre: centre + 0, spread, spreadKind, features: [name] };
   }
