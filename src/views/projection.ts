@@ -33,6 +33,9 @@ export interface ProjectionViewOptions {
 
 const MAX_STATIC_POINTS = 4000;
 
+/** Arrows shorter than this share of the longest are drawn without a label. */
+const LABELLED_ARROW_SHARE = 0.35;
+
 function requireProjection(p: unknown, where: string): ProjectionLike {
   const q = p as ProjectionLike;
   if (!q || q.kind !== 'projection' || !q.scores || !q.loadings) {
@@ -89,7 +92,10 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   }
   const featureNames = p.featureNames ?? loadings.rowLabels ?? Array.from({ length: loadings.rows }, (_, j) => `feature ${j + 1}`);
   // Arrows scaled so the longest reaches 85% of the cloud's reach.
-  let arrows: { name: string; ax: number; ay: number }[] = [];
+  // Short arrows (variables with little weight on these two components) are drawn unlabelled and
+  // named in a note: their labels would pile up on the origin.
+  let arrows: { name: string; ax: number; ay: number; labelled: boolean }[] = [];
+  let unlabelled: string[] = [];
   if (opts.loadings) {
     let reach = 0;
     for (let i = 0; i < n; i++) reach = Math.max(reach, Math.hypot(x[i], y[i]));
@@ -101,7 +107,13 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
       return { name, ax, ay };
     });
     const scale = longest > 0 ? (0.85 * reach) / longest : 1;
-    arrows = raw.map((a) => ({ name: a.name, ax: a.ax * scale, ay: a.ay * scale }));
+    arrows = raw.map((a) => ({
+      name: a.name,
+      ax: a.ax * scale,
+      ay: a.ay * scale,
+      labelled: Math.hypot(a.ax, a.ay) >= LABELLED_ARROW_SHARE * longest,
+    }));
+    unlabelled = arrows.filter((a) => !a.labelled).map((a) => a.name);
   }
   const xTitle = `principal component 1${pct(p.explainedVarianceRatio[0])}`;
   const yTitle = `principal component 2${pct(p.explainedVarianceRatio[1])}`;
@@ -112,7 +124,8 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
     (opts.loadings ? ' Arrows point the way each variable grows.' : '');
 
   // Static stand-in.
-  const xs = extent([...x, ...cx, ...arrows.map((a) => a.ax)]);
+  // Labelled arrow tips reach a little further so their labels stay inside the frame.
+  const xs = extent([...x, ...cx, ...arrows.map((a) => (a.labelled ? a.ax * 1.35 : a.ax))]);
   const ys = extent([...y, ...cy, ...arrows.map((a) => a.ay)]);
   const width = 900;
   const height = 560;
@@ -122,10 +135,23 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   for (let i = 0; i < n; i += stride) {
     body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: n > 1500 ? 2.2 : 3.4, fill: segmentColour(labels[i]), 'fill-opacity': 0.72 }));
   }
+  const arrowLabels: string[] = [];
   for (const a of arrows) {
     body.push(svgEl.line({ x1: f.x(0), y1: f.y(0), x2: f.x(a.ax), y2: f.y(a.ay), stroke: INK.text, 'stroke-width': 1.3 }));
     body.push(svgEl.circle({ cx: f.x(a.ax), cy: f.y(a.ay), r: 2.5, fill: INK.text }));
-    body.push(svgEl.text(a.name, { x: f.x(a.ax) + 4, y: f.y(a.ay) - 4, 'font-size': 11, fill: INK.text }));
+    if (!a.labelled) continue;
+    arrowLabels.push(
+      svgEl.text(a.name, {
+        x: f.x(a.ax) + (a.ax >= 0 ? 4 : -4),
+        y: f.y(a.ay) + (a.ay >= 0 ? -4 : 12),
+        'text-anchor': a.ax >= 0 ? 'start' : 'end',
+        'font-size': 11,
+        fill: INK.text,
+        stroke: '#ffffff',
+        'stroke-width': 3,
+        'paint-order': 'stroke',
+      }),
+    );
   }
   for (let s = 0; s < k; s++) {
     const px = f.x(cx[s]);
@@ -133,9 +159,11 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
     body.push(svgEl.circle({ cx: px, cy: py, r: 10, fill: segmentColour(s), stroke: '#ffffff', 'stroke-width': 2.5 }));
     body.push(svgEl.text(String(s + 1), { x: px, y: py + 4, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: textOn(segmentColour(s)) }));
   }
+  body.push(...arrowLabels); // above the centre discs
   body.push(...svgLegend(k, 64, height - 10, names));
   const still = svgDocument(width, height, title, body);
   const notes = stride > 1 ? [`${n} rows: the static picture draws every ${stride}th row; the live chart draws all.`] : [];
+  if (unlabelled.length) notes.push(`Short arrows, unlabelled (little weight on these two components): ${unlabelled.join(', ')}.`);
 
   // Live chart: one trace per segment so the legend toggles segments.
   const hoverCols = Object.entries(opts.hover ?? {});
@@ -176,7 +204,7 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   });
   const annotations = arrows.flatMap((a) => [
     { x: a.ax, y: a.ay, ax: 0, ay: 0, axref: 'x', ayref: 'y', showarrow: true, arrowhead: 2, arrowwidth: 1.3, arrowcolor: INK.text, text: '' },
-    {
+    ...(a.labelled ? [{
       x: a.ax,
       y: a.ay,
       showarrow: false,
@@ -184,7 +212,8 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
       xanchor: a.ax >= 0 ? 'left' : 'right',
       yanchor: a.ay >= 0 ? 'bottom' : 'top',
       font: { size: 11, color: INK.text },
-    },
+      bgcolor: 'rgba(255,255,255,0.8)',
+    }] : []),
   ]);
   const layout = baseLayout(560, {
     xaxis: axisStyle(xTitle),
