@@ -130,16 +130,17 @@ function staticDendrogram(
   const width = upright ? 940 : 900;
   const height = upright ? 380 + labelRoom : leafAxisPx + 90;
   const legendRoom = k ? 30 : 0;
+  const leafTitle = `${n} rows, in the order the tree joins them`;
   const f = frame({
     width,
     height: height - legendRoom,
     margin: upright ? { left: 64, right: 16, top: 14, bottom: labelRoom + 34 } : { left: labelRoom + 10, right: 24, top: 14, bottom: 48 },
     x: upright
-      ? { domain: [-0.5, n - 0.5], title: 'rows', ticks: [], tickLabels: [] }
+      ? { domain: [-0.5, n - 0.5], title: leafTitle, ticks: [], tickLabels: [] }
       : { domain: [maxHeight * 1.04, 0], title: 'height (dissimilarity at which groups join)' },
     y: upright
       ? { domain: [0, maxHeight * 1.04], title: 'height (dissimilarity at which groups join)' }
-      : { domain: [-0.5, n - 0.5], title: '', ticks: [], tickLabels: [], reversed: true },
+      : { domain: [-0.5, n - 0.5], title: leafTitle, ticks: [], tickLabels: [], reversed: true },
   });
   const place = ([u, v]: [number, number]): [number, number] => (upright ? [f.x(u), f.y(v)] : [f.x(v), f.y(u)]);
   const body = [...f.under];
