@@ -3,6 +3,7 @@
 // in that box and rotated back, so the null model follows the data's orientation.
 import { Matrix } from '../core/matrix';
 import { Random } from '../random';
+import { symmetricEigen } from '../methods/project/eigen';
 
 export interface PrincipalBox {
   readonly cols: number;
@@ -13,55 +14,6 @@ export interface PrincipalBox {
   /** Range of the rotated rows along each axis. */
   readonly low: Float64Array;
   readonly high: Float64Array;
-}
-
-/**
- * Eigenvectors of a symmetric d × d matrix (row-major, overwritten) by cyclic Jacobi rotations.
- * d is the number of columns (small), so the simple method is accurate and quick enough.
- */
-export function symmetricEigenvectors(a: Float64Array, d: number): Float64Array {
-  const v = new Float64Array(d * d);
-  for (let i = 0; i < d; i++) v[i * d + i] = 1;
-  for (let sweep = 0; sweep < 100; sweep++) {
-    let off = 0;
-    let diag = 0;
-    for (let p = 0; p < d; p++) {
-      diag += a[p * d + p] * a[p * d + p];
-      for (let q = p + 1; q < d; q++) off += a[p * d + q] * a[p * d + q];
-    }
-    if (off <= 1e-30 * (diag + 1e-300)) break;
-    for (let p = 0; p < d - 1; p++) {
-      for (let q = p + 1; q < d; q++) {
-        const apq = a[p * d + q];
-        if (apq === 0) continue;
-        const theta = (a[q * d + q] - a[p * d + p]) / (2 * apq);
-        const t = Math.sign(theta || 1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
-        const c = 1 / Math.sqrt(t * t + 1);
-        const s = t * c;
-        for (let r = 0; r < d; r++) {
-          // columns p and q of a
-          const arp = a[r * d + p];
-          const arq = a[r * d + q];
-          a[r * d + p] = c * arp - s * arq;
-          a[r * d + q] = s * arp + c * arq;
-        }
-        for (let r = 0; r < d; r++) {
-          // rows p and q of a
-          const apr = a[p * d + r];
-          const aqr = a[q * d + r];
-          a[p * d + r] = c * apr - s * aqr;
-          a[q * d + r] = s * apr + c * aqr;
-        }
-        for (let r = 0; r < d; r++) {
-          const vrp = v[r * d + p];
-          const vrq = v[r * d + q];
-          v[r * d + p] = c * vrp - s * vrq;
-          v[r * d + q] = s * vrp + c * vrq;
-        }
-      }
-    }
-  }
-  return v;
 }
 
 /** The principal-axis box of the rows. */
@@ -80,7 +32,7 @@ export function principalBox(m: Matrix): PrincipalBox {
     }
   }
   for (let p = 0; p < d; p++) for (let q = 0; q < p; q++) cross[p * d + q] = cross[q * d + p];
-  const axes = symmetricEigenvectors(cross, d);
+  const axes = symmetricEigen(cross, d).vectors;
   const low = new Float64Array(d).fill(Infinity);
   const high = new Float64Array(d).fill(-Infinity);
   for (let i = 0; i < n; i++) {

@@ -1,5 +1,6 @@
 // The three fitting routes of `kinsort fit`, on the functional core. Each returns what the
 // definition needs (centres or medoids, the assignment) and one figure for the summary.
+import { centroids } from '../assess/segment-centres';
 import { KinsortError, checkChoice } from '../core/errors';
 import type { Matrix } from '../core/matrix';
 import { kmeans, kmedoids } from '../methods/partition';
@@ -30,22 +31,16 @@ export interface FitOutcome {
 /** Segment means and the within-segment sum of squares of an assignment. */
 export function segmentMeans(m: Matrix, assignment: Int32Array, k: number): { centers: number[][]; withinSS: number } {
   const d = m.cols;
-  const sums = new Float64Array(k * d);
-  const counts = new Float64Array(k);
-  for (let i = 0; i < m.rows; i++) {
-    const c = assignment[i];
-    counts[c]++;
-    for (let j = 0; j < d; j++) sums[c * d + j] += m.data[i * d + j];
-  }
-  const centers = Array.from({ length: k }, (_, c) => Array.from({ length: d }, (_, j) => sums[c * d + j] / counts[c]));
+  const flat = centroids(m, assignment, k);
   let withinSS = 0;
   for (let i = 0; i < m.rows; i++) {
-    const c = centers[assignment[i]];
+    const c = assignment[i] * d;
     for (let j = 0; j < d; j++) {
-      const diff = m.data[i * d + j] - c[j];
+      const diff = m.data[i * d + j] - flat[c + j];
       withinSS += diff * diff;
     }
   }
+  const centers = Array.from({ length: k }, (_, s) => Array.from(flat.subarray(s * d, (s + 1) * d)));
   return { centers, withinSS };
 }
 
