@@ -3,15 +3,14 @@
 import { writeFileSync } from 'fs';
 import { KinsortError, checkChoice } from '../core/errors';
 import { readCsvFile } from '../table';
-import { prepareTable, SCALE_METHODS, MISSING_POLICIES } from '../prepare';
-import { silhouette } from '../assess';
-import { buildDefinition } from '../segments/definition-build';
+import { SCALE_METHODS, MISSING_POLICIES } from '../prepare';
+import { LINKAGE_METHODS } from '../methods/hierarchy';
+import { study } from '../study/study';
 import { loadDefinition } from '../segments/definition-handle';
 import { writeDefinitionJson } from '../segments/definition-json';
 import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
 import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';
 import { scoredCsv } from './csv-out';
-import { fitMatrix } from './fit-methods';
 import { ASSIGN_HELP, FIT_HELP, SQL_HELP } from './help';
 
 export interface Io {
@@ -25,6 +24,16 @@ function writeFile(path: string, text: string, what: string): void {
   } catch (e) {
     throw new KinsortError(`cannot write ${what} to "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`, 'bad-input');
   }
+}
+
+/** The summary's words for each method's headline figure. */
+const OBJECTIVE_WORDS: Record<string, string> = {
+  withinSS: 'within-segment sum of squares',
+  cost: 'total distance to the medoids',
+};
+
+function refuse(message: string): never {
+  throw new KinsortError(message, 'bad-option');
 }
 
 const FIT_OPTIONS = {
@@ -58,35 +67,34 @@ export function fitCommand(args: string[], io: Io): number {
   const seed = integerOption(optionalString(values, 'seed'), 'seed', c, 0);
   const restarts = integerOption(optionalString(values, 'restarts'), 'restarts', c, 1);
 
-  const table = readCsvFile(dataPath);
-  const prepared = prepareTable(table, { id, use, keep, log, scale, missing });
-  const fit = fitMatrix(prepared.matrix, { method, k, seed, restarts, linkage: optionalString(values, 'linkage'), metric });
-  const definition = buildDefinition({
-    preparation: prepared.preparation,
-    method: { name: method, options: fit.options },
-    centers: fit.centers,
-    medoids: fit.medoids,
-    metric: fit.metric,
-    training: { ids: prepared.ids, matrix: prepared.matrix, assignment: fit.assignment },
-    note: optionalString(values, 'note'),
-  });
-  writeFile(out, writeDefinitionJson(definition), 'the definition');
+  // The same fluent calls a notebook makes, so the command and a notebook write the same file.
+  const prepared = study(readCsvFile(dataPath), { id, use, keep }).prepare({ log, scale, missing });
+  const linkage = values.linkage === undefined ? 'ward' : checkChoice(values.linkage, LINKAGE_METHODS, 'linkage');
+  const seg =
+    method === 'kmeans'
+      ? (metric === undefined || metric === 'euclidean'
+          ? prepared.kmeans({ k, seed, restarts })
+          : refuse('fit: k-means works with euclidean distance only; drop --metric or use --method kmedoids.'))
+      : method === 'kmedoids'
+        ? prepared.kmedoids({ k, metric })
+        : prepared.agglomerate({ method: linkage, metric }).cut({ k });
+  const definition = seg.definition({ note: optionalString(values, 'note') });
+  writeFile(out, definition.toJSON(), 'the definition');
 
   const report = prepared.report;
   const lines = [
-    `kinsort fit: ${report.keptRows} of ${report.inputRows} rows, ${prepared.matrix.cols} prepared feature${prepared.matrix.cols === 1 ? "" : "s"}, ${method} with k = ${k}`,
+    `kinsort fit: ${report.keptRows} of ${report.inputRows} rows, ${prepared.featureNames.length} prepared feature${prepared.featureNames.length === 1 ? "" : "s"}, ${method} with k = ${k}`,
   ];
   if (report.dropped.length > 0) {
     const shown = report.dropped.slice(0, 5).map((d) => `${d.id} (${d.reason})`).join('; ');
     lines.push(`dropped ${report.dropped.length} row(s): ${shown}${report.dropped.length > 5 ? '; …' : ''}`);
   }
   for (const imp of report.imputed) lines.push(`imputed ${imp.count} missing value(s) in ${imp.column} with ${imp.value}`);
-  lines.push(`segment sizes: ${definition.segments.map((s) => `${s.number}: ${s.size}`).join(', ')}`);
-  lines.push(fit.figure);
-  if (k >= 2 && k < prepared.matrix.rows) {
-    const silhouetteMetric = method === 'kmedoids' ? fit.metric : 'euclidean';
-    const s = silhouette(prepared.matrix, fit.assignment, { metric: silhouetteMetric });
-    lines.push(`average silhouette (${silhouetteMetric}): ${Number(s.average.toPrecision(4))}`);
+  lines.push(`segment sizes: ${definition.definition.segments.map((s) => `${s.number}: ${s.size}`).join(', ')}`);
+  lines.push(`${OBJECTIVE_WORDS[seg.objective.name] ?? seg.objective.name}: ${Number(seg.objective.value.toPrecision(6))}`);
+  if (k >= 2 && k < seg.ids.length) {
+    const silhouetteMetric = method === 'kmedoids' ? (metric ?? 'euclidean') : 'euclidean';
+    lines.push(`average silhouette (${silhouetteMetric}): ${Number(seg.silhouette().average.toPrecision(4))}`);
   }
   lines.push(`definition written to ${out}`);
   io.out(lines.join('\n') + '\n');

@@ -47,14 +47,14 @@ export class Hierarchy {
     const assignment = this.tree.cut(spec);
     let k = 0;
     for (let i = 0; i < assignment.length; i++) if (assignment[i] + 1 > k) k = assignment[i] + 1;
-    const centers = segmentMeans(this.data.matrix, assignment, k);
+    const { centers, withinSS } = segmentMeans(this.data.matrix, assignment, k);
     return new Segmentation({
       method: 'hierarchy',
       options: { ...this.options, ...spec, k },
       assignment,
       centers,
       fit: this.tree,
-      objective: { name: 'cutHeight', value: cutHeight(this.tree, k) },
+      objective: { name: 'withinSS', value: withinSS },
       data: this.data,
       dissimilarity: this.dissimilarity,
     });
@@ -81,11 +81,4 @@ export class Hierarchy {
     const d = this.dissimilarity ?? dissimilarity(this.data.matrix, { metric: (this.options.metric as 'euclidean') ?? 'euclidean' });
     return heatmapView(d, { order: this.tree.order, labels: this.data.ids, title: opts.title });
   }
-}
-
-/** The height between the (n−k)-th and the next merge: where a k-segment cut sits. */
-function cutHeight(tree: Tree, k: number): number {
-  const n = tree.size;
-  if (k >= n) return 0;
-  return tree.merges[n - k - 1].height;
 }

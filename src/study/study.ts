@@ -136,7 +136,8 @@ export class PreparedStudy {
     const fit = kmedoids(d, { k: opts.k, seed: opts.seed, onProgress: progressFor(opts.onProgress, 'k-medoids') });
     return new Segmentation({
       method: 'kmedoids',
-      options: { k: fit.k, metric, seed: opts.seed ?? 0 },
+      // PAM is deterministic: no seed shapes the result, so none is stored.
+      options: { k: fit.k, metric },
       assignment: fit.assignment,
       centers: rowsAt(this.data.matrix, fit.medoids),
       medoids: [...fit.medoids],
