@@ -93,7 +93,8 @@ export function fitCommand(args: string[], io: Io): number {
   lines.push(`segment sizes: ${definition.definition.segments.map((s) => `${s.number}: ${s.size}`).join(', ')}`);
   lines.push(`${OBJECTIVE_WORDS[seg.objective.name] ?? seg.objective.name}: ${Number(seg.objective.value.toPrecision(6))}`);
   if (k >= 2 && k < seg.ids.length) {
-    const silhouetteMetric = method === 'kmedoids' ? (metric ?? 'euclidean') : 'euclidean';
+    // The silhouette is measured in the space the fit used: k-means is always euclidean.
+    const silhouetteMetric = method === 'kmeans' ? 'euclidean' : (metric ?? 'euclidean');
     lines.push(`average silhouette (${silhouetteMetric}): ${Number(seg.silhouette().average.toPrecision(4))}`);
   }
   lines.push(`definition written to ${out}`);
