@@ -36,12 +36,12 @@ export function seedPlusPlus(
 ): void {
   const { nearest, closest, secondLower } = state;
   const cumulative = new Float64Array(n);
-  // Per trial: distances to its candidate (−1 where the triangle inequality skipped the row),
-  // so the chosen candidate's update needs no second pass of distance evaluations.
-  const trialDistances = new Float64Array(trials * n);
   const toCentres = new Float64Array(trials * k);
   const candidates = new Int32Array(trials);
   const totals = new Float64Array(trials);
+  const paddedTrials = 4 * Math.ceil(trials / 4);
+  const candidateRows = new Float64Array(paddedTrials * d);
+  const stored = new Float64Array(paddedTrials * n);
 
   const first = random.int(n);
   copyRow(data, first, d, out, 0);
@@ -64,51 +64,160 @@ export function seedPlusPlus(
       for (let e = 0; e < c; e++) toCentres[t * k + e] = squaredDistanceRows(data, candidate * d, out, e * d, d);
       totals[t] = 0;
     }
-    // All trials in one sweep over the rows: each row is read once.
-    for (let i = 0; i < n; i++) {
-      const own = closest[i];
-      const near = nearest[i];
-      const ib = i * d;
-      for (let t = 0; t < trials; t++) {
-        if (toCentres[t * k + near] >= 4 * own) {
-          trialDistances[t * n + i] = -1;
-          totals[t] += own;
-          continue;
-        }
-        const cb = candidates[t] * d;
-        let s = 0;
-        for (let j = 0; j < d; j++) {
-          const diff = data[ib + j] - data[cb + j];
-          s += diff * diff;
-        }
-        trialDistances[t * n + i] = s;
-        totals[t] += s < own ? s : own;
-      }
-    }
+    // Candidate rows side by side, padded to a multiple of four with copies of the last one.
+    for (let t = 0; t < paddedTrials; t++) copyRow(data, candidates[t < trials ? t : trials - 1], d, candidateRows, t * d);
+    measureTrials(data, n, d, k, trials, candidateRows, toCentres, closest, nearest, totals, stored, paddedTrials);
     // Strictly lower: ties keep the earlier candidate.
     let bestTrial = 0;
     for (let t = 1; t < trials; t++) if (totals[t] < totals[bestTrial]) bestTrial = t;
     copyRow(data, candidates[bestTrial], d, out, c * d);
-    const gapBase = bestTrial * k;
-    const distBase = bestTrial * n;
-    for (let i = 0; i < n; i++) {
-      const own = closest[i];
-      const s = trialDistances[distBase + i];
-      if (s < 0) {
-        const bound = Math.sqrt(toCentres[gapBase + nearest[i]]) - Math.sqrt(own);
-        if (bound < secondLower[i]) secondLower[i] = bound;
-        continue;
+    takeCandidate(n, c, stored, paddedTrials, bestTrial, toCentres, bestTrial * k, closest, nearest, secondLower);
+  }
+}
+
+/**
+ * The totals of all trials in one sweep over the rows, two rows against four candidates at a
+ * time: eight independent sums keep the adder busy and each loaded value serves several pairs,
+ * while every pair is still summed in column order (the same number as measured alone). A row a
+ * candidate cannot win by the triangle inequality (the candidate at least twice as far from the
+ * row's nearest centre as the row is) is not measured and adds its own distance. Each total is
+ * summed in row order. The measured distances are kept row by row (`stored[i × padded + t]`,
+ * one contiguous stream: four separate per-trial streams cost more in memory traffic than the
+ * measuring) for takeCandidate.
+ */
+function measureTrials(
+  data: Float64Array,
+  n: number,
+  d: number,
+  k: number,
+  trials: number,
+  candidateRows: Float64Array,
+  toCentres: Float64Array,
+  closest: Float64Array,
+  nearest: Int32Array,
+  totals: Float64Array,
+  stored: Float64Array,
+  padded: number,
+): void {
+  const sums = new Float64Array(8);
+  for (let i = 0; i < n; i += 2) {
+    // An odd last row is paired with itself; the copy's results are not used.
+    const pair = i + 1 < n;
+    const i1 = pair ? i + 1 : i;
+    const own0 = closest[i];
+    const own1 = closest[i1];
+    const near0 = nearest[i];
+    const near1 = nearest[i1];
+    const a0 = i * d;
+    const a1 = i1 * d;
+    for (let t0 = 0; t0 < trials; t0 += 4) {
+      const tEnd = t0 + 4 < trials ? t0 + 4 : trials;
+      // Bit t − t0 set: candidate t must be measured for that row.
+      let open0 = 0;
+      let open1 = 0;
+      for (let t = t0; t < tEnd; t++) {
+        const tk = t * k;
+        if (toCentres[tk + near0] < 4 * own0) open0 |= 1 << (t - t0);
+        if (pair && toCentres[tk + near1] < 4 * own1) open1 |= 1 << (t - t0);
       }
-      // Strictly closer: ties keep the earlier (lower-numbered) centre.
-      if (s < own) {
-        const previous = Math.sqrt(own);
-        if (previous < secondLower[i]) secondLower[i] = previous;
-        closest[i] = s;
-        nearest[i] = c;
-      } else {
-        const root = Math.sqrt(s);
-        if (root < secondLower[i]) secondLower[i] = root;
+      if ((open0 | open1) !== 0) {
+        const c0 = t0 * d;
+        const c1 = c0 + d;
+        const c2 = c1 + d;
+        const c3 = c2 + d;
+        let s00 = 0, s01 = 0, s02 = 0, s03 = 0; // prettier-ignore
+        let s10 = 0, s11 = 0, s12 = 0, s13 = 0; // prettier-ignore
+        for (let j = 0; j < d; j++) {
+          const x = data[a0 + j];
+          const y = data[a1 + j];
+          const v0 = candidateRows[c0 + j];
+          const v1 = candidateRows[c1 + j];
+          const v2 = candidateRows[c2 + j];
+          const v3 = candidateRows[c3 + j];
+          let e = x - v0;
+          s00 += e * e;
+          e = x - v1;
+          s01 += e * e;
+          e = x - v2;
+          s02 += e * e;
+          e = x - v3;
+          s03 += e * e;
+          e = y - v0;
+          s10 += e * e;
+          e = y - v1;
+          s11 += e * e;
+          e = y - v2;
+          s12 += e * e;
+          e = y - v3;
+          s13 += e * e;
+        }
+        sums[0] = s00;
+        sums[1] = s01;
+        sums[2] = s02;
+        sums[3] = s03;
+        sums[4] = s10;
+        sums[5] = s11;
+        sums[6] = s12;
+        sums[7] = s13;
+        const o0 = i * padded + t0;
+        stored[o0] = s00;
+        stored[o0 + 1] = s01;
+        stored[o0 + 2] = s02;
+        stored[o0 + 3] = s03;
+        if (pair) {
+          stored[o0 + padded] = s10;
+          stored[o0 + padded + 1] = s11;
+          stored[o0 + padded + 2] = s12;
+          stored[o0 + padded + 3] = s13;
+        }
       }
+      for (let t = t0; t < tEnd; t++) {
+        const bit = 1 << (t - t0);
+        let s = sums[t - t0];
+        totals[t] += (open0 & bit) !== 0 && s < own0 ? s : own0;
+        if (!pair) continue;
+        s = sums[4 + t - t0];
+        totals[t] += (open1 & bit) !== 0 && s < own1 ? s : own1;
+      }
+    }
+  }
+}
+
+/**
+ * Centre c becomes the chosen candidate: rows it wins move to it, and every row's lower bound on
+ * the distance to its other centres takes the new centre in. A row the triangle inequality
+ * skipped gets the bound from it; the others use the distance measureTrials stored.
+ */
+function takeCandidate(
+  n: number,
+  c: number,
+  stored: Float64Array,
+  padded: number,
+  chosen: number,
+  toChosen: Float64Array,
+  gapBase: number,
+  closest: Float64Array,
+  nearest: Int32Array,
+  secondLower: Float64Array,
+): void {
+  for (let i = 0; i < n; i++) {
+    const own = closest[i];
+    const gap = toChosen[gapBase + nearest[i]];
+    if (gap >= 4 * own) {
+      const bound = Math.sqrt(gap) - Math.sqrt(own);
+      if (bound < secondLower[i]) secondLower[i] = bound;
+      continue;
+    }
+    const s = stored[i * padded + chosen];
+    // Strictly closer: ties keep the earlier (lower-numbered) centre.
+    if (s < own) {
+      const previous = Math.sqrt(own);
+      if (previous < secondLower[i]) secondLower[i] = previous;
+      closest[i] = s;
+      nearest[i] = c;
+    } else {
+      const root = Math.sqrt(s);
+      if (root < secondLower[i]) secondLower[i] = root;
     }
   }
 }
