@@ -58,6 +58,8 @@ export function parseCsvText(text: string, delimiter?: string): RawColumns {
     const at = quoteError.row === undefined ? '' : ` (row starting on line ${lines[quoteError.row] ?? '?'})`;
     throw new KinsortError(`CSV: ${quoteError.message}${at}; check for an unclosed quote.`, 'bad-input');
   }
+  // A lone quote (or text papaparse reads as nothing) yields no rows at all.
+  if (rows.length === 0) throw new KinsortError('CSV input has no header row (is a quote left open?).', 'empty');
   const header = rows[0].map((h) => h.trim());
   const body = rows.slice(1);
   for (let i = 0; i < body.length; i++) {
