@@ -87,6 +87,14 @@ module.exports = { timeKinsort, timePython, timeNpm, makeRow, targetText, verdic
  */
 async function timeInterleaved(tools, { repeats, budgetMs }) {
   const results = tools.map(() => ({ times: [], note: undefined, spent: 0, done: false }));
+  // One untimed warm-up run per tool (common practice for JIT-compiled code; harmless for the
+  // others): the median then measures the computation, not the compiler's first pass over it.
+  for (let t = 0; t < tools.length; t++) {
+    if (tools[t].warmUp === false) continue;
+    const once = await tools[t].run({ repeats: 1, budgetMs: 0 });
+    if (once.note) results[t].note = once.note;
+    if (!once.times.length) results[t].done = true;
+  }
   for (let round = 0; round < repeats; round++) {
     for (let t = 0; t < tools.length; t++) {
       const result = results[t];
