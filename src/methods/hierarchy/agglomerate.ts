@@ -102,6 +102,24 @@ function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: nu
   return finish(nnChainCondensed(n, d.condensed, reducibleMethod, true, tick), true);
 }
 
+/**
+ * Ward, centroid and median linkage square the dissimilarities: beyond 1e150 the squares overflow
+ * to Infinity and the merge loop can never finish, so refuse first.
+ */
+function refuseOverflowingSquares(d: Dissimilarity, method: LinkageMethod): void {
+  const values = d.condensed;
+  for (let k = 0; k < values.length; k++) {
+    if (values[k] > 1e150) {
+      const [i, j] = pairOf(d.size, k);
+      throw new KinsortError(
+        `${WHERE}: the dissimilarity between ${nameOf(d, i)} and ${nameOf(d, j)} is ${values[k]}; ${method} linkage squares ` +
+          `dissimilarities, and beyond 1e150 the squares overflow. Rescale the dissimilarities (or the rows) first.`,
+        'bad-dissimilarity',
+      );
+    }
+  }
+}
+
 function fromDissimilarity(d: Dissimilarity, method: LinkageMethod, tick: MergeTick | undefined): Tree {
   const n = d.size;
   if (!Number.isInteger(n) || n < 2 || d.condensed.length !== (n * (n - 1)) / 2) {
@@ -123,6 +141,7 @@ function fromDissimilarity(d: Dissimilarity, method: LinkageMethod, tick: MergeT
     }
   }
   if (EUCLIDEAN_ONLY.includes(method) && d.metric !== 'euclidean') throw notEuclidean(method, `a dissimilarity with metric "${d.metric}"`);
+  if (EUCLIDEAN_ONLY.includes(method)) refuseOverflowingSquares(d, method);
   const source: PairSource = { kind: 'dissimilarity', dissimilarity: d };
   const finish = (raw: RawMerges, sorted: boolean) =>
     buildTree(sorted ? relabelSorted(n, raw) : relabelInOrder(n, raw), n, method, d.metric, source, d.labels);
