@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import {
   adjustedRandIndex, agglomerate, bootstrapStability, calinskiHarabasz, compareK, daviesBouldin, dissimilarity,
   gapStatistic, kmeans, kmeansMiniBatch, kmedoids, loadDefinition, normalizedMutualInfo, prepareTable, project,
-  readTable, silhouette, study,
+  readTable, silhouette, study, makeDissimilarity,
 } from '../../src';
 import { refusal } from './helpers';
 
@@ -61,6 +61,16 @@ describe('huge and tiny magnitudes: correct, or a clear refusal (never silent In
     ]) {
       refusal(f, 'row 1', 'column 1', '1e+300', 'rescale');
     }
+  });
+  it('a Euclidean dissimilarity of 1e300 values: Ward, centroid and median (which square it) refuse; average is exact', () => {
+    const c = [1e300, 1.7e308, 1.5e300, 3e300, 1e308, 2e300];
+    const d = makeDissimilarity(4, Float64Array.from(c), 'euclidean');
+    for (const method of ['ward', 'centroid', 'median'] as const) refusal(() => agglomerate(d, { method }), 'overflow', 'Rescale');
+    // Average linkage by hand: {0,1} at 1e300, {2,3} at 2e300, then the mean of the four cross pairs.
+    const heights = agglomerate(d, { method: 'average' }).merges.map((m) => m.height);
+    expect(heights[0]).toBe(1e300);
+    expect(heights[1]).toBe(2e300);
+    expect(heights[2] / 1e307).toBeCloseTo((1.7e308 / 4 + 1.5e300 / 4 + 3e300 / 4 + 1e308 / 4) / 1e307, 9);
   });
   it('rows whose largest value is 1e-300 are refused (squared differences would all be 0)', () => {
     expect(TINY[0][0]).toBe(1e-300);
