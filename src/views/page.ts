@@ -1,11 +1,21 @@
 // Several views on one offline page (a report): the plotting bundle is inlined once for all.
 import * as fs from 'fs';
 import * as path from 'path';
+import { KinsortError } from '../core/errors';
 import { escapeHtml } from './escape';
 import { plottingScript } from '../notebook/plotting';
 import type { View } from './view';
 
 export function viewsPage(title: string, views: readonly View[], intro?: string): string {
+  if (!Array.isArray(views) || views.some((v) => typeof (v as Partial<View> | null)?.fragment !== 'function')) {
+    const bad = Array.isArray(views) ? views.findIndex((v) => typeof (v as Partial<View> | null)?.fragment !== 'function') + 1 : 0;
+    throw new KinsortError(
+      Array.isArray(views)
+        ? `viewsPage: item ${bad} of the views is not a view (build it with one of the view functions, or call .view() on a result).`
+        : 'viewsPage: give a list of views, e.g. [seg.cards(), seg.projection()].',
+      'bad-argument',
+    );
+  }
   return (
     `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width">` +
     `<title>${escapeHtml(title)}</title>${plottingScript()}</head>` +
