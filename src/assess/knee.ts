@@ -30,6 +30,9 @@ export function findKnee(xs: ArrayLike<number>, values: ArrayLike<number>, optio
   const direction = checkChoice(opts.direction ?? 'decreasing', KNEE_DIRECTIONS, `${where} direction`);
   const curve = checkChoice(opts.curve ?? 'convex', KNEE_CURVES, `${where} curve`);
   const sensitivity = checkNumber(opts.sensitivity ?? 1, `${where}: sensitivity`, 0);
+  if (!isArrayLike(xs) || !isArrayLike(values)) {
+    throw new KinsortError(`${where}: give the x values and the curve values as two lists of numbers, e.g. findKnee([2, 3, 4], [90, 40, 35]).`, 'bad-argument');
+  }
   const n = xs.length;
   if (values.length !== n) {
     throw new KinsortError(`${where}: ${n} x values but ${values.length} curve values; give one value per x.`, 'bad-input');
@@ -75,4 +78,8 @@ export function findKnee(xs: ArrayLike<number>, values: ArrayLike<number>, optio
     }
   }
   return { knee: null, normalizedDifference: difference };
+}
+
+function isArrayLike(value: unknown): value is ArrayLike<number> {
+  return Array.isArray(value) || ArrayBuffer.isView(value);
 }
