@@ -40,7 +40,11 @@ export function definitionHandle(definition: SegmentDefinition): DefinitionHandl
     toJSON: () => writeDefinitionJson(definition),
     save(path: string) {
       if (typeof path !== 'string' || path === '') throw new KinsortError('save: give a file path.', 'bad-argument');
-      writeFileSync(path, writeDefinitionJson(definition), 'utf8');
+      try {
+        writeFileSync(path, writeDefinitionJson(definition), 'utf8');
+      } catch (e) {
+        throw new KinsortError(`save: cannot write "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`, 'bad-input');
+      }
     },
     matchesTraining(ids, rows) {
       const m = toMatrix(rows as Matrix, { what: 'matchesTraining: rows' });
