@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import {
   adjustedRandIndex, agglomerate, bootstrapStability, calinskiHarabasz, compareK, daviesBouldin, dissimilarity,
   gapStatistic, kmeans, kmeansMiniBatch, kmedoids, loadDefinition, normalizedMutualInfo, prepareTable, project,
-  readTable, silhouette, study, makeDissimilarity,
+  readTable, silhouette, study, makeDissimilarity, findKnee, viewsPage,
 } from '../../src';
 import { refusal } from './helpers';
 
@@ -241,5 +241,19 @@ describe('damaged definition files', () => {
     refusal(() => loadDefinition(''), /definition|empty|JSON/);
     refusal(() => loadDefinition(null as never), 'give a file path');
     refusal(() => loadDefinition('/nonexistent/kinsort-def.json'), 'cannot read', 'ENOENT');
+  });
+});
+
+describe('misused entry points (plain JavaScript callers) refuse instead of crashing', () => {
+  it('viewsPage without a list of views, or with something that is not a view', () => {
+    refusal(() => viewsPage('t', null as never), 'list of views');
+    refusal(() => viewsPage('t', [{}] as never), 'item 1');
+  });
+  it('findKnee given one list instead of two', () => {
+    refusal(() => (findKnee as (xs: number[]) => unknown)([1, 2, 3]), 'two lists');
+  });
+  it('saving a definition where it cannot be written names the path', () => {
+    const def = study([{ a: 1 }, { a: 2 }, { a: 4 }]).prepare().kmeans({ k: 2 }).definition();
+    refusal(() => def.save('/proc/kinsort-cannot-write/def.json'), 'cannot write', '/proc/kinsort-cannot-write/def.json');
   });
 });
