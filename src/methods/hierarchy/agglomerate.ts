@@ -7,7 +7,7 @@ import { KinsortError, checkChoice } from '../../core/errors';
 import { Matrix, RowsInput, isMatrix, toMatrix } from '../../core/matrix';
 import { checkOptions } from '../../core/options';
 import { ProgressCallback } from '../../core/progress';
-import { Dissimilarity, isDissimilarity, pairOf } from '../../measure/condensed';
+import { Dissimilarity, guardPairwise, isDissimilarity, pairOf } from '../../measure/condensed';
 import { dissimilarity } from '../../measure/dissimilarity';
 import { MetricName, ROW_METRICS, checkExponent, distanceFunction } from '../../measure/metrics';
 import { genericLinkage, matrixSpace, vectorSpace } from './generic';
@@ -93,6 +93,8 @@ function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: nu
     return finish(raw, true);
   }
   const reducibleMethod = method as ReducibleMethod;
+  // Both routes below hold at least the condensed matrix: ask the memory budget first.
+  guardPairwise(n, WHERE);
   if (metric === 'euclidean' && n * n * 8 <= FULL_MATRIX_LIMIT_BYTES) {
     // A full n × n array makes every chain scan contiguous; worth its double memory while it fits.
     const full = allocateOrUndefined(() => fullEuclidean(n, dims, data));
