@@ -32,11 +32,9 @@ describe('over the budget: refused before allocating, with the size and the alte
       refusal(() => agglomerate(rows, { method, metric: 'manhattan' }), ...SIZE);
     }
   });
-  // Found by this suite: Euclidean rows under 1 GiB take a full n × n array (agglomerate.ts,
-  // fromRows) without asking guardPairwise, so a lowered budget is ignored. Reported to the
-  // hierarchy owner; enable this once that route checks the budget.
-  it.skip('agglomerate with average linkage on Euclidean rows (full-array route) respects the budget', () => {
-    refusal(() => agglomerate(rows, { method: 'average' }), ...SIZE);
+  // Found by this suite: the full-array route for Euclidean rows once skipped the budget check.
+  it('agglomerate with average, complete and weighted linkage on Euclidean rows (full-array route) respects the budget', () => {
+    for (const method of ['average', 'complete', 'weighted'] as const) refusal(() => agglomerate(rows, { method }), ...SIZE);
   });
   it('the fluent layer: kmedoids, average linkage and the dissimilarity', () => {
     const s = study(rows.map((r, i) => ({ id: `r${i}`, a: r[0], b: r[1], c: r[2] })), { id: 'id' }).prepare();
