@@ -9,6 +9,7 @@ import { dissimilarity } from '../measure/dissimilarity';
 import { dendrogramView, heatmapView, HEATMAP_MAX_ROWS, type View } from '../views';
 import { Segmentation } from './segmentation';
 import { segmentMeans } from './centres';
+import { installWrongStepGuards, SEGMENTATION_CALLS, type CutTheTreeFirst } from './wrong-step';
 
 export class Hierarchy {
   readonly tree: Tree;
@@ -16,6 +17,21 @@ export class Hierarchy {
   /** The dissimilarity the tree was built on, when it was built on one. */
   readonly dissimilarity?: Dissimilarity;
   private readonly options: Record<string, unknown>;
+
+  // Segment calls asked of the uncut tree: typed as markers, they throw saying to cut first.
+  declare readonly name: CutTheTreeFirst;
+  declare readonly names: CutTheTreeFirst;
+  declare readonly cards: CutTheTreeFirst;
+  declare readonly projection: CutTheTreeFirst;
+  declare readonly silhouette: CutTheTreeFirst;
+  declare readonly stability: CutTheTreeFirst;
+  declare readonly profiles: CutTheTreeFirst;
+  declare readonly compare: CutTheTreeFirst;
+  declare readonly writeUp: CutTheTreeFirst;
+  declare readonly definition: CutTheTreeFirst;
+  declare readonly assign: CutTheTreeFirst;
+  declare readonly members: CutTheTreeFirst;
+  declare readonly segmentOf: CutTheTreeFirst;
 
   constructor(tree: Tree, data: PreparedData, options: Record<string, unknown>, used?: Dissimilarity) {
     this.tree = tree;
@@ -82,3 +98,9 @@ export class Hierarchy {
     return heatmapView(d, { order: this.tree.order, labels: this.data.ids, title: opts.title });
   }
 }
+
+installWrongStepGuards(Hierarchy.prototype, SEGMENTATION_CALLS, (name, tree) =>
+  `${name}: a hierarchy is a tree of ${tree.data.ids.length} rows, not yet segments. Cut it first, ` +
+    `then ask the segmentation: tree.cut({ k: 4 }).${name}(…) for a number of segments, or ` +
+    `tree.cut({ height: … }).${name}(…) at a height (tree.dendrogram() shows the heights).`,
+);

@@ -21,6 +21,7 @@ import { profileCardsView, projectionView, silhouetteView, type View } from '../
 import { showable, type Showable } from './showable';
 import { writeUpMarkdown, type WriteUpContext } from '../segments/write-up';
 import { writeUpPage } from '../views/write-up-page';
+import { HIERARCHY_CALLS, installWrongStepGuards, type AskTheHierarchyInstead } from './wrong-step';
 
 export interface SegmentName {
   title?: string;
@@ -70,6 +71,12 @@ export class Segmentation {
   private projectionCache?: Projection;
   private stabilityCache?: StabilityResult;
   private indexById?: Map<string, number>;
+
+  // Hierarchy calls asked of a segmentation: typed as markers, they throw naming the right object.
+  declare readonly dendrogram: AskTheHierarchyInstead;
+  declare readonly heatmap: AskTheHierarchyInstead;
+  declare readonly cut: AskTheHierarchyInstead;
+  declare readonly copheneticCorrelation: AskTheHierarchyInstead;
 
   constructor(parts: SegmentationParts) {
     this.method = parts.method;
@@ -309,3 +316,12 @@ export class Segmentation {
     if (this.k < 2) throw new KinsortError(`${where} needs at least 2 segments; this segmentation has ${this.k}.`, 'bad-assignment');
   }
 }
+
+installWrongStepGuards(Segmentation.prototype, HIERARCHY_CALLS, (name, seg) => {
+  const example = name === 'dendrogram' ? `tree.dendrogram({ k: ${seg.k} })` : `tree.${name}(…)`;
+  return seg.method === 'hierarchy'
+    ? `${name}: this is the segmentation cut from a hierarchy (k = ${seg.k}); ${name}() belongs to the hierarchy ` +
+        `itself. Keep the tree in a variable (const tree = prepared.agglomerate({ method: 'ward' })) and ask it: ${example}.`
+    : `${name}: this is a ${seg.method} segmentation (k = ${seg.k}); ${name}() belongs to a hierarchy. Build one ` +
+        `from the same prepared study, const tree = prepared.agglomerate({ method: 'ward' }), and ask it: ${example}.`;
+});

@@ -18,6 +18,7 @@ import { showable, type Showable } from './showable';
 import { Segmentation } from './segmentation';
 import { Hierarchy } from './hierarchy';
 import { rowsAt } from './centres';
+import { installWrongStepGuards, PREPARED_STUDY_CALLS, type PrepareTheStudyFirst } from './wrong-step';
 
 /** Which columns play which part. */
 export interface StudyRoles {
@@ -46,6 +47,14 @@ export function study(input: unknown, roles: StudyRoles = {}): Study {
 }
 
 export class Study {
+  // Asked of a study before .prepare(): typed as markers, they throw saying to prepare first.
+  declare readonly dissimilarity: PrepareTheStudyFirst;
+  declare readonly compareK: PrepareTheStudyFirst;
+  declare readonly kmeans: PrepareTheStudyFirst;
+  declare readonly kmedoids: PrepareTheStudyFirst;
+  declare readonly agglomerate: PrepareTheStudyFirst;
+  declare readonly project: PrepareTheStudyFirst;
+
   constructor(readonly table: Table, readonly roles: StudyRoles) {}
 
   /** Column names with their inferred types and how many values are missing. */
@@ -64,6 +73,12 @@ export class Study {
     return new PreparedStudy(data);
   }
 }
+
+installWrongStepGuards(Study.prototype, PREPARED_STUDY_CALLS, (name) =>
+  `${name}: this study is not prepared yet. Call .prepare() on it first, e.g. ` +
+    `study(table, { id, use }).prepare({ scale: 'zscore', missing: 'median' }).${name}(…); ` +
+    `the preparation fixes the scaling and missing-value policy that every method and the definition use.`,
+);
 
 /** Progress shown in place inside the notebook kernel, unless the caller gave its own callback. */
 function progressFor(given: ProgressCallback | undefined, title: string): ProgressCallback | undefined {
