@@ -20,6 +20,7 @@ function fail(where: string, message: string): never {
 
 function typeName(v: unknown): string {
   if (v === null) return 'null';
+  if (v === undefined) return 'missing';
   if (Array.isArray(v)) return 'an array';
   if (typeof v === 'number' && !Number.isFinite(v)) return String(v);
   return typeof v === 'object' ? 'an object' : `${typeof v} ${JSON.stringify(v)}`.slice(0, 70);
