@@ -98,6 +98,9 @@ export class Segmentation {
   /** Give segment `segment` (1..k, as printed) a title and a write-up; returns this for chaining. */
   name(segment: number, name: SegmentName): this {
     this.checkSegment(segment, 'name');
+    if (name === null || typeof name !== 'object') {
+      throw new KinsortError(`name: give the segment's name as { title, text }, e.g. seg.name(${segment}, { title: 'Weekday commuters' }).`, 'bad-option');
+    }
     const opts = checkOptions(name, NAME_OPTIONS, 'name');
     for (const key of NAME_OPTIONS) {
       const v = (opts as Record<string, unknown>)[key];

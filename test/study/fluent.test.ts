@@ -95,6 +95,8 @@ describe('a segmentation', () => {
     expect(() => seg.segmentOf('nobody')).toThrow(/no prepared row has id "nobody"/);
     expect(() => seg.name(4, { title: 'x' })).toThrow(/segment number must be a whole number from 1 to 3/);
     expect(() => seg.name(1, { titel: 'x' } as never)).toThrow(/Did you mean "title"/);
+    expect(() => seg.name(1, null as never)).toThrow(/give the segment's name as \{ title, text \}/);
+    expect(() => seg.name(1, 'Commuters' as never)).toThrow(/give the segment's name as/);
   });
 
   it('carries names into profiles, the write-up and the definition file', () => {
