@@ -32,6 +32,27 @@ const OBJECTIVE_WORDS: Record<string, string> = {
   cost: 'total distance to the medoids',
 };
 
+/** A choice given on the command line: the error names the command and the flag the user typed. */
+function flagChoice<T extends string>(command: string, flag: string, value: unknown, allowed: readonly T[], what: string): T {
+  try {
+    return checkChoice(value, allowed, what);
+  } catch (e) {
+    if (!(e instanceof KinsortError)) throw e;
+    const known = flag === 'metric' && !(allowed as readonly string[]).includes(String(value)) ? METRIC_ELSEWHERE[String(value)] ?? '' : '';
+    throw new KinsortError(`${command} --${flag}: ${e.message}${known}`, e.code);
+  }
+}
+
+// Metrics the library has but a definition file cannot carry: say so, and where they do work.
+const METRIC_ELSEWHERE: Record<string, string> = {
+  gower:
+    ' Gower k-medoids runs in the fluent layer (prepared.kmedoids({ k, metric: \'gower\' })), but a definition file assigns new rows and writes SQL with the metrics above only.',
+  cosine: ' A definition file assigns new rows and writes SQL with the metrics above only.',
+  correlation: ' A definition file assigns new rows and writes SQL with the metrics above only.',
+  chebyshev: ' A definition file assigns new rows and writes SQL with the metrics above only.',
+  minkowski: ' A definition file assigns new rows and writes SQL with the metrics above only.',
+};
+
 function refuse(message: string): never {
   throw new KinsortError(message, 'bad-option');
 }
@@ -48,16 +69,16 @@ export function fitCommand(args: string[], io: Io): number {
   const { values, positionals } = parseCommandArgs(c, args, FIT_OPTIONS);
   if (values.help) return io.out(FIT_HELP), 0;
   const [dataPath] = exactPositionals(positionals, ['DATA.csv'], c);
-  const method = checkChoice(requireString(values, 'method', c), DEFINITION_METHODS, 'method');
+  const method = flagChoice(c, 'method', requireString(values, 'method', c), DEFINITION_METHODS, 'method');
   const k = integerOption(requireString(values, 'k', c), 'k', c, 1)!;
   const out = requireString(values, 'out', c);
   const id = requireString(values, 'id', c);
   const use = listOption(requireString(values, 'use', c), 'use', c);
   const keep = values.keep === undefined ? undefined : listOption(optionalString(values, 'keep')!, 'keep', c);
   const log = values.log === undefined ? undefined : listOption(optionalString(values, 'log')!, 'log', c);
-  const scale = values.scale === undefined ? undefined : checkChoice(values.scale, SCALE_METHODS, 'scale');
-  const missing = values.missing === undefined ? undefined : checkChoice(values.missing, MISSING_POLICIES, 'missing-value policy');
-  const metric = values.metric === undefined ? undefined : checkChoice(values.metric, DEFINITION_METRICS, 'metric');
+  const scale = values.scale === undefined ? undefined : flagChoice(c, 'scale', values.scale, SCALE_METHODS, 'scale');
+  const missing = values.missing === undefined ? undefined : flagChoice(c, 'missing', values.missing, MISSING_POLICIES, 'missing-value policy');
+  const metric = values.metric === undefined ? undefined : flagChoice(c, 'metric', values.metric, DEFINITION_METRICS, 'metric');
   if (values.linkage !== undefined && method !== 'hierarchy') {
     throw new KinsortError(`fit: --linkage applies to --method hierarchy only.`, 'bad-option');
   }
@@ -69,7 +90,7 @@ export function fitCommand(args: string[], io: Io): number {
 
   // The same fluent calls a notebook makes, so the command and a notebook write the same file.
   const prepared = study(readCsvFile(dataPath), { id, use, keep }).prepare({ log, scale, missing });
-  const linkage = values.linkage === undefined ? 'ward' : checkChoice(values.linkage, LINKAGE_METHODS, 'linkage');
+  const linkage = values.linkage === undefined ? 'ward' : flagChoice(c, 'linkage', values.linkage, LINKAGE_METHODS, 'linkage');
   const seg =
     method === 'kmeans'
       ? (metric === undefined || metric === 'euclidean'
