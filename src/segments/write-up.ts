@@ -31,6 +31,19 @@ export function markdownText(value: unknown): string {
     .replace(/^(\s*)(\d+)([.)])/, '$1$2\\$3');
 }
 
+// The evidence keys are code names (they are also the definition file's keys); a reader gets words.
+const FIGURE_WORDS: Record<string, string> = {
+  withinSS: 'Within-segment sum of squares',
+  cost: 'Total distance to the medoids',
+  averageSilhouette: 'Average silhouette',
+  stabilityJaccard: 'Bootstrap stability (Jaccard), segment 1 first',
+};
+
+/** The reader's words for an evidence figure; an unknown key is shown as given. */
+export function figureWords(name: string): string {
+  return FIGURE_WORDS[name] ?? name;
+}
+
 export function formatFigure(value: unknown): string {
   if (typeof value === 'number') return Number.isInteger(value) ? String(value) : value.toPrecision(4);
   if (Array.isArray(value)) return value.map(formatFigure).join(', ');
@@ -60,7 +73,7 @@ export function writeUpMarkdown(profiles: readonly SegmentProfile[], context: Wr
   const figures = Object.entries(context.evidence);
   if (figures.length) {
     lines.push('## Evidence', '');
-    for (const [name, value] of figures) lines.push(`- ${markdownText(name)}: ${formatFigure(value)}`);
+    for (const [name, value] of figures) lines.push(`- ${markdownText(figureWords(name))}: ${formatFigure(value)}`);
     lines.push('');
   }
   for (const p of profiles) {

@@ -1,7 +1,7 @@
 // The write-up as one standalone offline HTML page: how the segments were made, the evidence,
 // the cards, and the caution. Every piece of text from data is escaped here or in the cards.
 import type { SegmentProfile } from '../segments/profile';
-import { formatFigure, WRITE_UP_CAUTION, type WriteUpContext } from '../segments/write-up';
+import { figureWords, formatFigure, WRITE_UP_CAUTION, type WriteUpContext } from '../segments/write-up';
 import { escapeHtml } from './escape';
 import type { View } from './view';
 
@@ -17,7 +17,7 @@ export function writeUpPage(profiles: readonly SegmentProfile[], context: WriteU
     ['Rows segmented', String(r.keptRows)],
     ['Rows dropped (missing values)', String(r.dropped.length)],
     ['Segments', String(profiles.length)],
-    ...Object.entries(context.evidence).map(([name, value]) => [name, formatFigure(value)]),
+    ...Object.entries(context.evidence).map(([name, value]) => [figureWords(name), formatFigure(value)]),
   ];
   const figures = rows.map(([a, b]) => `<tr><th>${escapeHtml(a)}</th><td>${escapeHtml(b)}</td></tr>`).join('');
   return (
