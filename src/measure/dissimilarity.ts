@@ -4,7 +4,7 @@ import { Matrix, RowsInput, rowName, toMatrix } from '../core/matrix';
 import { MixedTable, isMixedTable } from '../core/mixed';
 import { checkOptions } from '../core/options';
 import { Dissimilarity, guardPairwise, makeDissimilarity } from './condensed';
-import { sharedOutput, squaredDifferencesShared } from './parallel';
+import { euclideanCondensed } from './parallel';
 import { gowerDissimilarity } from './gower';
 import {
   MetricName,
@@ -56,11 +56,12 @@ export function dissimilarity(input: RowsInput | MixedTable, options?: Dissimila
   guardPairwise(m.rows, WHERE);
   const pairs = (m.rows * (m.rows - 1)) / 2;
   const fast = (metric === 'euclidean' || metric === 'sqeuclidean') && !weights;
-  // The euclidean path may share its work with a worker thread, so its output lives in shared memory.
-  const out = fast ? sharedOutput(m.rows, pairs) : new Float64Array(pairs);
   if (fast) {
-    squaredDifferencesShared(m.data, m.rows, m.cols, out, metric === 'euclidean');
-  } else if (metric === 'cosine') {
+    // May run as WebAssembly and share its work with a worker thread (output in shared memory).
+    return makeDissimilarity(m.rows, euclideanCondensed(m.data, m.rows, m.cols, metric === 'euclidean'), metric, m.rowLabels);
+  }
+  const out = new Float64Array(pairs);
+  if (metric === 'cosine') {
     cosineInto(m, m.data, out, 'cosine');
   } else if (metric === 'correlation') {
     cosineInto(m, centredRows(m), out, 'correlation');

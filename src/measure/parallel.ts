@@ -1,11 +1,19 @@
-// Sharing the euclidean pair loop with one worker thread, synchronously: the output and a chunk
-// counter live in shared memory, both threads claim row chunks until none are left, and the
-// calling thread waits on the counter. If the worker is slow to start (or never starts) the
-// calling thread simply claims every chunk itself, so the result never depends on the worker.
+// The euclidean pair loop, on the calling thread or shared with one worker thread,
+// synchronously: the output and a chunk counter live in shared memory, both threads claim row
+// chunks until none are left, and the calling thread waits on the counter. If the worker is slow
+// to start (or never starts) the calling thread simply claims every chunk itself, so the result
+// never depends on the worker. The loop runs as WebAssembly (wasmPairs.ts) where available and
+// as plain JavaScript (euclideanKernel.ts) otherwise; both give the same numbers.
 import { finish, pairSum, squaredDifferencesRows } from './euclideanKernel';
+import { fillPairsInputs, instantiatePairs, pairsLayout, pairsModule, pairsRowsWasm } from './wasmPairs';
 
-/** Below this many rows a worker's start-up (tens of ms) costs more than it saves. */
+/** Below this many rows a worker's hand-over costs more than it saves. */
 const MIN_ROWS_FOR_WORKER = 3000;
+/**
+ * Below this many rows the JavaScript loop is used: the time saved is small, and each
+ * WebAssembly memory reserves address space while its result lives.
+ */
+const MIN_ROWS_FOR_WASM = 1000;
 const CHUNKS = 48;
 
 let threadsWanted = defaultThreads();
@@ -32,41 +40,97 @@ export function setDissimilarityThreads(count: 1 | 2): number {
   return previous;
 }
 
-/** The condensed output, in shared memory when a worker may write into it. */
-export function sharedOutput(n: number, pairs: number): Float64Array {
-  if (threadsWanted > 1 && n >= MIN_ROWS_FOR_WORKER && typeof SharedArrayBuffer === 'function') {
-    return new Float64Array(new SharedArrayBuffer(pairs * 8));
-  }
-  return new Float64Array(pairs);
+let wasmWanted = true;
+
+/** @internal Use the WebAssembly loop (default) or the JavaScript one (tests compare them). Returns the previous setting. */
+export function setDissimilarityWasm(use: boolean): boolean {
+  const previous = wasmWanted;
+  wasmWanted = use;
+  return previous;
 }
 
-export function squaredDifferencesShared(data: Float64Array, n: number, d: number, out: Float64Array, root: boolean): void {
-  const worker = out.buffer instanceof ArrayBuffer ? undefined : startWorker();
-  if (!worker) {
+let lastShare = { chunks: 0, byWorker: 0, wasm: false };
+
+/** How the last euclidean run was split, and whether it ran as WebAssembly (for benchmarks and diagnostics). */
+export function lastDissimilarityShare(): { chunks: number; byWorker: number; wasm: boolean } {
+  return { ...lastShare };
+}
+
+/** Euclidean (root) or squared euclidean distances of all pairs of rows, condensed. */
+export function euclideanCondensed(data: Float64Array, n: number, d: number, root: boolean): Float64Array {
+  const pairs = (n * (n - 1)) / 2;
+  const shareWork = threadsWanted > 1 && n >= MIN_ROWS_FOR_WORKER && typeof SharedArrayBuffer === 'function';
+  const module = wasmWanted && n >= MIN_ROWS_FOR_WASM ? pairsModule(shareWork) : undefined;
+  const layout = module ? pairsLayout(n, d) : undefined;
+  if (module && layout) {
+    // One memory holds the output (first, so the result is a view from offset 0) and the rows;
+    // it is shared only when a worker may write into it.
+    const { memory, pairs: measure } = instantiatePairs(module, layout, shareWork);
+    const view = new Float64Array(memory.buffer);
+    fillPairsInputs(view, data, n, d, layout);
+    const job: WasmJob = { kind: 'wasm', module, memory, n, d, root, dataAt: layout.dataAt, pairedAt: layout.pairedAt };
+    runChunks(n, shareWork ? job : undefined, (from, to) => pairsRowsWasm(measure, view, n, d, root, layout.dataAt, layout.pairedAt, from, to));
+    lastShare.wasm = true;
+    const out = new Float64Array(memory.buffer, 0, pairs);
+    // Many columns and few rows: the copies of the rows would outweigh the result; keep only the result.
+    return layout.bytes - pairs * 8 > pairs + 65536 ? out.slice() : out;
+  }
+  if (!shareWork) {
+    const out = new Float64Array(pairs);
     squaredDifferencesRows(data, n, d, out, root, 0, n);
+    lastShare = { chunks: 0, byWorker: 0, wasm: false };
+    return out;
+  }
+  const out = new Float64Array(new SharedArrayBuffer(pairs * 8));
+  const shared = new Float64Array(new SharedArrayBuffer(data.length * 8));
+  shared.set(data);
+  const job: ScriptJob = { kind: 'script', data: shared, out, n, d, root };
+  runChunks(n, job, (from, to) => squaredDifferencesRows(shared, n, d, out, root, from, to));
+  lastShare.wasm = false;
+  return out;
+}
+
+interface WasmJob {
+  kind: 'wasm';
+  module: WebAssembly.Module;
+  memory: WebAssembly.Memory;
+  n: number;
+  d: number;
+  root: boolean;
+  dataAt: number;
+  pairedAt: number;
+}
+
+interface ScriptJob {
+  kind: 'script';
+  data: Float64Array;
+  out: Float64Array;
+  n: number;
+  d: number;
+  root: boolean;
+}
+
+/** Rows in chunks of about equal pair counts, claimed by this thread and (when given a job) the worker. */
+function runChunks(n: number, job: WasmJob | ScriptJob | undefined, rows: (from: number, to: number) => void): void {
+  const thread = job ? pooledWorker() : undefined;
+  if (!job || !thread) {
+    rows(0, n);
+    lastShare = { chunks: 0, byWorker: 0, wasm: false };
     return;
   }
   const bounds = chunkBounds(n);
-  const shared = new Float64Array(new SharedArrayBuffer(data.length * 8));
-  shared.set(data);
+  const chunks = bounds.length - 1;
   // control[0]: next chunk to claim; control[1]: chunks finished; control[2]: chunks the worker did.
   const control = new Int32Array(new SharedArrayBuffer(12));
-  const chunks = bounds.length - 1;
-  let thread;
   try {
-    thread = new worker.Worker(WORKER_SOURCE, {
-      eval: true,
-      workerData: { data: shared, out, control, bounds, n, d, root },
-    });
-    thread.unref();
-    thread.on('error', () => undefined); // the calling thread finishes any chunk the worker leaves
+    thread.postMessage({ ...job, bounds, control });
   } catch {
-    thread = undefined;
+    // The worker cannot take this job: the loop below claims every chunk.
   }
   for (;;) {
     const c = Atomics.add(control, 0, 1);
     if (c >= chunks) break;
-    squaredDifferencesRows(shared, n, d, out, root, bounds[c], bounds[c + 1]);
+    rows(bounds[c], bounds[c + 1]);
     Atomics.add(control, 1, 1);
   }
   // Wait for the chunk the worker may still be on.
@@ -75,15 +139,7 @@ export function squaredDifferencesShared(data: Float64Array, n: number, d: numbe
     if (done >= chunks) break;
     Atomics.wait(control, 1, done, 50);
   }
-  if (thread) void thread.terminate();
-  lastShare = { chunks, byWorker: Atomics.load(control, 2) };
-}
-
-let lastShare = { chunks: 0, byWorker: 0 };
-
-/** How the last shared euclidean run was split (for benchmarks and diagnostics). */
-export function lastDissimilarityShare(): { chunks: number; byWorker: number } {
-  return { ...lastShare };
+  lastShare = { chunks, byWorker: Atomics.load(control, 2), wasm: false };
 }
 
 /** Even row boundaries splitting the pairs into roughly equal chunks (row i has n − i − 1 pairs). */
@@ -93,7 +149,7 @@ function chunkBounds(n: number): Int32Array {
   let pairs = 0;
   let next = total / CHUNKS;
   for (let i = 0; i < n; i += 2) {
-    pairs += (n - i - 1) + (n - i - 2);
+    pairs += n - i - 1 + (n - i - 2);
     if (pairs >= next && i + 2 < n) {
       bounds.push(i + 2);
       next = (total * bounds.length) / CHUNKS;
@@ -103,33 +159,58 @@ function chunkBounds(n: number): Int32Array {
   return Int32Array.from(bounds);
 }
 
-type WorkerThreads = typeof import('worker_threads');
+// One worker, started on first use and kept for later calls (a notebook computes many matrices),
+// so its start-up is paid once. It is unref'd: it never keeps the process alive. If it fails,
+// the calling thread simply does every chunk.
+let pooled: import('worker_threads').Worker | undefined;
+let pooledFailed = false;
 
-function startWorker(): WorkerThreads | undefined {
+function pooledWorker(): import('worker_threads').Worker | undefined {
+  if (pooled || pooledFailed) return pooled;
   try {
     // eslint-disable-next-line @typescript-eslint/no-var-requires
-    return require('worker_threads') as WorkerThreads;
+    const { Worker } = require('worker_threads') as typeof import('worker_threads');
+    const worker = new Worker(WORKER_SOURCE, { eval: true });
+    worker.unref();
+    const drop = () => {
+      if (pooled === worker) pooled = undefined;
+    };
+    worker.on('error', drop);
+    worker.on('exit', drop);
+    pooled = worker;
   } catch {
-    return undefined;
+    pooledFailed = true;
   }
+  return pooled;
 }
 
-// The worker runs the same kernel source (compiled JS under dist/, transformed TS under vitest),
+// The worker runs the same loop sources (compiled JS under dist/, transformed TS under vitest),
 // so both threads compute every pair identically.
 const WORKER_SOURCE = `
 'use strict';
-const { workerData } = require('worker_threads');
+const { parentPort } = require('worker_threads');
 ${pairSum.toString()}
 ${finish.toString()}
 ${squaredDifferencesRows.toString()}
-const { data, out, control, bounds, n, d, root } = workerData;
-const chunks = bounds.length - 1;
-for (;;) {
-  const c = Atomics.add(control, 0, 1);
-  if (c >= chunks) break;
-  ${squaredDifferencesRows.name}(data, n, d, out, root, bounds[c], bounds[c + 1]);
-  Atomics.add(control, 2, 1);
-  Atomics.add(control, 1, 1);
-  Atomics.notify(control, 1);
-}
+${pairsRowsWasm.toString()}
+parentPort.on('message', (job) => {
+  const { n, d, root, bounds, control } = job;
+  let rows;
+  if (job.kind === 'wasm') {
+    const instance = new WebAssembly.Instance(job.module, { env: { memory: job.memory } });
+    const view = new Float64Array(job.memory.buffer);
+    rows = (from, to) => ${pairsRowsWasm.name}(instance.exports.pairs, view, n, d, root, job.dataAt, job.pairedAt, from, to);
+  } else {
+    rows = (from, to) => ${squaredDifferencesRows.name}(job.data, n, d, job.out, root, from, to);
+  }
+  const chunks = bounds.length - 1;
+  for (;;) {
+    const c = Atomics.add(control, 0, 1);
+    if (c >= chunks) break;
+    rows(bounds[c], bounds[c + 1]);
+    Atomics.add(control, 2, 1);
+    Atomics.add(control, 1, 1);
+    Atomics.notify(control, 1);
+  }
+});
 `;

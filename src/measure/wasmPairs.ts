@@ -1,0 +1,229 @@
+// The euclidean pair loop as a small WebAssembly function using two-lane float64 vectors
+// (f64x2): each lane is a different pair, summed in column order from 0 with separate multiply
+// and add (WebAssembly has no fused multiply-add here), so every value is bit for bit the number
+// the plain JavaScript kernel gives — only about twice as fast, since one instruction serves two
+// pairs and WebAssembly loads carry no bounds checks.
+//
+// The module is assembled here from its instructions (no build step, no binary file). Its one
+// function, `pairs`, measures two rows (a0, a1) against `count` groups of four later rows and
+// writes the eight results to out0 / out1 (row a0's and row a1's next output slots):
+//
+//   pairs(a0, a1, p, count, rowBytes, out0, out1, root)
+//     for each group: acc[4] = 0
+//       for u = 0, 8, …, rowBytes − 8:
+//         x = splat(f64 at a0 + u), y = splat(f64 at a1 + u)
+//         P1 = f64x2 at p + 2u            (rows j, j+1 column u/8, interleaved)
+//         P2 = f64x2 at p + 2·rowBytes + 2u (rows j+2, j+3)
+//         acc0 += (x − P1)², acc1 += (x − P2)², acc2 += (y − P1)², acc3 += (y − P2)²
+//       if root: acc = sqrt(acc)
+//       store acc0, acc1 at out0 and acc2, acc3 at out1; p += 4·rowBytes; out0, out1 += 32
+//
+// All addresses are bytes into one shared memory laid out by `pairsLayout`.
+
+/** Byte offsets in the shared memory: the condensed output first, then the rows, then the rows interleaved in pairs. */
+export interface PairsLayout {
+  readonly dataAt: number;
+  readonly pairedAt: number;
+  readonly bytes: number;
+}
+
+/** WebAssembly memories are at most 65,536 pages of 64 KiB; larger problems use the JavaScript kernel. */
+const MAX_BYTES = 65536 * 65536 - 65536;
+
+export function pairsLayout(n: number, d: number): PairsLayout | undefined {
+  const pairs = (n * (n - 1)) / 2;
+  const dataAt = Math.ceil((pairs * 8) / 16) * 16;
+  const pairedAt = dataAt + n * d * 8;
+  const bytes = pairedAt + Math.ceil(n / 2) * 2 * d * 8;
+  return bytes <= MAX_BYTES ? { dataAt, pairedAt, bytes } : undefined;
+}
+
+/** Copy the rows into the memory: as they are, and interleaved by pairs (an odd last row is paired with itself). */
+export function fillPairsInputs(memory: Float64Array, data: Float64Array, n: number, d: number, layout: PairsLayout): void {
+  memory.set(data.subarray(0, n * d), layout.dataAt / 8);
+  const at = layout.pairedAt / 8;
+  for (let q = 0; 2 * q < n; q++) {
+    const r0 = 2 * q * d;
+    const r1 = (2 * q + 1 < n ? 2 * q + 1 : 2 * q) * d;
+    const base = at + q * 2 * d;
+    for (let t = 0; t < d; t++) {
+      memory[base + 2 * t] = data[r0 + t];
+      memory[base + 2 * t + 1] = data[r1 + t];
+    }
+  }
+}
+
+/**
+ * The pairs of rows iFrom..iTo−1 (iFrom even) into the condensed output at the start of
+ * `memory`: the `pairs` function for groups of four later rows, a plain column-order loop for
+ * the rest. Self-contained (no imports): its source is also run inside a worker.
+ */
+export function pairsRowsWasm(
+  pairs: (a0: number, a1: number, p: number, count: number, rowBytes: number, out0: number, out1: number, root: number) => void,
+  memory: Float64Array,
+  n: number,
+  d: number,
+  root: boolean,
+  dataAt: number,
+  pairedAt: number,
+  iFrom: number,
+  iTo: number,
+): void {
+  const rowBytes = d * 8;
+  const at = dataAt / 8;
+  const one = (a: number, b: number): number => {
+    let s = 0;
+    for (let t = 0; t < d; t++) {
+      const e = memory[at + a * d + t] - memory[at + b * d + t];
+      s += e * e;
+    }
+    return root ? Math.sqrt(s) : s;
+  };
+  for (let i = iFrom; i < iTo && i + 1 < n; i += 2) {
+    let k0 = n * i - (i * (i + 1)) / 2;
+    let k1 = k0 + (n - i - 1);
+    memory[k0++] = one(i, i + 1);
+    const groups = Math.floor((n - i - 2) / 4);
+    if (groups > 0) {
+      pairs(dataAt + i * rowBytes, dataAt + (i + 1) * rowBytes, pairedAt + ((i + 2) / 2) * 2 * rowBytes, groups, rowBytes, k0 * 8, k1 * 8, root ? 1 : 0);
+      k0 += 4 * groups;
+      k1 += 4 * groups;
+    }
+    for (let j = i + 2 + 4 * groups; j < n; j++) {
+      memory[k0++] = one(i, j);
+      memory[k1++] = one(i + 1, j);
+    }
+  }
+}
+
+const compiled = new Map<boolean, WebAssembly.Module | null>();
+
+/**
+ * The compiled module for a shared memory (two threads) or a private one, or undefined where
+ * WebAssembly with 128-bit vectors is not available.
+ */
+export function pairsModule(shared: boolean): WebAssembly.Module | undefined {
+  if (!compiled.has(shared)) {
+    try {
+      const bytes = pairsModuleBytes(shared);
+      compiled.set(shared, typeof WebAssembly === 'object' && WebAssembly.validate(bytes) ? new WebAssembly.Module(bytes) : null);
+    } catch {
+      compiled.set(shared, null);
+    }
+  }
+  return compiled.get(shared) ?? undefined;
+}
+
+/** A memory of the layout's size (shared or private, as the module was built) with the module instantiated on it. */
+export function instantiatePairs(module: WebAssembly.Module, layout: PairsLayout, shared: boolean): { memory: WebAssembly.Memory; pairs: PairsFunction } {
+  const pages = Math.ceil(layout.bytes / 65536);
+  const memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared });
+  const instance = new WebAssembly.Instance(module, { env: { memory } });
+  return { memory, pairs: instance.exports.pairs as PairsFunction };
+}
+
+export type PairsFunction = (a0: number, a1: number, p: number, count: number, rowBytes: number, out0: number, out1: number, root: number) => void;
+
+// ---- assembling the module ----
+
+function uleb(value: number): number[] {
+  const out: number[] = [];
+  do {
+    let byte = value & 0x7f;
+    value >>>= 7;
+    if (value !== 0) byte |= 0x80;
+    out.push(byte);
+  } while (value !== 0);
+  return out;
+}
+
+function sleb(value: number): number[] {
+  const out: number[] = [];
+  for (;;) {
+    const byte = value & 0x7f;
+    value >>= 7;
+    if ((value === 0 && (byte & 0x40) === 0) || (value === -1 && (byte & 0x40) !== 0)) {
+      out.push(byte);
+      return out;
+    }
+    out.push(byte | 0x80);
+  }
+}
+
+const section = (id: number, bytes: number[]): number[] => [id, ...uleb(bytes.length), ...bytes];
+const vector = (items: number[][]): number[] => [...uleb(items.length), ...items.flat()];
+const text = (s: string): number[] => [...uleb(s.length), ...Array.from(s, (c) => c.charCodeAt(0))];
+
+// Instructions used (opcodes from the WebAssembly core and 128-bit SIMD specifications).
+const localGet = (i: number) => [0x20, ...uleb(i)];
+const localSet = (i: number) => [0x21, ...uleb(i)];
+const localTee = (i: number) => [0x22, ...uleb(i)];
+const i32Const = (v: number) => [0x41, ...sleb(v)];
+const vectorOp = (op: number) => [0xfd, ...uleb(op)];
+const I32_ADD = [0x6a];
+const I32_SUB = [0x6b];
+const I32_SHL = [0x74];
+const I32_LT_U = [0x49];
+const I32_EQZ = [0x45];
+const F64_LOAD = [0x2b, 3, 0]; // align 2^3, offset 0
+const V128_LOAD = [...vectorOp(0), 0, 0]; // align 1 (unaligned allowed), offset 0
+const v128Store = (offset: number) => [...vectorOp(11), 0, ...uleb(offset)];
+const V128_ZERO = [...vectorOp(12), ...new Array<number>(16).fill(0)];
+const F64X2_SPLAT = vectorOp(20);
+const F64X2_SQRT = vectorOp(239);
+const F64X2_ADD = vectorOp(240);
+const F64X2_SUB = vectorOp(241);
+const F64X2_MUL = vectorOp(242);
+const BLOCK = [0x02, 0x40];
+const LOOP = [0x03, 0x40];
+const IF = [0x04, 0x40];
+const END = [0x0b];
+const brIf = (depth: number) => [0x0d, depth];
+
+export function pairsModuleBytes(shared: boolean): Uint8Array {
+  // Parameters 0..7, then locals: i32 u, u2, pb; v128 x, y, P1, P2, e, acc0..acc3.
+  const [A0, A1, P, COUNT, ROW_BYTES, OUT0, OUT1, ROOT, U, U2, PB, X, Y, P1, P2, E] = Array.from({ length: 16 }, (_, i) => i);
+  const ACC = [16, 17, 18, 19];
+  // acc += (v − p)²: the square first, then the add, as `s += e * e` in JavaScript.
+  const accumulate = (acc: number, v: number, p: number) => [
+    ...localGet(acc), ...localGet(v), ...localGet(p), ...F64X2_SUB, ...localTee(E), ...localGet(E), ...F64X2_MUL, ...F64X2_ADD, ...localSet(acc),
+  ]; // prettier-ignore
+  const body = [
+    ...BLOCK, ...localGet(COUNT), ...I32_EQZ, ...brIf(0),
+    ...LOOP,
+    ...ACC.flatMap((a) => [...V128_ZERO, ...localSet(a)]),
+    ...localGet(P), ...localGet(ROW_BYTES), ...i32Const(1), ...I32_SHL, ...I32_ADD, ...localSet(PB),
+    ...i32Const(0), ...localSet(U),
+    ...LOOP,
+    ...localGet(U), ...i32Const(1), ...I32_SHL, ...localSet(U2),
+    ...localGet(A0), ...localGet(U), ...I32_ADD, ...F64_LOAD, ...F64X2_SPLAT, ...localSet(X),
+    ...localGet(A1), ...localGet(U), ...I32_ADD, ...F64_LOAD, ...F64X2_SPLAT, ...localSet(Y),
+    ...localGet(P), ...localGet(U2), ...I32_ADD, ...V128_LOAD, ...localSet(P1),
+    ...localGet(PB), ...localGet(U2), ...I32_ADD, ...V128_LOAD, ...localSet(P2),
+    ...accumulate(ACC[0], X, P1), ...accumulate(ACC[1], X, P2), ...accumulate(ACC[2], Y, P1), ...accumulate(ACC[3], Y, P2),
+    ...localGet(U), ...i32Const(8), ...I32_ADD, ...localTee(U), ...localGet(ROW_BYTES), ...I32_LT_U, ...brIf(0),
+    ...END,
+    ...localGet(ROOT), ...IF, ...ACC.flatMap((a) => [...localGet(a), ...F64X2_SQRT, ...localSet(a)]), ...END,
+    ...localGet(OUT0), ...localGet(ACC[0]), ...v128Store(0), ...localGet(OUT0), ...localGet(ACC[1]), ...v128Store(16),
+    ...localGet(OUT1), ...localGet(ACC[2]), ...v128Store(0), ...localGet(OUT1), ...localGet(ACC[3]), ...v128Store(16),
+    ...localGet(PB), ...localGet(ROW_BYTES), ...i32Const(1), ...I32_SHL, ...I32_ADD, ...localSet(P),
+    ...localGet(OUT0), ...i32Const(32), ...I32_ADD, ...localSet(OUT0),
+    ...localGet(OUT1), ...i32Const(32), ...I32_ADD, ...localSet(OUT1),
+    ...localGet(COUNT), ...i32Const(1), ...I32_SUB, ...localTee(COUNT), ...brIf(0),
+    ...END,
+    ...END,
+    ...END,
+  ]; // prettier-ignore
+  const I32 = 0x7f;
+  const V128 = 0x7b;
+  const code = [...vector([[...uleb(3), I32], [...uleb(9), V128]]), ...body];
+  return new Uint8Array([
+    0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0, // magic, version 1
+    ...section(1, vector([[0x60, ...vector(new Array<number[]>(8).fill([I32])), 0]])), // (i32 × 8) → ()
+    // Imported memory: limits flag 3 = shared with a maximum, 1 = private with a maximum.
+    ...section(2, vector([[...text('env'), ...text('memory'), 0x02, shared ? 0x03 : 0x01, ...uleb(0), ...uleb(65536)]])),
+    ...section(3, vector([[0]])),
+    ...section(7, vector([[...text('pairs'), 0x00, 0]])),
+    ...section(10, vector([[...uleb(code.length), ...code]])),
+  ]); // prettier-ignore
+}
