@@ -88,3 +88,12 @@ export function baseLayout(height: number, extra: object = {}): object {
 export function namesFrom(k: number, names?: Readonly<Record<number, string>>): (string | undefined)[] {
   return Array.from({ length: k }, (_, s) => names?.[s + 1]);
 }
+
+/** A name shortened to at most `max` characters, cut at a word where it can, with an ellipsis
+ *  so a reader sees it was cut ("Weekday peak…", never "Weekday peak commu"). */
+export function shortName(name: string, max: number): string {
+  if (name.length <= max) return name;
+  const room = name.slice(0, max - 1);
+  const space = room.lastIndexOf(' ');
+  return (space >= max / 2 ? room.slice(0, space) : room).trimEnd() + '…';
+}

@@ -2,7 +2,7 @@
 // average marked. Bars left of zero are rows closer to another segment than to their own.
 import { compactLabels } from '../core/assignment';
 import { checkOptions } from '../core/options';
-import { axisStyle, baseLayout, kindOf, namesFrom, plotText, refuse } from './common';
+import { axisStyle, baseLayout, kindOf, namesFrom, plotText, refuse, shortName } from './common';
 import { INK, segmentColour, textOn } from './palette';
 import { frame, pathData, svgDocument, svgEl } from './svg';
 import { makeView, View } from './view';
@@ -75,7 +75,7 @@ export function silhouetteView(
     const colour = segmentColour(s);
     body.push(svgEl.rect({ x: 10, y: mid - 10, width: 22, height: 18, rx: 3, fill: colour }));
     body.push(svgEl.text(String(s + 1), { x: 21, y: mid + 3.5, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: textOn(colour) }));
-    body.push(svgEl.text(`${names[s] ? names[s]!.slice(0, 14) + ' · ' : ''}${sizes[s]} rows`, { x: 38, y: mid - 1, 'font-size': 11, fill: INK.text }));
+    body.push(svgEl.text(`${names[s] ? shortName(names[s]!, 14) + ' · ' : ''}${sizes[s]} rows`, { x: 38, y: mid - 1, 'font-size': 11, fill: INK.text }));
     body.push(svgEl.text(`avg ${segAvg[s].toFixed(2)}`, { x: 38, y: mid + 12, 'font-size': 10.5, fill: INK.muted }));
   }
   body.push(svgEl.line({ x1: f.x(avg), x2: f.x(avg), y1: f.top, y2: f.bottom, stroke: INK.accent, 'stroke-width': 1.5, 'stroke-dasharray': '6 4' }));
@@ -94,7 +94,7 @@ export function silhouetteView(
       y: mid,
       showarrow: false,
       align: 'right',
-      text: `<b>${s + 1}</b>${names[s] ? ' · ' + plotText(names[s]!.slice(0, 18)) : ''}<br>${sizes[s]} rows · avg ${segAvg[s].toFixed(2)}`,
+      text: `<b>${s + 1}</b>${names[s] ? ' · ' + plotText(shortName(names[s]!, 18)) : ''}<br>${sizes[s]} rows · avg ${segAvg[s].toFixed(2)}`,
       font: { size: 11, color: INK.text },
       bgcolor: '#ffffff',
       bordercolor: segmentColour(s),
