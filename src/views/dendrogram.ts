@@ -195,6 +195,9 @@ function plotDendrogram(
     g.v.push(null);
     groups.set(l.segment, g);
   }
+  // A one-row segment has no branch of its own (its leaf hangs from a join across segments), but
+  // its badge is coloured, so the legend must still list it: an empty trace keeps its entry.
+  for (let s = 0; s < k; s++) if (!groups.has(s)) groups.set(s, { u: [null], v: [null] });
   const data: object[] = [];
   for (const [s, g] of [...groups].sort((a, b) => a[0] - b[0])) {
     data.push({
