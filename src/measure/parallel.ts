@@ -5,7 +5,7 @@
 // never depends on the worker. The loop runs as WebAssembly (wasmPairs.ts) where available and
 // as plain JavaScript (euclideanKernel.ts) otherwise; both give the same numbers.
 import { finish, pairSum, squaredDifferencesRows } from './euclideanKernel';
-import { fillPairsInputs, instantiatePairs, pairsLayout, pairsModule, pairsRowsWasm } from './wasmPairs';
+import { fillPairsInputs, instantiatePairs, pairsLayout, pairsModule, pairsRowsWasm, type PairsFunction, type PairsLayout } from './wasmPairs';
 
 /** Below this many rows a worker's hand-over costs more than it saves. */
 const MIN_ROWS_FOR_WORKER = 3000;
@@ -63,17 +63,9 @@ export function euclideanCondensed(data: Float64Array, n: number, d: number, roo
   const module = wasmWanted && n >= MIN_ROWS_FOR_WASM ? pairsModule(shareWork) : undefined;
   const layout = module ? pairsLayout(n, d) : undefined;
   if (module && layout) {
-    // One memory holds the output (first, so the result is a view from offset 0) and the rows;
-    // it is shared only when a worker may write into it.
-    const { memory, pairs: measure } = instantiatePairs(module, layout, shareWork);
-    const view = new Float64Array(memory.buffer);
-    fillPairsInputs(view, data, n, d, layout);
-    const job: WasmJob = { kind: 'wasm', module, memory, n, d, root, dataAt: layout.dataAt, pairedAt: layout.pairedAt };
-    runChunks(n, shareWork ? job : undefined, (from, to) => pairsRowsWasm(measure, view, n, d, root, layout.dataAt, layout.pairedAt, from, to));
-    lastShare.wasm = true;
-    const out = new Float64Array(memory.buffer, 0, pairs);
-    // Many columns and few rows: the copies of the rows would outweigh the result; keep only the result.
-    return layout.bytes - pairs * 8 > pairs + 65536 ? out.slice() : out;
+    // A memory this large may be refused (address space, limits): then the JavaScript loop runs.
+    const made = tryInstantiate(module, layout, shareWork);
+    if (made) return wasmCondensed(made.memory, made.pairs, module, layout, data, n, d, root, shareWork);
   }
   if (!shareWork) {
     const out = new Float64Array(pairs);
@@ -88,6 +80,38 @@ export function euclideanCondensed(data: Float64Array, n: number, d: number, roo
   runChunks(n, job, (from, to) => squaredDifferencesRows(shared, n, d, out, root, from, to));
   lastShare.wasm = false;
   return out;
+}
+
+function tryInstantiate(module: WebAssembly.Module, layout: PairsLayout, shared: boolean): ReturnType<typeof instantiatePairs> | undefined {
+  try {
+    return instantiatePairs(module, layout, shared);
+  } catch {
+    return undefined;
+  }
+}
+
+function wasmCondensed(
+  memory: WebAssembly.Memory,
+  measure: PairsFunction,
+  module: WebAssembly.Module,
+  layout: PairsLayout,
+  data: Float64Array,
+  n: number,
+  d: number,
+  root: boolean,
+  shareWork: boolean,
+): Float64Array {
+  // One memory holds the output (first, so the result is a view from offset 0) and the rows;
+  // it is shared only when a worker may write into it.
+  const pairs = (n * (n - 1)) / 2;
+  const view = new Float64Array(memory.buffer);
+  fillPairsInputs(view, data, n, d, layout);
+  const job: WasmJob = { kind: 'wasm', module, memory, n, d, root, dataAt: layout.dataAt, pairedAt: layout.pairedAt };
+  runChunks(n, shareWork ? job : undefined, (from, to) => pairsRowsWasm(measure, view, n, d, root, layout.dataAt, layout.pairedAt, from, to));
+  lastShare.wasm = true;
+  const out = new Float64Array(memory.buffer, 0, pairs);
+  // Many columns and few rows: the copies of the rows would outweigh the result; keep only the result.
+  return layout.bytes - pairs * 8 > pairs + 65536 ? out.slice() : out;
 }
 
 interface WasmJob {
