@@ -25,7 +25,7 @@ export function compactLabels(assignment: AssignmentInput, n: number, what: stri
   }
   if (assignment.length !== n) {
     throw new KinsortError(
-      `${what}: the assignment has ${assignment.length} entries but ${expected} have ${n}; give one segment number per row.`,
+      `${what}: the assignment has ${assignment.length} entries but ${expected} ${/^the (rows|dissimilarities)$/.test(expected) ? 'have' : 'has'} ${n}; give one segment number per row.`,
       'bad-assignment',
     );
   }

@@ -95,7 +95,10 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     const missing = unfilledMissing(prep, byName, i);
     if (missing.length === 0) good.push(i);
     else {
-      const why = prep.missing === 'median' ? 'no training median stored for it' : `missing-value policy '${prep.missing}'`;
+      const why =
+        prep.missing === 'median'
+          ? 'the training rows had no missing value there, so no median was stored: fill the value or refit with this column missing in training'
+          : `the definition's missing-value policy is '${prep.missing}': fill the value before assigning`;
       refused.push({ id: ids[i], row: i, reason: `missing value in ${missing.join(', ')} (${why})` });
     }
   }

@@ -17,8 +17,8 @@ export interface DefinitionHandle {
   toSql(options: SqlOptions): string;
   /** The definition file's text (deterministic). */
   toJSON(): string;
-  /** Write the definition file. */
-  save(path: string): void;
+  /** Write the definition file; returns the path, as a view's save() does. */
+  save(path: string): string;
   /**
    * Whether `ids` and prepared `rows` are the rows this definition was fitted on (order does not
    * matter). Loading never checks this: the training data is not in the file.
@@ -45,6 +45,7 @@ export function definitionHandle(definition: SegmentDefinition): DefinitionHandl
       } catch (e) {
         throw new KinsortError(`save: cannot write "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`, 'bad-input');
       }
+      return path;
     },
     matchesTraining(ids, rows) {
       const m = toMatrix(rows as Matrix, { what: 'matchesTraining: rows' });

@@ -121,7 +121,7 @@ describe('bad input', () => {
   });
   it('assignments of the wrong length are refused with both lengths named', () => {
     expect(() => silhouette(rows, [0, 1, 1])).toThrow(/3 entries but the rows have 4/);
-    expect(() => adjustedRandIndex([0, 1, 1], [0, 1])).toThrow(/2 entries but the first assignment have 3/);
+    expect(() => adjustedRandIndex([0, 1, 1], [0, 1])).toThrow(/2 entries but the first assignment has 3/);
     expect(() => normalizedMutualInfo([0, 1], [0, 1, 0])).toThrow(/3 entries/);
   });
   it('non-integer labels, unknown options and unknown averages are refused', () => {

@@ -1,7 +1,7 @@
 // The tree result: merges in the published numbering plus the operations people need on it
 // (leaf order for drawing, cuts, cophenetic dissimilarities, their correlation with the input).
 import { KinsortError } from '../../core/errors';
-import { checkNumber, checkOptions, describe } from '../../core/options';
+import { checkOptions, describe } from '../../core/options';
 import { Dissimilarity, condensedIndex, guardPairwise, makeDissimilarity } from '../../measure/condensed';
 import { NumberedMerges } from './merges';
 
@@ -151,7 +151,13 @@ export function buildTree(
       const keep = n - k;
       return segmentsFromMerges((i) => i < keep);
     }
-    const h = checkNumber((spec as { height: unknown }).height, 'cut: height', 0);
+    const given = (spec as { height: unknown }).height;
+    if (typeof given !== 'number' || Number.isNaN(given) || given < 0) {
+      let top = 0;
+      for (const merge of merges) top = Math.max(top, merge.height);
+      throw new KinsortError(`cut: height must be a number ≥ 0 (this tree's merges lie between 0 and ${top}); got ${describe(given)}.`, 'bad-option');
+    }
+    const h = given;
     return segmentsFromMerges((i) => reach[i] <= h);
   };
 
