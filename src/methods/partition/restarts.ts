@@ -7,7 +7,8 @@ import { join } from 'node:path';
 import { createRandom, type Random, type Seed } from '../../random';
 import { createWorkspace, runHamerly, withinFor, type LloydWorkspace } from './hamerly';
 import { centresToMeans } from './partition-summary';
-import { createSeedingState, seedPlusPlus, seedRandomRows, type SeedingState } from './seeding';
+import { createSeedingState, defaultTrials, seedPlusPlus, seedRandomRows, type SeedingState } from './seeding';
+import { createSeedingArena } from './seedingWasm';
 
 export interface RestartPlan {
   data: Float64Array;
@@ -40,7 +41,11 @@ export class RestartRunner {
   constructor(private readonly plan: RestartPlan) {
     this.ws = createWorkspace(plan.n, plan.d, plan.k);
     this.centers = new Float64Array(plan.k * plan.d);
-    this.seeding = createSeedingState(plan.n);
+    // k-means++ sweeps run as WebAssembly where available (same numbers, about twice as fast).
+    const arena = plan.start === 'k-means++' && seedingWasmWanted
+      ? createSeedingArena(plan.data, plan.n, plan.d, plan.k, 4 * Math.ceil(defaultTrials(plan.k) / 4))
+      : undefined; // prettier-ignore
+    this.seeding = createSeedingState(plan.n, arena);
     this.root = createRandom(plan.seed);
   }
 
@@ -76,6 +81,14 @@ export interface RestartsResult {
 }
 
 let threadsWanted = 2;
+let seedingWasmWanted = true;
+
+/** @internal Run the k-means++ sweep as WebAssembly (default) or JavaScript (tests compare them). Returns the previous setting. */
+export function setSeedingWasm(use: boolean): boolean {
+  const previous = seedingWasmWanted;
+  seedingWasmWanted = use;
+  return previous;
+}
 
 /**
  * Threads k-means may use for its restarts: 1 (calling thread only) or 2 (default; used only for

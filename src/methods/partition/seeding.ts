@@ -1,5 +1,6 @@
 // Starting centres for k-means: k-means++ (Arthur & Vassilvitskii 2007) and plain random rows.
 import type { Random } from '../../random';
+import type { SeedingArena } from './seedingWasm';
 
 /**
  * What k-means++ learns about every row on the way, handed to the iterations so their first
@@ -10,10 +11,25 @@ export interface SeedingState {
   readonly nearest: Int32Array;
   readonly closest: Float64Array;
   readonly secondLower: Float64Array;
+  /** Where the trial sweep runs as WebAssembly: `closest` and `nearest` then live in its memory. */
+  readonly arena?: SeedingArena;
 }
 
-export function createSeedingState(n: number): SeedingState {
+export function createSeedingState(n: number, arena?: SeedingArena): SeedingState {
+  if (arena && arena.n === n) {
+    return {
+      nearest: new Int32Array(arena.memory.buffer, arena.nearestAt, n),
+      closest: new Float64Array(arena.memory.buffer, arena.closestAt, n),
+      secondLower: new Float64Array(n),
+      arena,
+    };
+  }
   return { nearest: new Int32Array(n), closest: new Float64Array(n), secondLower: new Float64Array(n) };
+}
+
+/** Greedy trials per new centre: 2 + floor(ln k) (common practice). */
+export function defaultTrials(k: number): number {
+  return 2 + Math.floor(Math.log(k));
 }
 
 /**
@@ -32,7 +48,7 @@ export function seedPlusPlus(
   random: Random,
   out: Float64Array,
   state: SeedingState = createSeedingState(n),
-  trials = 2 + Math.floor(Math.log(k)),
+  trials = defaultTrials(k),
 ): void {
   const { nearest, closest, secondLower } = state;
   const cumulative = new Float64Array(n);
@@ -41,7 +57,9 @@ export function seedPlusPlus(
   const totals = new Float64Array(trials);
   const paddedTrials = 4 * Math.ceil(trials / 4);
   const candidateRows = new Float64Array(paddedTrials * d);
-  const stored = new Float64Array(paddedTrials * n);
+  const arena = state.arena;
+  const onArena = arena !== undefined && arena.source === data && arena.n === n && arena.d === d && arena.k === k && arena.padded === paddedTrials;
+  const stored = onArena ? new Float64Array(arena.memory.buffer, arena.storedAt, paddedTrials * n) : new Float64Array(paddedTrials * n);
 
   const first = random.int(n);
   copyRow(data, first, d, out, 0);
@@ -66,7 +84,8 @@ export function seedPlusPlus(
     }
     // Candidate rows side by side, padded to a multiple of four with copies of the last one.
     for (let t = 0; t < paddedTrials; t++) copyRow(data, candidates[t < trials ? t : trials - 1], d, candidateRows, t * d);
-    measureTrials(data, n, d, k, trials, candidateRows, toCentres, closest, nearest, totals, stored, paddedTrials);
+    if (onArena) measureTrialsOnArena(arena, c, trials, candidateRows, toCentres, totals);
+    else measureTrials(data, n, d, k, trials, candidateRows, toCentres, closest, nearest, totals, stored, paddedTrials);
     // Strictly lower: ties keep the earlier candidate.
     let bestTrial = 0;
     for (let t = 1; t < trials; t++) if (totals[t] < totals[bestTrial]) bestTrial = t;
@@ -180,6 +199,38 @@ function measureTrials(
         totals[t] += (open1 & bit) !== 0 && s < own1 ? s : own1;
       }
     }
+  }
+}
+
+/**
+ * measureTrials as WebAssembly (seedingWasm.ts), four trials per call: the same distances,
+ * stored the same way, and the same totals. Candidates go in interleaved by pairs; the four
+ * candidates' squared distances to each chosen centre go in as a table by centre.
+ */
+function measureTrialsOnArena(
+  arena: SeedingArena,
+  chosen: number,
+  trials: number,
+  candidateRows: Float64Array,
+  toCentres: Float64Array,
+  totals: Float64Array,
+): void {
+  const { view, n, d, k, padded } = arena;
+  const cand = arena.candAt / 8;
+  const gaps = arena.gapsAt / 8;
+  const sums = arena.totalsAt / 8;
+  for (let t0 = 0; t0 < trials; t0 += 4) {
+    for (let j = 0; j < d; j++) {
+      view[cand + 2 * j] = candidateRows[t0 * d + j];
+      view[cand + 2 * j + 1] = candidateRows[(t0 + 1) * d + j];
+      view[cand + 2 * d + 2 * j] = candidateRows[(t0 + 2) * d + j];
+      view[cand + 2 * d + 2 * j + 1] = candidateRows[(t0 + 3) * d + j];
+    }
+    for (let e = 0; e < chosen; e++) {
+      for (let q = 0; q < 4; q++) view[gaps + e * 4 + q] = toCentres[Math.min(t0 + q, trials - 1) * k + e];
+    }
+    arena.totals(arena.rowsAt, arena.candAt, arena.gapsAt, arena.closestAt, arena.nearestAt, n, d * 8, arena.storedAt + t0 * 8, padded * 8, arena.totalsAt);
+    for (let t = t0; t < trials && t < t0 + 4; t++) totals[t] = view[sums + t - t0];
   }
 }
 

@@ -1,0 +1,185 @@
+// The k-means++ trial sweep (measureTrials in seeding.ts) as a small WebAssembly function with
+// two-lane float64 vectors: the lanes are two candidates, each distance summed in column order
+// from 0 with separate multiply and add, and each trial's total summed in row order — so every
+// number is bit for bit what the JavaScript sweep gives, about twice as fast. Rows the triangle
+// inequality rules out are measured anyway (a vector select then adds the row's own distance,
+// as the JavaScript sweep does), which costs less than branching per row.
+//
+//   trialTotals(rows, cand, gaps, closest, nearest, count, rowBytes, stored, storedStride, totals)
+//     tot01 = tot23 = 0
+//     for each of `count` rows:
+//       own = splat(closest), gap = the four candidates' squared distances to the row's nearest centre
+//       acc01, acc23 = Σ over columns (x − candidate)²   (candidates interleaved in pairs at cand)
+//       stored[0..3] = acc
+//       tot += gap ≥ 4·own ? own : (acc < own ? acc : own)
+//     totals[0..3] = tot
+/** Where things live in a seeding arena (bytes). Four trials per group. */
+export interface SeedingArena {
+  readonly memory: WebAssembly.Memory;
+  readonly view: Float64Array;
+  readonly totals: PairsTotals;
+  /** The rows this arena holds a copy of (the sweep is used only for these). */
+  readonly source: Float64Array;
+  readonly n: number;
+  readonly d: number;
+  readonly k: number;
+  /** Trials rounded up to a multiple of four (the row stride of `stored`). */
+  readonly padded: number;
+  readonly rowsAt: number;
+  readonly closestAt: number;
+  readonly nearestAt: number;
+  readonly storedAt: number;
+  readonly candAt: number;
+  readonly gapsAt: number;
+  readonly totalsAt: number;
+}
+
+export type PairsTotals = (
+  rows: number, cand: number, gaps: number, closest: number, nearest: number,
+  count: number, rowBytes: number, stored: number, storedStride: number, totals: number,
+) => void; // prettier-ignore
+
+let compiled: WebAssembly.Module | null | undefined;
+
+function trialModule(): WebAssembly.Module | undefined {
+  if (compiled === undefined) {
+    try {
+      const bytes = trialModuleBytes();
+      compiled = typeof WebAssembly === 'object' && WebAssembly.validate(bytes) ? new WebAssembly.Module(bytes) : null;
+    } catch {
+      compiled = null;
+    }
+  }
+  return compiled ?? undefined;
+}
+
+/** Below this much work per seeding (rows × columns) the JavaScript sweep is as good. */
+const MIN_WORK_FOR_WASM = 200_000;
+
+/**
+ * An arena for seeding `data` (n × d, k centres, `padded` trials rounded up to fours), with the
+ * rows copied in; undefined where WebAssembly is unavailable or the problem is small or huge.
+ */
+export function createSeedingArena(data: Float64Array, n: number, d: number, k: number, padded: number): SeedingArena | undefined {
+  if (n * d < MIN_WORK_FOR_WASM) return undefined;
+  const module = trialModule();
+  if (!module) return undefined;
+  const rowsAt = 0;
+  const closestAt = rowsAt + n * d * 8;
+  const nearestAt = closestAt + n * 8;
+  const storedAt = nearestAt + Math.ceil((n * 4) / 16) * 16;
+  const candAt = storedAt + n * padded * 8;
+  const gapsAt = candAt + padded * d * 8;
+  const totalsAt = gapsAt + k * padded * 8;
+  const bytes = totalsAt + padded * 8;
+  if (bytes > 65536 * 32768) return undefined; // 2 GiB: leave such sizes to the JavaScript sweep
+  try {
+    const pages = Math.ceil(bytes / 65536);
+    const memory = new WebAssembly.Memory({ initial: pages, maximum: pages });
+    const instance = new WebAssembly.Instance(module, { env: { memory } });
+    const view = new Float64Array(memory.buffer);
+    view.set(data.subarray(0, n * d), rowsAt / 8);
+    return {
+      memory, view, totals: instance.exports.trialTotals as PairsTotals, source: data, n, d, k, padded,
+      rowsAt, closestAt, nearestAt, storedAt, candAt, gapsAt, totalsAt,
+    }; // prettier-ignore
+  } catch {
+    return undefined;
+  }
+}
+
+// ---- assembling the module (the same encoding helpers as measure/wasmPairs.ts) ----
+
+function uleb(value: number): number[] {
+  const out: number[] = [];
+  do {
+    let byte = value & 0x7f;
+    value >>>= 7;
+    if (value !== 0) byte |= 0x80;
+    out.push(byte);
+  } while (value !== 0);
+  return out;
+}
+
+const section = (id: number, bytes: number[]): number[] => [id, ...uleb(bytes.length), ...bytes];
+const vector = (items: number[][]): number[] => [...uleb(items.length), ...items.flat()];
+const text = (s: string): number[] => [...uleb(s.length), ...Array.from(s, (c) => c.charCodeAt(0))];
+const localGet = (i: number) => [0x20, ...uleb(i)];
+const localSet = (i: number) => [0x21, ...uleb(i)];
+const localTee = (i: number) => [0x22, ...uleb(i)];
+const i32Const = (v: number) => [0x41, ...uleb(v)]; // small non-negative constants only (< 64)
+const vectorOp = (op: number) => [0xfd, ...uleb(op)];
+const I32_ADD = [0x6a];
+const I32_SUB = [0x6b];
+const I32_SHL = [0x74];
+const I32_LT_U = [0x49];
+const I32_EQZ = [0x45];
+const I32_LOAD = [0x28, 2, 0];
+const F64_LOAD = [0x2b, 3, 0];
+const F64_CONST_4 = [0x44, 0, 0, 0, 0, 0, 0, 0x10, 0x40];
+const v128Load = (offset: number) => [...vectorOp(0), 0, ...uleb(offset)];
+const v128Store = (offset: number) => [...vectorOp(11), 0, ...uleb(offset)];
+const V128_ZERO = [...vectorOp(12), ...new Array<number>(16).fill(0)];
+const F64X2_SPLAT = vectorOp(20);
+const F64X2_LT = vectorOp(73);
+const F64X2_GE = vectorOp(76);
+const V128_BITSELECT = vectorOp(82);
+const F64X2_ADD = vectorOp(240);
+const F64X2_SUB = vectorOp(241);
+const F64X2_MUL = vectorOp(242);
+const BLOCK = [0x02, 0x40];
+const LOOP = [0x03, 0x40];
+const END = [0x0b];
+const brIf = (depth: number) => [0x0d, depth];
+
+export function trialModuleBytes(): Uint8Array {
+  const [ROWS, CAND, GAPS, CLOSEST, NEAREST, COUNT, ROW_BYTES, STORED, STORED_STRIDE, TOTALS, U, GAP_AT] = Array.from({ length: 12 }, (_, i) => i);
+  const [OWN, FOUR, X, ACC01, ACC23, E, TOT01, TOT23, M] = Array.from({ length: 9 }, (_, i) => 12 + i);
+  const accumulate = (acc: number, offsetRows: number[]) => [
+    ...localGet(acc), ...localGet(X), ...offsetRows, ...F64X2_SUB, ...localTee(E), ...localGet(E), ...F64X2_MUL, ...F64X2_ADD, ...localSet(acc),
+  ]; // prettier-ignore
+  // tot += gap ≥ 4·own ? own : (acc < own ? acc : own)
+  const contribute = (tot: number, acc: number, gapOffset: number) => [
+    ...localGet(acc), ...localGet(OWN), ...localGet(acc), ...localGet(OWN), ...F64X2_LT, ...V128_BITSELECT, ...localSet(M),
+    ...localGet(tot), ...localGet(OWN), ...localGet(M), ...localGet(GAP_AT), ...v128Load(gapOffset), ...localGet(FOUR), ...F64X2_GE, ...V128_BITSELECT,
+    ...F64X2_ADD, ...localSet(tot),
+  ]; // prettier-ignore
+  const body = [
+    ...V128_ZERO, ...localSet(TOT01), ...V128_ZERO, ...localSet(TOT23),
+    ...BLOCK, ...localGet(COUNT), ...I32_EQZ, ...brIf(0),
+    ...LOOP,
+    ...localGet(CLOSEST), ...F64_LOAD, ...F64X2_SPLAT, ...localTee(OWN),
+    ...F64_CONST_4, ...F64X2_SPLAT, ...F64X2_MUL, ...localSet(FOUR),
+    ...localGet(GAPS), ...localGet(NEAREST), ...I32_LOAD, ...i32Const(5), ...I32_SHL, ...I32_ADD, ...localSet(GAP_AT),
+    ...V128_ZERO, ...localSet(ACC01), ...V128_ZERO, ...localSet(ACC23),
+    ...i32Const(0), ...localSet(U),
+    ...LOOP,
+    ...localGet(ROWS), ...localGet(U), ...I32_ADD, ...F64_LOAD, ...F64X2_SPLAT, ...localSet(X),
+    ...accumulate(ACC01, [...localGet(CAND), ...localGet(U), ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0)]),
+    ...accumulate(ACC23, [...localGet(CAND), ...localGet(ROW_BYTES), ...localGet(U), ...I32_ADD, ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0)]),
+    ...localGet(U), ...i32Const(8), ...I32_ADD, ...localTee(U), ...localGet(ROW_BYTES), ...I32_LT_U, ...brIf(0),
+    ...END,
+    ...localGet(STORED), ...localGet(ACC01), ...v128Store(0), ...localGet(STORED), ...localGet(ACC23), ...v128Store(16),
+    ...contribute(TOT01, ACC01, 0), ...contribute(TOT23, ACC23, 16),
+    ...localGet(ROWS), ...localGet(ROW_BYTES), ...I32_ADD, ...localSet(ROWS),
+    ...localGet(CLOSEST), ...i32Const(8), ...I32_ADD, ...localSet(CLOSEST),
+    ...localGet(NEAREST), ...i32Const(4), ...I32_ADD, ...localSet(NEAREST),
+    ...localGet(STORED), ...localGet(STORED_STRIDE), ...I32_ADD, ...localSet(STORED),
+    ...localGet(COUNT), ...i32Const(1), ...I32_SUB, ...localTee(COUNT), ...brIf(0),
+    ...END,
+    ...END,
+    ...localGet(TOTALS), ...localGet(TOT01), ...v128Store(0), ...localGet(TOTALS), ...localGet(TOT23), ...v128Store(16),
+    ...END,
+  ]; // prettier-ignore
+  const I32 = 0x7f;
+  const V128 = 0x7b;
+  const code = [...vector([[...uleb(2), I32], [...uleb(9), V128]]), ...body];
+  return new Uint8Array([
+    0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0,
+    ...section(1, vector([[0x60, ...vector(new Array<number[]>(10).fill([I32])), 0]])), // (i32 × 10) → ()
+    ...section(2, vector([[...text('env'), ...text('memory'), 0x02, 0x01, ...uleb(0), ...uleb(65536)]])), // private memory
+    ...section(3, vector([[0]])),
+    ...section(7, vector([[...text('trialTotals'), 0x00, 0]])),
+    ...section(10, vector([[...uleb(code.length), ...code]])),
+  ]); // prettier-ignore
+}
