@@ -95,16 +95,57 @@ export function settleExactly(data: Float64Array, n: number, d: number, k: numbe
   return steps;
 }
 
-/** Every row to its nearest centre by a full scan; returns how many rows changed segment. Fills counts. */
+/**
+ * Every row to its nearest centre by a full scan; returns how many rows changed segment. Fills
+ * counts. Four centres are measured together (four independent sums keep the adder busy; each
+ * distance is still summed in column order) and then compared in centre order, so ties go to
+ * the lower segment number exactly as one centre at a time would.
+ */
 function assignNearest(data: Float64Array, centers: Float64Array, ws: LloydWorkspace): number {
   const { n, d, k, assignment, counts } = ws;
   counts.fill(0);
   let changed = 0;
+  const grouped = k - (k % 4);
   for (let i = 0; i < n; i++) {
     const ib = i * d;
     let best = 0;
     let bestD = Infinity;
-    for (let c = 0; c < k; c++) {
+    let c = 0;
+    for (; c < grouped; c += 4) {
+      const c0 = c * d;
+      const c1 = c0 + d;
+      const c2 = c1 + d;
+      const c3 = c2 + d;
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
+      for (let j = 0; j < d; j++) {
+        const x = data[ib + j];
+        let e = x - centers[c0 + j];
+        s0 += e * e;
+        e = x - centers[c1 + j];
+        s1 += e * e;
+        e = x - centers[c2 + j];
+        s2 += e * e;
+        e = x - centers[c3 + j];
+        s3 += e * e;
+      }
+      if (s0 < bestD) {
+        bestD = s0;
+        best = c;
+      }
+      if (s1 < bestD) {
+        bestD = s1;
+        best = c + 1;
+      }
+      if (s2 < bestD) {
+        bestD = s2;
+        best = c + 2;
+      }
+      if (s3 < bestD) {
+        bestD = s3;
+        best = c + 3;
+      }
+    }
+    for (; c < k; c++) {
       const s = squaredDistance(data, ib, centers, c * d, d);
       if (s < bestD) {
         bestD = s;
