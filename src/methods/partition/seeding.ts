@@ -37,8 +37,8 @@ export function defaultTrials(k: number): number {
  * proportional to the squared distance to the nearest chosen centre and keep the one that lowers
  * the total the most (2 + floor(ln k) trials is common practice). Writes k × d values into `out`.
  *
- * The triangle inequality skips rows that a candidate cannot win: if the candidate is at least
- * twice as far from a row's nearest centre as the row is, the row keeps its nearest centre.
+ * Every row is measured against every candidate (a flat sweep is cheaper here than skipping
+ * rows by the triangle inequality).
  */
 export function seedPlusPlus(
   data: Float64Array,
@@ -52,7 +52,6 @@ export function seedPlusPlus(
 ): void {
   const { nearest, closest, secondLower } = state;
   const cumulative = new Float64Array(n);
-  const toCentres = new Float64Array(trials * k);
   const candidates = new Int32Array(trials);
   const totals = new Float64Array(trials);
   const paddedTrials = 4 * Math.ceil(trials / 4);
@@ -69,51 +68,46 @@ export function seedPlusPlus(
     secondLower[i] = Infinity;
   }
 
+  let potential = 0;
+  for (let i = 0; i < n; i++) {
+    potential += closest[i];
+    cumulative[i] = potential;
+  }
   for (let c = 1; c < k; c++) {
-    let running = 0;
-    for (let i = 0; i < n; i++) {
-      running += closest[i];
-      cumulative[i] = running;
-    }
-    const potential = running;
     for (let t = 0; t < trials; t++) {
       const candidate = potential > 0 ? drawWeighted(cumulative, random.next() * potential) : random.int(n);
       candidates[t] = candidate;
-      for (let e = 0; e < c; e++) toCentres[t * k + e] = squaredDistanceRows(data, candidate * d, out, e * d, d);
       totals[t] = 0;
     }
     // Candidate rows side by side, padded to a multiple of four with copies of the last one.
     for (let t = 0; t < paddedTrials; t++) copyRow(data, candidates[t < trials ? t : trials - 1], d, candidateRows, t * d);
-    if (onArena) measureTrialsOnArena(arena, c, trials, candidateRows, toCentres, totals);
-    else measureTrials(data, n, d, k, trials, candidateRows, toCentres, closest, nearest, totals, stored, paddedTrials);
+    if (onArena) measureTrialsOnArena(arena, trials, candidateRows, totals);
+    else measureTrials(data, n, d, trials, candidateRows, closest, totals, stored, paddedTrials);
     // Strictly lower: ties keep the earlier candidate.
     let bestTrial = 0;
     for (let t = 1; t < trials; t++) if (totals[t] < totals[bestTrial]) bestTrial = t;
     copyRow(data, candidates[bestTrial], d, out, c * d);
-    takeCandidate(n, c, stored, paddedTrials, bestTrial, toCentres, bestTrial * k, closest, nearest, secondLower);
+    // The running total for the next centre's draws is summed in the same pass (same order, same numbers).
+    potential = takeCandidate(n, c, stored, paddedTrials, bestTrial, closest, nearest, secondLower, cumulative);
   }
 }
 
 /**
  * The totals of all trials in one sweep over the rows, two rows against four candidates at a
  * time: eight independent sums keep the adder busy and each loaded value serves several pairs,
- * while every pair is still summed in column order (the same number as measured alone). A row a
- * candidate cannot win by the triangle inequality (the candidate at least twice as far from the
- * row's nearest centre as the row is) is not measured and adds its own distance. Each total is
- * summed in row order. The measured distances are kept row by row (`stored[i × padded + t]`,
- * one contiguous stream: four separate per-trial streams cost more in memory traffic than the
- * measuring) for takeCandidate.
+ * while every pair is still summed in column order (the same number as measured alone). Every
+ * row is measured against every candidate (no triangle-inequality skip: the exact distance gives
+ * takeCandidate a tighter bound and a branch-free update, and the WebAssembly sweep measures all
+ * rows anyway). Each total is summed in row order. The distances are kept row by row
+ * (`stored[i × padded + t]`, one contiguous stream) for takeCandidate.
  */
 function measureTrials(
   data: Float64Array,
   n: number,
   d: number,
-  k: number,
   trials: number,
   candidateRows: Float64Array,
-  toCentres: Float64Array,
   closest: Float64Array,
-  nearest: Int32Array,
   totals: Float64Array,
   stored: Float64Array,
   padded: number,
@@ -125,78 +119,65 @@ function measureTrials(
     const i1 = pair ? i + 1 : i;
     const own0 = closest[i];
     const own1 = closest[i1];
-    const near0 = nearest[i];
-    const near1 = nearest[i1];
     const a0 = i * d;
     const a1 = i1 * d;
     for (let t0 = 0; t0 < trials; t0 += 4) {
       const tEnd = t0 + 4 < trials ? t0 + 4 : trials;
-      // Bit t − t0 set: candidate t must be measured for that row.
-      let open0 = 0;
-      let open1 = 0;
-      for (let t = t0; t < tEnd; t++) {
-        const tk = t * k;
-        if (toCentres[tk + near0] < 4 * own0) open0 |= 1 << (t - t0);
-        if (pair && toCentres[tk + near1] < 4 * own1) open1 |= 1 << (t - t0);
+      const c0 = t0 * d;
+      const c1 = c0 + d;
+      const c2 = c1 + d;
+      const c3 = c2 + d;
+      let s00 = 0, s01 = 0, s02 = 0, s03 = 0; // prettier-ignore
+      let s10 = 0, s11 = 0, s12 = 0, s13 = 0; // prettier-ignore
+      for (let j = 0; j < d; j++) {
+        const x = data[a0 + j];
+        const y = data[a1 + j];
+        const v0 = candidateRows[c0 + j];
+        const v1 = candidateRows[c1 + j];
+        const v2 = candidateRows[c2 + j];
+        const v3 = candidateRows[c3 + j];
+        let e = x - v0;
+        s00 += e * e;
+        e = x - v1;
+        s01 += e * e;
+        e = x - v2;
+        s02 += e * e;
+        e = x - v3;
+        s03 += e * e;
+        e = y - v0;
+        s10 += e * e;
+        e = y - v1;
+        s11 += e * e;
+        e = y - v2;
+        s12 += e * e;
+        e = y - v3;
+        s13 += e * e;
       }
-      if ((open0 | open1) !== 0) {
-        const c0 = t0 * d;
-        const c1 = c0 + d;
-        const c2 = c1 + d;
-        const c3 = c2 + d;
-        let s00 = 0, s01 = 0, s02 = 0, s03 = 0; // prettier-ignore
-        let s10 = 0, s11 = 0, s12 = 0, s13 = 0; // prettier-ignore
-        for (let j = 0; j < d; j++) {
-          const x = data[a0 + j];
-          const y = data[a1 + j];
-          const v0 = candidateRows[c0 + j];
-          const v1 = candidateRows[c1 + j];
-          const v2 = candidateRows[c2 + j];
-          const v3 = candidateRows[c3 + j];
-          let e = x - v0;
-          s00 += e * e;
-          e = x - v1;
-          s01 += e * e;
-          e = x - v2;
-          s02 += e * e;
-          e = x - v3;
-          s03 += e * e;
-          e = y - v0;
-          s10 += e * e;
-          e = y - v1;
-          s11 += e * e;
-          e = y - v2;
-          s12 += e * e;
-          e = y - v3;
-          s13 += e * e;
-        }
-        sums[0] = s00;
-        sums[1] = s01;
-        sums[2] = s02;
-        sums[3] = s03;
-        sums[4] = s10;
-        sums[5] = s11;
-        sums[6] = s12;
-        sums[7] = s13;
-        const o0 = i * padded + t0;
-        stored[o0] = s00;
-        stored[o0 + 1] = s01;
-        stored[o0 + 2] = s02;
-        stored[o0 + 3] = s03;
-        if (pair) {
-          stored[o0 + padded] = s10;
-          stored[o0 + padded + 1] = s11;
-          stored[o0 + padded + 2] = s12;
-          stored[o0 + padded + 3] = s13;
-        }
+      sums[0] = s00;
+      sums[1] = s01;
+      sums[2] = s02;
+      sums[3] = s03;
+      sums[4] = s10;
+      sums[5] = s11;
+      sums[6] = s12;
+      sums[7] = s13;
+      const o0 = i * padded + t0;
+      stored[o0] = s00;
+      stored[o0 + 1] = s01;
+      stored[o0 + 2] = s02;
+      stored[o0 + 3] = s03;
+      if (pair) {
+        stored[o0 + padded] = s10;
+        stored[o0 + padded + 1] = s11;
+        stored[o0 + padded + 2] = s12;
+        stored[o0 + padded + 3] = s13;
       }
       for (let t = t0; t < tEnd; t++) {
-        const bit = 1 << (t - t0);
         let s = sums[t - t0];
-        totals[t] += (open0 & bit) !== 0 && s < own0 ? s : own0;
+        totals[t] += s < own0 ? s : own0;
         if (!pair) continue;
         s = sums[4 + t - t0];
-        totals[t] += (open1 & bit) !== 0 && s < own1 ? s : own1;
+        totals[t] += s < own1 ? s : own1;
       }
     }
   }
@@ -204,20 +185,11 @@ function measureTrials(
 
 /**
  * measureTrials as WebAssembly (seedingWasm.ts), four trials per call: the same distances,
- * stored the same way, and the same totals. Candidates go in interleaved by pairs; the four
- * candidates' squared distances to each chosen centre go in as a table by centre.
+ * stored the same way, and the same totals. Candidates go in interleaved by pairs.
  */
-function measureTrialsOnArena(
-  arena: SeedingArena,
-  chosen: number,
-  trials: number,
-  candidateRows: Float64Array,
-  toCentres: Float64Array,
-  totals: Float64Array,
-): void {
-  const { view, n, d, k, padded } = arena;
+function measureTrialsOnArena(arena: SeedingArena, trials: number, candidateRows: Float64Array, totals: Float64Array): void {
+  const { view, n, d, padded } = arena;
   const cand = arena.candAt / 8;
-  const gaps = arena.gapsAt / 8;
   const sums = arena.totalsAt / 8;
   for (let t0 = 0; t0 < trials; t0 += 4) {
     for (let j = 0; j < d; j++) {
@@ -226,18 +198,18 @@ function measureTrialsOnArena(
       view[cand + 2 * d + 2 * j] = candidateRows[(t0 + 2) * d + j];
       view[cand + 2 * d + 2 * j + 1] = candidateRows[(t0 + 3) * d + j];
     }
-    for (let e = 0; e < chosen; e++) {
-      for (let q = 0; q < 4; q++) view[gaps + e * 4 + q] = toCentres[Math.min(t0 + q, trials - 1) * k + e];
-    }
     arena.totals(arena.rowsAt, arena.candAt, arena.gapsAt, arena.closestAt, arena.nearestAt, n, d * 8, arena.storedAt + t0 * 8, padded * 8, arena.totalsAt);
     for (let t = t0; t < trials && t < t0 + 4; t++) totals[t] = view[sums + t - t0];
   }
 }
 
 /**
- * Centre c becomes the chosen candidate: rows it wins move to it, and every row's lower bound on
- * the distance to its other centres takes the new centre in. A row the triangle inequality
- * skipped gets the bound from it; the others use the distance measureTrials stored.
+ * Centre c becomes the chosen candidate: rows it wins (strictly closer; ties keep the earlier,
+ * lower-numbered centre) move to it, and every row's lower bound on the distance to its other
+ * centres takes the new centre in: the larger of the old and new nearest distances. No branch
+ * on the data except the rare move. The same pass writes the running total of the new nearest
+ * distances (row order) into `cumulative` and returns the grand total: the weights of the next
+ * centre's draws.
  */
 function takeCandidate(
   n: number,
@@ -245,32 +217,23 @@ function takeCandidate(
   stored: Float64Array,
   padded: number,
   chosen: number,
-  toChosen: Float64Array,
-  gapBase: number,
   closest: Float64Array,
   nearest: Int32Array,
   secondLower: Float64Array,
-): void {
+  cumulative: Float64Array,
+): number {
+  let running = 0;
   for (let i = 0; i < n; i++) {
     const own = closest[i];
-    const gap = toChosen[gapBase + nearest[i]];
-    if (gap >= 4 * own) {
-      const bound = Math.sqrt(gap) - Math.sqrt(own);
-      if (bound < secondLower[i]) secondLower[i] = bound;
-      continue;
-    }
     const s = stored[i * padded + chosen];
-    // Strictly closer: ties keep the earlier (lower-numbered) centre.
-    if (s < own) {
-      const previous = Math.sqrt(own);
-      if (previous < secondLower[i]) secondLower[i] = previous;
-      closest[i] = s;
-      nearest[i] = c;
-    } else {
-      const root = Math.sqrt(s);
-      if (root < secondLower[i]) secondLower[i] = root;
-    }
+    if (s < own) nearest[i] = c;
+    const now = Math.min(s, own);
+    closest[i] = now;
+    secondLower[i] = Math.min(secondLower[i], Math.sqrt(Math.max(s, own)));
+    running += now;
+    cumulative[i] = running;
   }
+  return running;
 }
 
 /** k distinct rows drawn uniformly (partial Fisher–Yates on the row indices). */

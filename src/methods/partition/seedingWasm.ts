@@ -1,17 +1,17 @@
 // The k-means++ trial sweep (measureTrials in seeding.ts) as a small WebAssembly function with
 // two-lane float64 vectors: the lanes are two candidates, each distance summed in column order
 // from 0 with separate multiply and add, and each trial's total summed in row order — so every
-// number is bit for bit what the JavaScript sweep gives, about twice as fast. Rows the triangle
-// inequality rules out are measured anyway (a vector select then adds the row's own distance,
-// as the JavaScript sweep does), which costs less than branching per row.
+// number is bit for bit what the JavaScript sweep gives, about twice as fast. Every row is
+// measured; a vector select adds the smaller of the candidate's and the row's own distance.
 //
 //   trialTotals(rows, cand, gaps, closest, nearest, count, rowBytes, stored, storedStride, totals)
+//     (`gaps` and `nearest` are not read: the parameters keep the arena's layout unchanged)
 //     tot01 = tot23 = 0
 //     for each of `count` rows:
-//       own = splat(closest), gap = the four candidates' squared distances to the row's nearest centre
+//       own = splat(closest)
 //       acc01, acc23 = Σ over columns (x − candidate)²   (candidates interleaved in pairs at cand)
 //       stored[0..3] = acc
-//       tot += gap ≥ 4·own ? own : (acc < own ? acc : own)
+//       tot += acc < own ? acc : own
 //     totals[0..3] = tot
 /** Where things live in a seeding arena (bytes). Four trials per group. */
 export interface SeedingArena {
@@ -138,19 +138,16 @@ export function trialModuleBytes(): Uint8Array {
   const accumulate = (acc: number, offsetRows: number[]) => [
     ...localGet(acc), ...localGet(X), ...offsetRows, ...F64X2_SUB, ...localTee(E), ...localGet(E), ...F64X2_MUL, ...F64X2_ADD, ...localSet(acc),
   ]; // prettier-ignore
-  // tot += gap ≥ 4·own ? own : (acc < own ? acc : own)
-  const contribute = (tot: number, acc: number, gapOffset: number) => [
-    ...localGet(acc), ...localGet(OWN), ...localGet(acc), ...localGet(OWN), ...F64X2_LT, ...V128_BITSELECT, ...localSet(M),
-    ...localGet(tot), ...localGet(OWN), ...localGet(M), ...localGet(GAP_AT), ...v128Load(gapOffset), ...localGet(FOUR), ...F64X2_GE, ...V128_BITSELECT,
+  // tot += acc < own ? acc : own
+  const contribute = (tot: number, acc: number) => [
+    ...localGet(tot), ...localGet(acc), ...localGet(OWN), ...localGet(acc), ...localGet(OWN), ...F64X2_LT, ...V128_BITSELECT,
     ...F64X2_ADD, ...localSet(tot),
   ]; // prettier-ignore
   const body = [
     ...V128_ZERO, ...localSet(TOT01), ...V128_ZERO, ...localSet(TOT23),
     ...BLOCK, ...localGet(COUNT), ...I32_EQZ, ...brIf(0),
     ...LOOP,
-    ...localGet(CLOSEST), ...F64_LOAD, ...F64X2_SPLAT, ...localTee(OWN),
-    ...F64_CONST_4, ...F64X2_SPLAT, ...F64X2_MUL, ...localSet(FOUR),
-    ...localGet(GAPS), ...localGet(NEAREST), ...I32_LOAD, ...i32Const(5), ...I32_SHL, ...I32_ADD, ...localSet(GAP_AT),
+    ...localGet(CLOSEST), ...F64_LOAD, ...F64X2_SPLAT, ...localSet(OWN),
     ...V128_ZERO, ...localSet(ACC01), ...V128_ZERO, ...localSet(ACC23),
     ...i32Const(0), ...localSet(U),
     ...LOOP,
@@ -160,10 +157,9 @@ export function trialModuleBytes(): Uint8Array {
     ...localGet(U), ...i32Const(8), ...I32_ADD, ...localTee(U), ...localGet(ROW_BYTES), ...I32_LT_U, ...brIf(0),
     ...END,
     ...localGet(STORED), ...localGet(ACC01), ...v128Store(0), ...localGet(STORED), ...localGet(ACC23), ...v128Store(16),
-    ...contribute(TOT01, ACC01, 0), ...contribute(TOT23, ACC23, 16),
+    ...contribute(TOT01, ACC01), ...contribute(TOT23, ACC23),
     ...localGet(ROWS), ...localGet(ROW_BYTES), ...I32_ADD, ...localSet(ROWS),
     ...localGet(CLOSEST), ...i32Const(8), ...I32_ADD, ...localSet(CLOSEST),
-    ...localGet(NEAREST), ...i32Const(4), ...I32_ADD, ...localSet(NEAREST),
     ...localGet(STORED), ...localGet(STORED_STRIDE), ...I32_ADD, ...localSet(STORED),
     ...localGet(COUNT), ...i32Const(1), ...I32_SUB, ...localTee(COUNT), ...brIf(0),
     ...END,
