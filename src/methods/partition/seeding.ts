@@ -198,8 +198,18 @@ function measureTrialsOnArena(arena: SeedingArena, trials: number, candidateRows
       view[cand + 2 * d + 2 * j] = candidateRows[(t0 + 2) * d + j];
       view[cand + 2 * d + 2 * j + 1] = candidateRows[(t0 + 3) * d + j];
     }
-    arena.totals(arena.rowsAt, arena.candAt, arena.gapsAt, arena.closestAt, arena.nearestAt, n, d * 8, arena.storedAt + t0 * 8, padded * 8, arena.totalsAt);
+    arena.totals(arena.rowsAt, arena.candAt, arena.gapsAt, arena.closestAt, arena.nearestAt, n >> 1, d * 8, arena.storedAt + t0 * 8, padded * 8, arena.totalsAt);
     for (let t = t0; t < trials && t < t0 + 4; t++) totals[t] = view[sums + t - t0];
+    if (n % 2 === 1) {
+      // The sweep takes rows in pairs: an odd last row is measured here, added last (row order).
+      const i = n - 1;
+      const own = view[arena.closestAt / 8 + i];
+      for (let t = t0; t < t0 + 4; t++) {
+        const s = squaredDistanceRows(view, arena.rowsAt / 8 + i * d, candidateRows, t * d, d);
+        view[arena.storedAt / 8 + i * padded + t] = s;
+        if (t < trials) totals[t] += s < own ? s : own;
+      }
+    }
   }
 }
 

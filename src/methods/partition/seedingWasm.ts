@@ -7,7 +7,7 @@
 //   trialTotals(rows, cand, gaps, closest, nearest, count, rowBytes, stored, storedStride, totals)
 //     (`gaps` and `nearest` are not read: the parameters keep the arena's layout unchanged)
 //     tot01 = tot23 = 0
-//     for each of `count` rows:
+//     for each of `count` row pairs, each row of the pair in turn (two rows share each candidate load):
 //       own = splat(closest)
 //       acc01, acc23 = Σ over columns (x − candidate)²   (candidates interleaved in pairs at cand)
 //       stored[0..3] = acc
@@ -114,15 +114,13 @@ const I32_SUB = [0x6b];
 const I32_SHL = [0x74];
 const I32_LT_U = [0x49];
 const I32_EQZ = [0x45];
-const I32_LOAD = [0x28, 2, 0];
 const F64_LOAD = [0x2b, 3, 0];
-const F64_CONST_4 = [0x44, 0, 0, 0, 0, 0, 0, 0x10, 0x40];
+const f64LoadAt = (offset: number) => [0x2b, 3, ...uleb(offset)];
 const v128Load = (offset: number) => [...vectorOp(0), 0, ...uleb(offset)];
 const v128Store = (offset: number) => [...vectorOp(11), 0, ...uleb(offset)];
 const V128_ZERO = [...vectorOp(12), ...new Array<number>(16).fill(0)];
 const F64X2_SPLAT = vectorOp(20);
 const F64X2_LT = vectorOp(73);
-const F64X2_GE = vectorOp(76);
 const V128_BITSELECT = vectorOp(82);
 const F64X2_ADD = vectorOp(240);
 const F64X2_SUB = vectorOp(241);
@@ -133,34 +131,47 @@ const END = [0x0b];
 const brIf = (depth: number) => [0x0d, depth];
 
 export function trialModuleBytes(): Uint8Array {
-  const [ROWS, CAND, GAPS, CLOSEST, NEAREST, COUNT, ROW_BYTES, STORED, STORED_STRIDE, TOTALS, U, GAP_AT] = Array.from({ length: 12 }, (_, i) => i);
-  const [OWN, FOUR, X, ACC01, ACC23, E, TOT01, TOT23, M] = Array.from({ length: 9 }, (_, i) => 12 + i);
-  const accumulate = (acc: number, offsetRows: number[]) => [
-    ...localGet(acc), ...localGet(X), ...offsetRows, ...F64X2_SUB, ...localTee(E), ...localGet(E), ...F64X2_MUL, ...F64X2_ADD, ...localSet(acc),
+  // Parameters 2 and 4 (gaps, nearest) are not read.
+  const [ROWS, CAND, , CLOSEST, , COUNT, ROW_BYTES, STORED, STORED_STRIDE, TOTALS, U, NEXT_ROW] = Array.from({ length: 12 }, (_, i) => i);
+  const [OWN0, OWN1, X, A0, B0, A1, B1, E, TOT01, TOT23, C01, C23] = Array.from({ length: 12 }, (_, i) => 12 + i);
+  // acc += (x − candidates)²
+  const accumulate = (acc: number, candidates: number) => [
+    ...localGet(acc), ...localGet(X), ...localGet(candidates), ...F64X2_SUB, ...localTee(E), ...localGet(E), ...F64X2_MUL, ...F64X2_ADD, ...localSet(acc),
   ]; // prettier-ignore
   // tot += acc < own ? acc : own
-  const contribute = (tot: number, acc: number) => [
-    ...localGet(tot), ...localGet(acc), ...localGet(OWN), ...localGet(acc), ...localGet(OWN), ...F64X2_LT, ...V128_BITSELECT,
+  const contribute = (tot: number, acc: number, own: number) => [
+    ...localGet(tot), ...localGet(acc), ...localGet(own), ...localGet(acc), ...localGet(own), ...F64X2_LT, ...V128_BITSELECT,
     ...F64X2_ADD, ...localSet(tot),
   ]; // prettier-ignore
+  // Two rows per turn (four independent sums; each candidate load serves both rows). `count` is
+  // the number of row pairs; the caller measures an odd last row itself.
   const body = [
     ...V128_ZERO, ...localSet(TOT01), ...V128_ZERO, ...localSet(TOT23),
     ...BLOCK, ...localGet(COUNT), ...I32_EQZ, ...brIf(0),
     ...LOOP,
-    ...localGet(CLOSEST), ...F64_LOAD, ...F64X2_SPLAT, ...localSet(OWN),
-    ...V128_ZERO, ...localSet(ACC01), ...V128_ZERO, ...localSet(ACC23),
+    ...localGet(CLOSEST), ...F64_LOAD, ...F64X2_SPLAT, ...localSet(OWN0),
+    ...localGet(CLOSEST), ...f64LoadAt(8), ...F64X2_SPLAT, ...localSet(OWN1),
+    ...localGet(ROWS), ...localGet(ROW_BYTES), ...I32_ADD, ...localSet(NEXT_ROW),
+    ...V128_ZERO, ...localSet(A0), ...V128_ZERO, ...localSet(B0), ...V128_ZERO, ...localSet(A1), ...V128_ZERO, ...localSet(B1),
     ...i32Const(0), ...localSet(U),
     ...LOOP,
+    ...localGet(CAND), ...localGet(U), ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0), ...localSet(C01),
+    ...localGet(CAND), ...localGet(ROW_BYTES), ...localGet(U), ...I32_ADD, ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0), ...localSet(C23),
     ...localGet(ROWS), ...localGet(U), ...I32_ADD, ...F64_LOAD, ...F64X2_SPLAT, ...localSet(X),
-    ...accumulate(ACC01, [...localGet(CAND), ...localGet(U), ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0)]),
-    ...accumulate(ACC23, [...localGet(CAND), ...localGet(ROW_BYTES), ...localGet(U), ...I32_ADD, ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0)]),
+    ...accumulate(A0, C01), ...accumulate(B0, C23),
+    ...localGet(NEXT_ROW), ...localGet(U), ...I32_ADD, ...F64_LOAD, ...F64X2_SPLAT, ...localSet(X),
+    ...accumulate(A1, C01), ...accumulate(B1, C23),
     ...localGet(U), ...i32Const(8), ...I32_ADD, ...localTee(U), ...localGet(ROW_BYTES), ...I32_LT_U, ...brIf(0),
     ...END,
-    ...localGet(STORED), ...localGet(ACC01), ...v128Store(0), ...localGet(STORED), ...localGet(ACC23), ...v128Store(16),
-    ...contribute(TOT01, ACC01), ...contribute(TOT23, ACC23),
-    ...localGet(ROWS), ...localGet(ROW_BYTES), ...I32_ADD, ...localSet(ROWS),
-    ...localGet(CLOSEST), ...i32Const(8), ...I32_ADD, ...localSet(CLOSEST),
-    ...localGet(STORED), ...localGet(STORED_STRIDE), ...I32_ADD, ...localSet(STORED),
+    ...localGet(STORED), ...localGet(A0), ...v128Store(0), ...localGet(STORED), ...localGet(B0), ...v128Store(16),
+    ...localGet(STORED), ...localGet(STORED_STRIDE), ...I32_ADD, ...localSet(U),
+    ...localGet(U), ...localGet(A1), ...v128Store(0), ...localGet(U), ...localGet(B1), ...v128Store(16),
+    // Row order within each total: the first row of the pair, then the second.
+    ...contribute(TOT01, A0, OWN0), ...contribute(TOT23, B0, OWN0),
+    ...contribute(TOT01, A1, OWN1), ...contribute(TOT23, B1, OWN1),
+    ...localGet(NEXT_ROW), ...localGet(ROW_BYTES), ...I32_ADD, ...localSet(ROWS),
+    ...localGet(CLOSEST), ...i32Const(16), ...I32_ADD, ...localSet(CLOSEST),
+    ...localGet(U), ...localGet(STORED_STRIDE), ...I32_ADD, ...localSet(STORED),
     ...localGet(COUNT), ...i32Const(1), ...I32_SUB, ...localTee(COUNT), ...brIf(0),
     ...END,
     ...END,
@@ -169,7 +180,7 @@ export function trialModuleBytes(): Uint8Array {
   ]; // prettier-ignore
   const I32 = 0x7f;
   const V128 = 0x7b;
-  const code = [...vector([[...uleb(2), I32], [...uleb(9), V128]]), ...body];
+  const code = [...vector([[...uleb(2), I32], [...uleb(12), V128]]), ...body];
   return new Uint8Array([
     0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0,
     ...section(1, vector([[0x60, ...vector(new Array<number[]>(10).fill([I32])), 0]])), // (i32 × 10) → ()
