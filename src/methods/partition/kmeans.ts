@@ -6,7 +6,7 @@ import { checkInteger, checkNumber, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
 import type { Seed } from '../../random';
 import { checkSegmentCount, partitionRows } from './partition-input';
-import { meanColumnVariance, partitionFigures, settleExactly } from './partition-summary';
+import { grandSpread, partitionFigures, settleExactly } from './partition-summary';
 import { runRestarts, type RestartPlan } from './restarts';
 
 export type KmeansStart = 'k-means++' | 'random' | readonly (readonly number[])[];
@@ -101,6 +101,9 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   const trace = opts.trace === true;
 
   const data = m.data;
+  // One pass for the total sum of squares: it scales the tolerance (total / (n·d) is the mean of
+  // the column variances) and is reported with the figures.
+  const spread = grandSpread(data, n, d);
   const plan: RestartPlan = {
     data,
     n,
@@ -109,7 +112,7 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
     start: given ?? (start as 'k-means++' | 'random'),
     seed: opts.seed ?? 0,
     maxIterations,
-    tolerance: tolerance * meanColumnVariance(data, n, d),
+    tolerance: tolerance * (spread.totalSS / (n * d)),
     trace,
   };
   let reported = 0;
@@ -122,7 +125,7 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   progress(restarts);
   // One full exact scan of the kept restart (the iterations skipped rows by their bounds).
   const extra = settleExactly(data, n, d, k, kept.assignment, kept.centers, Math.max(1, maxIterations - kept.iterations));
-  const figures = partitionFigures(data, n, d, k, kept.assignment, kept.centers);
+  const figures = partitionFigures(data, n, d, k, kept.assignment, kept.centers, spread);
   if (extra > 0) restartWithinSS[kept.restart] = figures.withinSS;
   return {
     kind: 'kmeans',

@@ -33,7 +33,25 @@ export interface PartitionFigures {
   totalSS: number;
 }
 
-/** Sizes and sums of squares of an assignment whose centres are the means of their rows. */
+/** The grand mean of the rows and the total sum of squares about it (each row's squared distance, in row order). */
+export interface GrandSpread {
+  grand: Float64Array;
+  totalSS: number;
+}
+
+export function grandSpread(data: Float64Array, n: number, d: number): GrandSpread {
+  const grand = new Float64Array(d);
+  for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) grand[j] += data[i * d + j];
+  for (let j = 0; j < d; j++) grand[j] /= n;
+  let totalSS = 0;
+  for (let i = 0; i < n; i++) totalSS += squaredDistance(data, i * d, grand, 0, d);
+  return { grand, totalSS };
+}
+
+/**
+ * Sizes and sums of squares of an assignment whose centres are the means of their rows. A caller
+ * that already has the grand mean and total (`spread`) passes it in to save two passes.
+ */
 export function partitionFigures(
   data: Float64Array,
   n: number,
@@ -41,17 +59,12 @@ export function partitionFigures(
   k: number,
   assignment: Int32Array,
   centers: Float64Array,
+  spread: GrandSpread = grandSpread(data, n, d),
 ): PartitionFigures {
-  const grand = new Float64Array(d);
-  for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) grand[j] += data[i * d + j];
-  for (let j = 0; j < d; j++) grand[j] /= n;
+  const { grand, totalSS } = spread;
   const sizes = new Array<number>(k).fill(0);
   const bySegment = new Array<number>(k);
-  let totalSS = 0;
-  for (let i = 0; i < n; i++) {
-    sizes[assignment[i]]++;
-    totalSS += squaredDistance(data, i * d, grand, 0, d);
-  }
+  for (let i = 0; i < n; i++) sizes[assignment[i]]++;
   const withinSS = withinFor(data, centers, assignment, n, d, bySegment);
   let betweenSS = 0;
   for (let c = 0; c < k; c++) betweenSS += sizes[c] * squaredDistance(centers, c * d, grand, 0, d);
