@@ -110,19 +110,25 @@ export function settleExactly(data: Float64Array, n: number, d: number, k: numbe
 
 /**
  * Every row to its nearest centre by a full scan; returns how many rows changed segment. Fills
- * counts. Four centres are measured together (four independent sums keep the adder busy; each
- * distance is still summed in column order) and then compared in centre order, so ties go to
- * the lower segment number exactly as one centre at a time would.
+ * counts. Two rows against four centres at a time (eight independent sums keep the adder busy;
+ * each distance is still summed in column order) and then compared in centre order, so ties go
+ * to the lower segment number exactly as one centre at a time would.
  */
 function assignNearest(data: Float64Array, centers: Float64Array, ws: LloydWorkspace): number {
   const { n, d, k, assignment, counts } = ws;
   counts.fill(0);
   let changed = 0;
   const grouped = k - (k % 4);
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < n; i += 2) {
+    // An odd last row is paired with itself; the copy's result is not used.
+    const pair = i + 1 < n;
+    const i1 = pair ? i + 1 : i;
     const ib = i * d;
-    let best = 0;
-    let bestD = Infinity;
+    const jb = i1 * d;
+    let best0 = 0;
+    let bestD0 = Infinity;
+    let best1 = 0;
+    let bestD1 = Infinity;
     let c = 0;
     for (; c < grouped; c += 4) {
       const c0 = c * d;
@@ -130,44 +136,83 @@ function assignNearest(data: Float64Array, centers: Float64Array, ws: LloydWorks
       const c2 = c1 + d;
       const c3 = c2 + d;
       let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
+      let t0 = 0, t1 = 0, t2 = 0, t3 = 0; // prettier-ignore
       for (let j = 0; j < d; j++) {
         const x = data[ib + j];
-        let e = x - centers[c0 + j];
+        const y = data[jb + j];
+        const v0 = centers[c0 + j];
+        const v1 = centers[c1 + j];
+        const v2 = centers[c2 + j];
+        const v3 = centers[c3 + j];
+        let e = x - v0;
         s0 += e * e;
-        e = x - centers[c1 + j];
+        e = x - v1;
         s1 += e * e;
-        e = x - centers[c2 + j];
+        e = x - v2;
         s2 += e * e;
-        e = x - centers[c3 + j];
+        e = x - v3;
         s3 += e * e;
+        e = y - v0;
+        t0 += e * e;
+        e = y - v1;
+        t1 += e * e;
+        e = y - v2;
+        t2 += e * e;
+        e = y - v3;
+        t3 += e * e;
       }
-      if (s0 < bestD) {
-        bestD = s0;
-        best = c;
+      if (s0 < bestD0) {
+        bestD0 = s0;
+        best0 = c;
       }
-      if (s1 < bestD) {
-        bestD = s1;
-        best = c + 1;
+      if (s1 < bestD0) {
+        bestD0 = s1;
+        best0 = c + 1;
       }
-      if (s2 < bestD) {
-        bestD = s2;
-        best = c + 2;
+      if (s2 < bestD0) {
+        bestD0 = s2;
+        best0 = c + 2;
       }
-      if (s3 < bestD) {
-        bestD = s3;
-        best = c + 3;
+      if (s3 < bestD0) {
+        bestD0 = s3;
+        best0 = c + 3;
+      }
+      if (t0 < bestD1) {
+        bestD1 = t0;
+        best1 = c;
+      }
+      if (t1 < bestD1) {
+        bestD1 = t1;
+        best1 = c + 1;
+      }
+      if (t2 < bestD1) {
+        bestD1 = t2;
+        best1 = c + 2;
+      }
+      if (t3 < bestD1) {
+        bestD1 = t3;
+        best1 = c + 3;
       }
     }
     for (; c < k; c++) {
       const s = squaredDistance(data, ib, centers, c * d, d);
-      if (s < bestD) {
-        bestD = s;
-        best = c;
+      if (s < bestD0) {
+        bestD0 = s;
+        best0 = c;
+      }
+      const t = squaredDistance(data, jb, centers, c * d, d);
+      if (t < bestD1) {
+        bestD1 = t;
+        best1 = c;
       }
     }
-    if (assignment[i] !== best) changed++;
-    assignment[i] = best;
-    counts[best]++;
+    if (assignment[i] !== best0) changed++;
+    assignment[i] = best0;
+    counts[best0]++;
+    if (!pair) continue;
+    if (assignment[i1] !== best1) changed++;
+    assignment[i1] = best1;
+    counts[best1]++;
   }
   return changed;
 }
