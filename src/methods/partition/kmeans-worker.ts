@@ -27,6 +27,7 @@ function runJob(shared: SharedRestarts): void {
     Atomics.add(control, 1, 1);
     Atomics.notify(control, 1);
   }
+  runner?.release();
   if (best >= 0) shared.workerBest[0] = best;
   Atomics.store(control, 2, 1);
   Atomics.notify(control, 2);

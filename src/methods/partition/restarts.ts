@@ -8,7 +8,7 @@ import { createRandom, type Random, type Seed } from '../../random';
 import { createWorkspace, runHamerly, withinFor, type LloydWorkspace } from './hamerly';
 import { centresToMeans } from './partition-summary';
 import { createSeedingState, defaultTrials, seedPlusPlus, seedRandomRows, type SeedingState } from './seeding';
-import { createSeedingArena } from './seedingWasm';
+import { createSeedingArena, releaseSeedingArena } from './seedingWasm';
 
 export interface RestartPlan {
   data: Float64Array;
@@ -47,6 +47,11 @@ export class RestartRunner {
       : undefined; // prettier-ignore
     this.seeding = createSeedingState(plan.n, arena);
     this.root = createRandom(plan.seed);
+  }
+
+  /** Done with all restarts: the seeding memory goes back for reuse by the next call. */
+  release(): void {
+    releaseSeedingArena(this.seeding.arena);
   }
 
   run(r: number): RestartOutcome {
@@ -119,13 +124,17 @@ function localRestarts(plan: RestartPlan, restarts: number, onDone: (done: numbe
   const runner = new RestartRunner(plan);
   const withinByRestart: number[] = [];
   let kept: KeptRestart | undefined;
-  for (let r = 0; r < restarts; r++) {
-    const outcome = runner.run(r);
-    withinByRestart.push(outcome.within);
-    if (kept === undefined || outcome.within < kept.within) {
-      kept = { ...outcome, restart: r, assignment: runner.ws.assignment.slice(), centers: runner.centers.slice() };
+  try {
+    for (let r = 0; r < restarts; r++) {
+      const outcome = runner.run(r);
+      withinByRestart.push(outcome.within);
+      if (kept === undefined || outcome.within < kept.within) {
+        kept = { ...outcome, restart: r, assignment: runner.ws.assignment.slice(), centers: runner.centers.slice() };
+      }
+      onDone(r + 1);
     }
-    onDone(r + 1);
+  } finally {
+    runner.release();
   }
   return { kept: kept!, withinByRestart, byWorker: 0 };
 }
@@ -181,6 +190,7 @@ function sharedRestarts(plan: RestartPlan, restarts: number, onDone: (done: numb
     }
     onDone(Atomics.add(control, 1, 1) + 1);
   }
+  runner.release();
   waitFor(control, 1, restarts);
   const byWorker = Atomics.load(control, 3);
   if (byWorker > 0) {

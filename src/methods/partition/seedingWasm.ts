@@ -75,7 +75,13 @@ export function createSeedingArena(data: Float64Array, n: number, d: number, k: 
   if (bytes > 65536 * 32768) return undefined; // 2 GiB: leave such sizes to the JavaScript sweep
   try {
     const pages = Math.ceil(bytes / 65536);
-    const memory = new WebAssembly.Memory({ initial: pages, maximum: pages });
+    let memory: WebAssembly.Memory;
+    if (spare !== undefined && spare.buffer.byteLength === pages * 65536) {
+      memory = spare;
+      spare = undefined; // in use until released: a nested call gets a memory of its own
+    } else {
+      memory = new WebAssembly.Memory({ initial: pages, maximum: pages });
+    }
     const instance = new WebAssembly.Instance(module, { env: { memory } });
     const view = new Float64Array(memory.buffer);
     view.set(data.subarray(0, n * d), rowsAt / 8);
@@ -86,6 +92,15 @@ export function createSeedingArena(data: Float64Array, n: number, d: number, k: 
   } catch {
     return undefined;
   }
+}
+
+// One spare memory per thread, kept between calls: a notebook runs k-means again and again on
+// rows of the same size, and a fresh memory pays its allocation and page faults every time.
+let spare: WebAssembly.Memory | undefined;
+
+/** Hands an arena's memory back for the next call's arena; the arena must not be used afterwards. */
+export function releaseSeedingArena(arena: SeedingArena | undefined): void {
+  if (arena !== undefined) spare = arena.memory;
 }
 
 // ---- assembling the module (the same encoding helpers as measure/wasmPairs.ts) ----
