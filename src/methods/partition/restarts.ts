@@ -158,8 +158,14 @@ function sharedArray<T extends Float64Array | Int32Array>(make: new (b: SharedAr
   return new make(new SharedArrayBuffer(length * bytes));
 }
 
+// The shared copy of the rows of the last call, reused by the next call of the same size (a fresh
+// one pays its allocation and page faults). Taken while in use, so a nested call gets its own.
+let spareRows: Float64Array | undefined;
+
 function sharedRestarts(plan: RestartPlan, restarts: number, onDone: (done: number) => void, workerFile: string): RestartsResult {
-  const data = sharedArray(Float64Array, plan.data.length, 8);
+  const reuse = spareRows !== undefined && spareRows.length === plan.data.length;
+  const data = reuse ? spareRows! : sharedArray(Float64Array, plan.data.length, 8);
+  spareRows = undefined;
   data.set(plan.data);
   const sharedPlan: RestartPlan = { ...plan, data };
   const shared: SharedRestarts = {
@@ -192,6 +198,8 @@ function sharedRestarts(plan: RestartPlan, restarts: number, onDone: (done: numb
   }
   runner.release();
   waitFor(control, 1, restarts);
+  // Every restart is done: the worker no longer reads the rows (a late worker only finds none left).
+  spareRows = data;
   const byWorker = Atomics.load(control, 3);
   if (byWorker > 0) {
     waitFor(control, 2, 1);
