@@ -41,6 +41,26 @@ export function createWorkspace(n: number, d: number, k: number): LloydWorkspace
   };
 }
 
+// Spare workspaces kept between calls (at most two per thread: a restart runner's and the exact
+// finish's): a notebook runs k-means again and again on rows of the same size, and fresh arrays
+// pay their allocation and page faults each time. A taken workspace is no longer spare, so a
+// nested call gets arrays of its own.
+const spareWorkspaces: LloydWorkspace[] = [];
+
+/** A workspace for n × d rows and k centres: a spare one of that shape, or a new one. Contents are arbitrary. */
+export function takeWorkspace(n: number, d: number, k: number): LloydWorkspace {
+  const at = spareWorkspaces.findIndex((ws) => ws.n === n && ws.d === d && ws.k === k);
+  if (at < 0) return createWorkspace(n, d, k);
+  return spareWorkspaces.splice(at, 1)[0];
+}
+
+/** Hands a workspace back for a later call; it must not be used afterwards. */
+export function giveBackWorkspace(ws: LloydWorkspace): void {
+  if (spareWorkspaces.includes(ws)) return;
+  spareWorkspaces.push(ws);
+  if (spareWorkspaces.length > 2) spareWorkspaces.shift();
+}
+
 export interface LloydRun {
   /** Centre updates made. */
   iterations: number;

@@ -1,7 +1,7 @@
 // The exact end of a k-means run: every row to its nearest centre (ties: lower segment number),
 // centres recomputed as the means of their rows, and the sums of squares from scratch — so the
 // reported figures do not carry rounding drift from the incremental updates of the iterations.
-import { createWorkspace, repairEmpty, squaredDistance, withinFor, type LloydWorkspace } from './hamerly';
+import { giveBackWorkspace, repairEmpty, takeWorkspace, squaredDistance, withinFor, type LloydWorkspace } from './hamerly';
 
 /** Sums per segment from scratch (counts must be filled). */
 export function sumsFromScratch(data: Float64Array, ws: LloydWorkspace): void {
@@ -94,7 +94,7 @@ export function meanColumnVariance(data: Float64Array, n: number, d: number): nu
  * assignment is nearest-centre for centres that are the means of their rows, unless the cap hit.
  */
 export function settleExactly(data: Float64Array, n: number, d: number, k: number, assignment: Int32Array, centers: Float64Array, maxSteps: number): number {
-  const ws = createWorkspace(n, d, k);
+  const ws = takeWorkspace(n, d, k);
   ws.assignment.set(assignment);
   let steps = 0;
   for (;;) {
@@ -105,6 +105,7 @@ export function settleExactly(data: Float64Array, n: number, d: number, k: numbe
   }
   if (steps > 0) centresToMeans(data, centers, ws);
   assignment.set(ws.assignment);
+  giveBackWorkspace(ws);
   return steps;
 }
 

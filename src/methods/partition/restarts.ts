@@ -5,7 +5,7 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { createRandom, type Random, type Seed } from '../../random';
-import { createWorkspace, runHamerly, withinFor, type LloydWorkspace } from './hamerly';
+import { giveBackWorkspace, runHamerly, takeWorkspace, withinFor, type LloydWorkspace } from './hamerly';
 import { centresToMeans } from './partition-summary';
 import { createSeedingState, defaultTrials, seedPlusPlus, seedRandomRows, type SeedingState } from './seeding';
 import { createSeedingArena, releaseSeedingArena } from './seedingWasm';
@@ -39,7 +39,7 @@ export class RestartRunner {
   private readonly root: Random;
 
   constructor(private readonly plan: RestartPlan) {
-    this.ws = createWorkspace(plan.n, plan.d, plan.k);
+    this.ws = takeWorkspace(plan.n, plan.d, plan.k);
     this.centers = new Float64Array(plan.k * plan.d);
     // k-means++ sweeps run as WebAssembly where available (same numbers, about twice as fast).
     const arena = plan.start === 'k-means++' && seedingWasmWanted
@@ -49,9 +49,10 @@ export class RestartRunner {
     this.root = createRandom(plan.seed);
   }
 
-  /** Done with all restarts: the seeding memory goes back for reuse by the next call. */
+  /** Done with all restarts: the seeding memory and the workspace go back for reuse by the next call. */
   release(): void {
     releaseSeedingArena(this.seeding.arena);
+    giveBackWorkspace(this.ws);
   }
 
   run(r: number): RestartOutcome {
