@@ -11,6 +11,8 @@ export interface SeedingState {
   readonly nearest: Int32Array;
   readonly closest: Float64Array;
   readonly secondLower: Float64Array;
+  /** Scratch: running totals of `closest` for the weighted draws. */
+  readonly cumulative: Float64Array;
   /** Where the trial sweep runs as WebAssembly: `closest` and `nearest` then live in its memory. */
   readonly arena?: SeedingArena;
 }
@@ -20,11 +22,12 @@ export function createSeedingState(n: number, arena?: SeedingArena): SeedingStat
     return {
       nearest: new Int32Array(arena.memory.buffer, arena.nearestAt, n),
       closest: new Float64Array(arena.memory.buffer, arena.closestAt, n),
-      secondLower: new Float64Array(n),
+      secondLower: new Float64Array(arena.memory.buffer, arena.secondLowerAt, n),
+      cumulative: new Float64Array(arena.memory.buffer, arena.cumulativeAt, n),
       arena,
     };
   }
-  return { nearest: new Int32Array(n), closest: new Float64Array(n), secondLower: new Float64Array(n) };
+  return { nearest: new Int32Array(n), closest: new Float64Array(n), secondLower: new Float64Array(n), cumulative: new Float64Array(n) };
 }
 
 /** Greedy trials per new centre: 2 + floor(ln k) (common practice). */
@@ -50,8 +53,7 @@ export function seedPlusPlus(
   state: SeedingState = createSeedingState(n),
   trials = defaultTrials(k),
 ): void {
-  const { nearest, closest, secondLower } = state;
-  const cumulative = new Float64Array(n);
+  const { nearest, closest, secondLower, cumulative } = state;
   const candidates = new Int32Array(trials);
   const totals = new Float64Array(trials);
   const paddedTrials = 4 * Math.ceil(trials / 4);

@@ -32,6 +32,9 @@ export interface SeedingArena {
   readonly candAt: number;
   readonly gapsAt: number;
   readonly totalsAt: number;
+  /** Scratch rows for the seeding state kept here too, so a reused memory spares their allocation. */
+  readonly secondLowerAt: number;
+  readonly cumulativeAt: number;
 }
 
 export type PairsTotals = (
@@ -71,7 +74,9 @@ export function createSeedingArena(data: Float64Array, n: number, d: number, k: 
   const candAt = storedAt + n * padded * 8;
   const gapsAt = candAt + padded * d * 8;
   const totalsAt = gapsAt + k * padded * 8;
-  const bytes = totalsAt + padded * 8;
+  const secondLowerAt = totalsAt + padded * 8;
+  const cumulativeAt = secondLowerAt + n * 8;
+  const bytes = cumulativeAt + n * 8;
   if (bytes > 65536 * 32768) return undefined; // 2 GiB: leave such sizes to the JavaScript sweep
   try {
     const pages = Math.ceil(bytes / 65536);
@@ -87,7 +92,7 @@ export function createSeedingArena(data: Float64Array, n: number, d: number, k: 
     view.set(data.subarray(0, n * d), rowsAt / 8);
     return {
       memory, view, totals: instance.exports.trialTotals as PairsTotals, source: data, n, d, k, padded,
-      rowsAt, closestAt, nearestAt, storedAt, candAt, gapsAt, totalsAt,
+      rowsAt, closestAt, nearestAt, storedAt, candAt, gapsAt, totalsAt, secondLowerAt, cumulativeAt,
     }; // prettier-ignore
   } catch {
     return undefined;
