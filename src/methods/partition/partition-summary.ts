@@ -71,22 +71,6 @@ export function partitionFigures(
   return { sizes, withinSS, withinSSBySegment: bySegment, betweenSS, totalSS };
 }
 
-/** Mean over columns of the column variances (population), which scales the tolerance. */
-export function meanColumnVariance(data: Float64Array, n: number, d: number): number {
-  // Two passes in row order (cache-friendly): the means, then the squared deviations.
-  const mean = new Float64Array(d);
-  for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) mean[j] += data[i * d + j];
-  for (let j = 0; j < d; j++) mean[j] /= n;
-  let total = 0;
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < d; j++) {
-      const diff = data[i * d + j] - mean[j];
-      total += diff * diff;
-    }
-  }
-  return d > 0 ? total / n / d : 0;
-}
-
 /**
  * The exact last word on a kept k-means result: every row to its nearest centre by a full scan
  * (ties: lower segment number), and while that moves any row, centres to the means and scan

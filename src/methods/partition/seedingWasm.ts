@@ -1,7 +1,7 @@
 // The k-means++ trial sweep (measureTrials in seeding.ts) as a small WebAssembly function with
 // two-lane float64 vectors: the lanes are two candidates, each distance summed in column order
 // from 0 with separate multiply and add, and each trial's total summed in row order — so every
-// number is bit for bit what the JavaScript sweep gives, about twice as fast. Every row is
+// number is bit for bit what the JavaScript sweep gives, with one instruction serving two candidates. Every row is
 // measured; a vector select adds the smaller of the candidate's and the row's own distance.
 //
 //   trialTotals(rows, cand, gaps, closest, nearest, count, rowBytes, stored, storedStride, totals)
