@@ -19,6 +19,9 @@
 //       store acc0, acc1 at out0 and acc2, acc3 at out1; p += 4·rowBytes; out0, out1 += 32
 //
 // All addresses are bytes into one shared memory laid out by `pairsLayout`.
+import {
+  uleb, section, vector, text, localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, V128_LOAD, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_SQRT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, IF, END, brIf,
+} from '../core/wasm-encoding';
 
 /** Byte offsets in the shared memory: the condensed output first, then the rows, then the rows interleaved in pairs. */
 export interface PairsLayout {
@@ -124,61 +127,7 @@ export function instantiatePairs(module: WebAssembly.Module, layout: PairsLayout
 
 export type PairsFunction = (a0: number, a1: number, p: number, count: number, rowBytes: number, out0: number, out1: number, root: number) => void;
 
-// ---- assembling the module ----
-
-function uleb(value: number): number[] {
-  const out: number[] = [];
-  do {
-    let byte = value & 0x7f;
-    value >>>= 7;
-    if (value !== 0) byte |= 0x80;
-    out.push(byte);
-  } while (value !== 0);
-  return out;
-}
-
-function sleb(value: number): number[] {
-  const out: number[] = [];
-  for (;;) {
-    const byte = value & 0x7f;
-    value >>= 7;
-    if ((value === 0 && (byte & 0x40) === 0) || (value === -1 && (byte & 0x40) !== 0)) {
-      out.push(byte);
-      return out;
-    }
-    out.push(byte | 0x80);
-  }
-}
-
-const section = (id: number, bytes: number[]): number[] => [id, ...uleb(bytes.length), ...bytes];
-const vector = (items: number[][]): number[] => [...uleb(items.length), ...items.flat()];
-const text = (s: string): number[] => [...uleb(s.length), ...Array.from(s, (c) => c.charCodeAt(0))];
-
-// Instructions used (opcodes from the WebAssembly core and 128-bit SIMD specifications).
-const localGet = (i: number) => [0x20, ...uleb(i)];
-const localSet = (i: number) => [0x21, ...uleb(i)];
-const localTee = (i: number) => [0x22, ...uleb(i)];
-const i32Const = (v: number) => [0x41, ...sleb(v)];
-const vectorOp = (op: number) => [0xfd, ...uleb(op)];
-const I32_ADD = [0x6a];
-const I32_SUB = [0x6b];
-const I32_SHL = [0x74];
-const I32_LT_U = [0x49];
-const I32_EQZ = [0x45];
-const F64_LOAD = [0x2b, 3, 0]; // align 2^3, offset 0
-const V128_LOAD = [...vectorOp(0), 0, 0]; // align 1 (unaligned allowed), offset 0
-const v128Store = (offset: number) => [...vectorOp(11), 0, ...uleb(offset)];
-const V128_ZERO = [...vectorOp(12), ...new Array<number>(16).fill(0)];
-const F64X2_SPLAT = vectorOp(20);
-const F64X2_SQRT = vectorOp(239);
-const F64X2_ADD = vectorOp(240);
-const F64X2_SUB = vectorOp(241);
-const F64X2_MUL = vectorOp(242);
-const BLOCK = [0x02, 0x40];
-const LOOP = [0x03, 0x40];
-const IF = [0x04, 0x40];
-const END = [0x0b];
-const brIf = (depth: number) => [0x0d, depth];
+// ---- assembling the module (encoding helpers: src/core/wasm-encoding.ts) ----
 
 export function pairsModuleBytes(shared: boolean): Uint8Array {
   // Parameters 0..7, then locals: i32 u, u2, pb; v128 x, y, P1, P2, e, acc0..acc3.

@@ -13,6 +13,9 @@
 //       stored[0..3] = acc
 //       tot += acc < own ? acc : own
 //     totals[0..3] = tot
+import {
+  uleb, section, vector, text, localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, f64LoadAt, v128Load, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_LT, V128_BITSELECT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, END, brIf,
+} from '../../core/wasm-encoding';
 /** Where things live in a seeding arena (bytes). Four trials per group. */
 export interface SeedingArena {
   readonly memory: WebAssembly.Memory;
@@ -108,47 +111,7 @@ export function releaseSeedingArena(arena: SeedingArena | undefined): void {
   if (arena !== undefined) spare = arena.memory;
 }
 
-// ---- assembling the module (the same encoding helpers as measure/wasmPairs.ts) ----
-
-function uleb(value: number): number[] {
-  const out: number[] = [];
-  do {
-    let byte = value & 0x7f;
-    value >>>= 7;
-    if (value !== 0) byte |= 0x80;
-    out.push(byte);
-  } while (value !== 0);
-  return out;
-}
-
-const section = (id: number, bytes: number[]): number[] => [id, ...uleb(bytes.length), ...bytes];
-const vector = (items: number[][]): number[] => [...uleb(items.length), ...items.flat()];
-const text = (s: string): number[] => [...uleb(s.length), ...Array.from(s, (c) => c.charCodeAt(0))];
-const localGet = (i: number) => [0x20, ...uleb(i)];
-const localSet = (i: number) => [0x21, ...uleb(i)];
-const localTee = (i: number) => [0x22, ...uleb(i)];
-const i32Const = (v: number) => [0x41, ...uleb(v)]; // small non-negative constants only (< 64)
-const vectorOp = (op: number) => [0xfd, ...uleb(op)];
-const I32_ADD = [0x6a];
-const I32_SUB = [0x6b];
-const I32_SHL = [0x74];
-const I32_LT_U = [0x49];
-const I32_EQZ = [0x45];
-const F64_LOAD = [0x2b, 3, 0];
-const f64LoadAt = (offset: number) => [0x2b, 3, ...uleb(offset)];
-const v128Load = (offset: number) => [...vectorOp(0), 0, ...uleb(offset)];
-const v128Store = (offset: number) => [...vectorOp(11), 0, ...uleb(offset)];
-const V128_ZERO = [...vectorOp(12), ...new Array<number>(16).fill(0)];
-const F64X2_SPLAT = vectorOp(20);
-const F64X2_LT = vectorOp(73);
-const V128_BITSELECT = vectorOp(82);
-const F64X2_ADD = vectorOp(240);
-const F64X2_SUB = vectorOp(241);
-const F64X2_MUL = vectorOp(242);
-const BLOCK = [0x02, 0x40];
-const LOOP = [0x03, 0x40];
-const END = [0x0b];
-const brIf = (depth: number) => [0x0d, depth];
+// ---- assembling the module (encoding helpers: src/core/wasm-encoding.ts) ----
 
 export function trialModuleBytes(): Uint8Array {
   // Parameters 2 and 4 (gaps, nearest) are not read.
