@@ -4,6 +4,7 @@
 // to start (or never starts) the calling thread simply claims every chunk itself, so the result
 // never depends on the worker. The loop runs as WebAssembly (wasmPairs.ts) where available and
 // as plain JavaScript (euclideanKernel.ts) otherwise; both give the same numbers.
+import { workerPool } from '../core/worker-pool';
 import { finish, pairSum, squaredDifferencesRows } from './euclideanKernel';
 import { fillPairsInputs, instantiatePairs, pairsLayout, pairsModule, pairsRowsWasm, type PairsFunction, type PairsLayout } from './wasmPairs';
 
@@ -136,7 +137,7 @@ interface ScriptJob {
 
 /** Rows in chunks of about equal pair counts, claimed by this thread and (when given a job) the worker. */
 function runChunks(n: number, job: WasmJob | ScriptJob | undefined, rows: (from: number, to: number) => void): void {
-  const thread = job ? pooledWorker() : undefined;
+  const thread = job ? pool.get() : undefined;
   if (!job || !thread) {
     rows(0, n);
     lastShare = { chunks: 0, byWorker: 0, wasm: false };
@@ -186,27 +187,7 @@ function chunkBounds(n: number): Int32Array {
 // One worker, started on first use and kept for later calls (a notebook computes many matrices),
 // so its start-up is paid once. It is unref'd: it never keeps the process alive. If it fails,
 // the calling thread simply does every chunk.
-let pooled: import('worker_threads').Worker | undefined;
-let pooledFailed = false;
-
-function pooledWorker(): import('worker_threads').Worker | undefined {
-  if (pooled || pooledFailed) return pooled;
-  try {
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
-    const { Worker } = require('worker_threads') as typeof import('worker_threads');
-    const worker = new Worker(WORKER_SOURCE, { eval: true });
-    worker.unref();
-    const drop = () => {
-      if (pooled === worker) pooled = undefined;
-    };
-    worker.on('error', drop);
-    worker.on('exit', drop);
-    pooled = worker;
-  } catch {
-    pooledFailed = true;
-  }
-  return pooled;
-}
+const pool = workerPool(({ Worker }) => new Worker(WORKER_SOURCE, { eval: true }));
 
 // The worker runs the same loop sources (compiled JS under dist/, transformed TS under vitest),
 // so both threads compute every pair identically.

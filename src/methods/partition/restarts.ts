@@ -2,6 +2,7 @@
 // worker thread. Restart r depends only on r (its own random stream createRandom(seed).fork(r)),
 // and the kept restart is the lowest within-SS with ties going to the lower r, so the result is
 // the same whichever thread ran which restart.
+import { workerPool, type WorkerPool } from '../../core/worker-pool';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { createRandom, type Random, type Seed } from '../../random';
@@ -223,26 +224,11 @@ function sharedRestarts(plan: RestartPlan, restarts: number, onDone: (done: numb
 // One worker, started on first use and kept for later calls (a notebook runs k-means many times:
 // k sweeps, gap references, bootstrap), so its start-up is paid once. It is unref'd: it never
 // keeps the process alive. If it fails, the calling thread simply does every restart.
-let pooled: import('worker_threads').Worker | undefined;
-let pooledFailed = false;
-
+// The worker's file is known only at the first call (it sits beside this module in dist/).
+let pool: WorkerPool | undefined;
 function pooledWorker(workerFile: string): import('worker_threads').Worker | undefined {
-  if (pooled || pooledFailed) return pooled;
-  try {
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
-    const { Worker } = require('worker_threads') as typeof import('worker_threads');
-    const worker = new Worker(workerFile);
-    worker.unref();
-    const drop = () => {
-      if (pooled === worker) pooled = undefined;
-    };
-    worker.on('error', drop);
-    worker.on('exit', drop);
-    pooled = worker;
-  } catch {
-    pooledFailed = true;
-  }
-  return pooled;
+  pool ??= workerPool(({ Worker }) => new Worker(workerFile));
+  return pool.get();
 }
 
 function waitFor(control: Int32Array, slot: number, target: number): void {
