@@ -1,36 +1,36 @@
-// Worker thread for k-means restarts (see restarts.ts). It stays alive between calls; for each
-// job it claims restarts until none are left, records each one's figures, and hands back its
-// best restart's assignment and centres through shared memory.
+// Worker thread for k-means (see kmeans-team.ts). It stays alive between calls; for each call it
+// attaches to the shared memory and runs the blocks it can claim of every phase until told to stop.
 import { parentPort } from 'node:worker_threads';
-import { RestartRunner, type SharedRestarts } from './restarts';
+import { runBlock } from './kmeans-blocks';
+import { attachSharedMemory } from './kmeans-memory';
+import { ARG0, ARG1, awaitGeneration, claimBlock, DONE, PHASE, STOP, WORKER_BLOCKS, WORKER_FAILED, type TeamJob } from './kmeans-team';
 
-function runJob(shared: SharedRestarts): void {
-  const { control, restarts } = shared;
-  let runner: RestartRunner | undefined;
-  let best = -1;
-  let bestWithin = Infinity;
+function serve(job: TeamJob): void {
+  const { control, layout } = job;
+  const mem = attachSharedMemory(layout, job.memory);
+  let seen = 0;
   for (;;) {
-    const r = Atomics.add(control, 0, 1);
-    if (r >= restarts) break;
-    Atomics.add(control, 3, 1);
-    runner ??= new RestartRunner(shared.plan);
-    const outcome = runner.run(r);
-    shared.within[r] = outcome.within;
-    shared.iterations[r] = outcome.iterations;
-    shared.converged[r] = outcome.converged ? 1 : 0;
-    if (outcome.within < bestWithin || (outcome.within === bestWithin && r < best)) {
-      best = r;
-      bestWithin = outcome.within;
-      shared.workerAssignment.set(runner.ws.assignment);
-      shared.workerCenters.set(runner.centers);
+    const generation = awaitGeneration(control, seen);
+    seen = generation;
+    const phase = Atomics.load(control, PHASE);
+    if (phase === STOP) return;
+    const arg0 = Atomics.load(control, ARG0);
+    const arg1 = Atomics.load(control, ARG1);
+    for (;;) {
+      const b = claimBlock(control, generation, layout.blocks);
+      if (b < 0) break;
+      try {
+        runBlock(mem, phase, b, arg0, arg1);
+      } catch {
+        Atomics.store(control, WORKER_FAILED, 1);
+        Atomics.notify(control, DONE);
+        return;
+      }
+      Atomics.add(control, WORKER_BLOCKS, 1);
+      Atomics.add(control, DONE, 1);
+      Atomics.notify(control, DONE);
     }
-    Atomics.add(control, 1, 1);
-    Atomics.notify(control, 1);
   }
-  runner?.release();
-  if (best >= 0) shared.workerBest[0] = best;
-  Atomics.store(control, 2, 1);
-  Atomics.notify(control, 2);
 }
 
-parentPort?.on('message', runJob);
+parentPort?.on('message', serve);

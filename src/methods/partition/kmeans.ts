@@ -6,8 +6,7 @@ import { checkInteger, checkNumber, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
 import type { Seed } from '../../random';
 import { checkSegmentCount, partitionRows } from './partition-input';
-import { grandSpread, partitionFigures, settleExactly } from './partition-summary';
-import { runRestarts, type RestartPlan } from './restarts';
+import { runKmeans } from './restarts';
 
 export type KmeansStart = 'k-means++' | 'random' | readonly (readonly number[])[];
 
@@ -100,45 +99,40 @@ export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   const restarts = given ? 1 : checkInteger(opts.restarts ?? 10, 'kmeans: restarts', 1);
   const trace = opts.trace === true;
 
-  const data = m.data;
-  // One pass for the total sum of squares: it scales the tolerance (total / (n·d) is the mean of
-  // the column variances) and is reported with the figures.
-  const spread = grandSpread(data, n, d);
-  const plan: RestartPlan = {
-    data,
-    n,
-    d,
-    k,
-    start: given ?? (start as 'k-means++' | 'random'),
-    seed: opts.seed ?? 0,
-    maxIterations,
-    tolerance: tolerance * (spread.totalSS / (n * d)),
-    trace,
-  };
   let reported = 0;
   const progress = (done: number) => {
     if (done <= reported) return;
     reported = done;
     report(opts.onProgress, { task: 'k-means restarts', done, total: restarts, detail: `k = ${k}` });
   };
-  const { kept, withinByRestart: restartWithinSS } = runRestarts(plan, restarts, progress);
+  const run = runKmeans(
+    {
+      data: m.data,
+      n,
+      d,
+      k,
+      start: given ?? (start as 'k-means++' | 'random'),
+      seed: opts.seed ?? 0,
+      restarts,
+      maxIterations,
+      relativeTolerance: tolerance,
+      trace,
+    },
+    progress,
+  );
   progress(restarts);
-  // One full exact scan of the kept restart (the iterations skipped rows by their bounds).
-  const extra = settleExactly(data, n, d, k, kept.assignment, kept.centers, Math.max(1, maxIterations - kept.iterations));
-  const figures = partitionFigures(data, n, d, k, kept.assignment, kept.centers, spread);
-  if (extra > 0) restartWithinSS[kept.restart] = figures.withinSS;
   return {
     kind: 'kmeans',
     variant: 'lloyd',
     k,
-    assignment: kept.assignment,
-    centers: nestedCentres(kept.centers, k, d),
-    ...figures,
-    iterations: kept.iterations + extra,
-    converged: kept.converged,
+    assignment: run.assignment,
+    centers: nestedCentres(run.centres, k, d),
+    ...run.figures,
+    iterations: run.iterations,
+    converged: run.converged,
     restartsRun: restarts,
-    restartWithinSS,
-    ...(kept.trace ? { withinSSTrace: kept.trace } : {}),
+    restartWithinSS: run.withinByRestart,
+    ...(run.trace ? { withinSSTrace: run.trace } : {}),
   };
 }
 

@@ -7,10 +7,12 @@ import type { RowsInput } from '../../core/matrix';
 import { checkInteger, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
 import { createRandom, type Random, type Seed } from '../../random';
-import { createWorkspace, squaredDistance, withinFor, type LloydWorkspace } from './hamerly';
+import { Phase, squaredDistance } from './kmeans-blocks';
+import { takeKmeansMemory } from './kmeans-memory';
+import { localTeam } from './kmeans-team';
 import { nestedCentres, type KmeansResult } from './kmeans';
 import { checkSegmentCount, partitionRows } from './partition-input';
-import { centresToMeans, partitionFigures } from './partition-summary';
+import { centresToMeans, grandSpread, partitionFigures, withinOn } from './partition-summary';
 import { seedPlusPlus } from './seeding';
 
 export interface KmeansMiniBatchOptions {
@@ -50,7 +52,9 @@ export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions
   const patience = checkInteger(opts.patience ?? 10, `${where}: patience`, 1);
   const restarts = checkInteger(opts.restarts ?? 3, `${where}: restarts`, 1);
   const data = m.data;
-  const ws = createWorkspace(n, d, k);
+  // The exact finish of each restart runs on the calling thread over plain arrays (no copy of the rows).
+  const mem = takeKmeansMemory(data, n, d, k, false);
+  const team = localTeam(mem);
   const root = createRandom(opts.seed ?? 0);
   const centers = new Float64Array(k * d);
 
@@ -59,23 +63,28 @@ export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions
   for (let r = 0; r < restarts; r++) {
     const random = root.fork(r);
     const run = miniBatchRun(data, n, d, k, batchSize, maxIterations, patience, random, centers);
-    assignAll(data, centers, ws);
-    centresToMeans(data, centers, ws);
-    const within = withinFor(data, centers, ws.assignment, n, d);
+    // Every row to its nearest centre, then centres to the means of their rows.
+    mem.centres.set(centers);
+    team.run(Phase.Nearest);
+    centresToMeans(team, mem);
+    const within = withinOn(team, mem);
     restartWithinSS.push(within);
     if (best === undefined || within < best.within) {
-      best = { within, assignment: ws.assignment.slice(), centers: centers.slice(), ...run };
+      best = { within, assignment: mem.assignment.slice(), centers: mem.centres.slice(), ...run };
     }
     report(opts.onProgress, { task: 'mini-batch k-means restarts', done: r + 1, total: restarts, detail: `k = ${k}` });
   }
   const kept = best!;
+  mem.assignment.set(kept.assignment);
+  mem.centres.set(kept.centers);
+  const figures = partitionFigures(team, mem, grandSpread(team, mem));
   return {
     kind: 'kmeans',
     variant: 'mini-batch',
     k,
     assignment: kept.assignment,
     centers: nestedCentres(kept.centers, k, d),
-    ...partitionFigures(data, n, d, k, kept.assignment, kept.centers),
+    ...figures,
     iterations: kept.iterations,
     converged: kept.converged,
     restartsRun: restarts,
@@ -170,23 +179,4 @@ function countDistinct(sample: Float64Array, size: number, d: number, enough: nu
   const keys = new Set<string>();
   for (let s = 0; s < size && keys.size < enough; s++) keys.add(Array.from(sample.subarray(s * d, s * d + d)).join(','));
   return keys.size;
-}
-
-/** Every row to its nearest centre (ties: lower segment number); fills counts. */
-function assignAll(data: Float64Array, centers: Float64Array, ws: LloydWorkspace): void {
-  const { n, d, k, assignment, counts } = ws;
-  counts.fill(0);
-  for (let i = 0; i < n; i++) {
-    let best = 0;
-    let bestD = Infinity;
-    for (let c = 0; c < k; c++) {
-      const s = squaredDistance(data, i * d, centers, c * d, d);
-      if (s < bestD) {
-        bestD = s;
-        best = c;
-      }
-    }
-    assignment[i] = best;
-    counts[best]++;
-  }
 }

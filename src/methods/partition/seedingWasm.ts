@@ -4,8 +4,7 @@
 // number is bit for bit what the JavaScript sweep gives, with one instruction serving two candidates. Every row is
 // measured; a vector select adds the smaller of the candidate's and the row's own distance.
 //
-//   trialTotals(rows, cand, gaps, closest, nearest, count, rowBytes, stored, storedStride, totals)
-//     (`gaps` and `nearest` are not read: the parameters keep the arena's layout unchanged)
+//   trialTotals(rows, cand, closest, count, rowBytes, stored, storedStride, totals)   (byte offsets and counts)
 //     tot01 = tot23 = 0
 //     for each of `count` row pairs, each row of the pair in turn (two rows share each candidate load):
 //       own = splat(closest)
@@ -16,38 +15,14 @@
 import {
   uleb, section, vector, text, localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, f64LoadAt, v128Load, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_LT, V128_BITSELECT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, END, brIf,
 } from '../../core/wasm-encoding';
-/** Where things live in a seeding arena (bytes). Four trials per group. */
-export interface SeedingArena {
-  readonly memory: WebAssembly.Memory;
-  readonly view: Float64Array;
-  readonly totals: PairsTotals;
-  /** The rows this arena holds a copy of (the sweep is used only for these). */
-  readonly source: Float64Array;
-  readonly n: number;
-  readonly d: number;
-  readonly k: number;
-  /** Trials rounded up to a multiple of four (the row stride of `stored`). */
-  readonly padded: number;
-  readonly rowsAt: number;
-  readonly closestAt: number;
-  readonly nearestAt: number;
-  readonly storedAt: number;
-  readonly candAt: number;
-  readonly gapsAt: number;
-  readonly totalsAt: number;
-  /** Scratch rows for the seeding state kept here too, so a reused memory spares their allocation. */
-  readonly secondLowerAt: number;
-  readonly cumulativeAt: number;
-}
-
 export type PairsTotals = (
-  rows: number, cand: number, gaps: number, closest: number, nearest: number,
-  count: number, rowBytes: number, stored: number, storedStride: number, totals: number,
+  rows: number, cand: number, closest: number, count: number, rowBytes: number, stored: number, storedStride: number, totals: number,
 ) => void; // prettier-ignore
 
 let compiled: WebAssembly.Module | null | undefined;
 
-function trialModule(): WebAssembly.Module | undefined {
+/** The sweep compiled for a shared memory (see kmeans-memory.ts); undefined where WebAssembly or its threads are missing. */
+export function sharedTrialModule(): WebAssembly.Module | undefined {
   if (compiled === undefined) {
     try {
       const bytes = trialModuleBytes();
@@ -59,64 +34,11 @@ function trialModule(): WebAssembly.Module | undefined {
   return compiled ?? undefined;
 }
 
-/** Below this much work per seeding (rows × columns) the JavaScript sweep is as good. */
-const MIN_WORK_FOR_WASM = 200_000;
-
-/**
- * An arena for seeding `data` (n × d, k centres, `padded` trials rounded up to fours), with the
- * rows copied in; undefined where WebAssembly is unavailable or the problem is small or huge.
- */
-export function createSeedingArena(data: Float64Array, n: number, d: number, k: number, padded: number): SeedingArena | undefined {
-  if (n * d < MIN_WORK_FOR_WASM) return undefined;
-  const module = trialModule();
-  if (!module) return undefined;
-  const rowsAt = 0;
-  const closestAt = rowsAt + n * d * 8;
-  const nearestAt = closestAt + n * 8;
-  const storedAt = nearestAt + Math.ceil((n * 4) / 16) * 16;
-  const candAt = storedAt + n * padded * 8;
-  const gapsAt = candAt + padded * d * 8;
-  const totalsAt = gapsAt + k * padded * 8;
-  const secondLowerAt = totalsAt + padded * 8;
-  const cumulativeAt = secondLowerAt + n * 8;
-  const bytes = cumulativeAt + n * 8;
-  if (bytes > 65536 * 32768) return undefined; // 2 GiB: leave such sizes to the JavaScript sweep
-  try {
-    const pages = Math.ceil(bytes / 65536);
-    let memory: WebAssembly.Memory;
-    if (spare !== undefined && spare.buffer.byteLength === pages * 65536) {
-      memory = spare;
-      spare = undefined; // in use until released: a nested call gets a memory of its own
-    } else {
-      memory = new WebAssembly.Memory({ initial: pages, maximum: pages });
-    }
-    const instance = new WebAssembly.Instance(module, { env: { memory } });
-    const view = new Float64Array(memory.buffer);
-    view.set(data.subarray(0, n * d), rowsAt / 8);
-    return {
-      memory, view, totals: instance.exports.trialTotals as PairsTotals, source: data, n, d, k, padded,
-      rowsAt, closestAt, nearestAt, storedAt, candAt, gapsAt, totalsAt, secondLowerAt, cumulativeAt,
-    }; // prettier-ignore
-  } catch {
-    return undefined;
-  }
-}
-
-// One spare memory per thread, kept between calls: a notebook runs k-means again and again on
-// rows of the same size, and a fresh memory pays its allocation and page faults every time.
-let spare: WebAssembly.Memory | undefined;
-
-/** Hands an arena's memory back for the next call's arena; the arena must not be used afterwards. */
-export function releaseSeedingArena(arena: SeedingArena | undefined): void {
-  if (arena !== undefined) spare = arena.memory;
-}
-
 // ---- assembling the module (encoding helpers: src/core/wasm-encoding.ts) ----
 
 export function trialModuleBytes(): Uint8Array {
-  // Parameters 2 and 4 (gaps, nearest) are not read.
-  const [ROWS, CAND, , CLOSEST, , COUNT, ROW_BYTES, STORED, STORED_STRIDE, TOTALS, U, NEXT_ROW] = Array.from({ length: 12 }, (_, i) => i);
-  const [OWN0, OWN1, X, A0, B0, A1, B1, E, TOT01, TOT23, C01, C23] = Array.from({ length: 12 }, (_, i) => 12 + i);
+  const [ROWS, CAND, CLOSEST, COUNT, ROW_BYTES, STORED, STORED_STRIDE, TOTALS, U, NEXT_ROW] = Array.from({ length: 10 }, (_, i) => i);
+  const [OWN0, OWN1, X, A0, B0, A1, B1, E, TOT01, TOT23, C01, C23] = Array.from({ length: 12 }, (_, i) => 10 + i);
   // acc += (x − candidates)²
   const accumulate = (acc: number, candidates: number) => [
     ...localGet(acc), ...localGet(X), ...localGet(candidates), ...F64X2_SUB, ...localTee(E), ...localGet(E), ...F64X2_MUL, ...F64X2_ADD, ...localSet(acc),
@@ -166,8 +88,8 @@ export function trialModuleBytes(): Uint8Array {
   const code = [...vector([[...uleb(2), I32], [...uleb(12), V128]]), ...body];
   return new Uint8Array([
     0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0,
-    ...section(1, vector([[0x60, ...vector(new Array<number[]>(10).fill([I32])), 0]])), // (i32 × 10) → ()
-    ...section(2, vector([[...text('env'), ...text('memory'), 0x02, 0x01, ...uleb(0), ...uleb(65536)]])), // private memory
+    ...section(1, vector([[0x60, ...vector(new Array<number[]>(8).fill([I32])), 0]])), // (i32 × 8) → ()
+    ...section(2, vector([[...text('env'), ...text('memory'), 0x02, 0x03, ...uleb(0), ...uleb(65536)]])), // shared memory, up to 4 GiB
     ...section(3, vector([[0]])),
     ...section(7, vector([[...text('trialTotals'), 0x00, 0]])),
     ...section(10, vector([[...uleb(code.length), ...code]])),

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { kmeans } from '../../../src/methods/partition/kmeans';
+import { releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from '../../../src/methods/partition/kmeans-memory';
+import { localTeam } from '../../../src/methods/partition/kmeans-team';
 import { setKmeansThreads, setSeedingWasm } from '../../../src/methods/partition/restarts';
-import { createSeedingState, defaultTrials, seedPlusPlus } from '../../../src/methods/partition/seeding';
-import { createSeedingArena } from '../../../src/methods/partition/seedingWasm';
+import { seedPlusPlusOn } from '../../../src/methods/partition/seeding';
 import { createRandom } from '../../../src/random';
 
 // Data of our own making: blobs plus a block of repeated rows (ties, zero distances).
@@ -20,29 +21,40 @@ function sameBits(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
   return true;
 }
 
+/** Seeds on a fresh memory with the sweep as WebAssembly or JavaScript; counts the WebAssembly calls. */
+function seedOnce(data: Float64Array, n: number, d: number, k: number, seed: number, wasm: boolean): { mem: KmeansMemory; calls: number } {
+  const taken = takeKmeansMemory(data, n, d, k);
+  expect(taken.sweep).toBeDefined();
+  let calls = 0;
+  const counted: KmeansMemory = { ...taken, sweep: (...args) => (calls++, taken.sweep!(...args)) };
+  const previous = setSeedingWasm(wasm);
+  try {
+    seedPlusPlusOn(localTeam(counted), counted, createRandom(seed));
+  } finally {
+    setSeedingWasm(previous);
+  }
+  const copy = { ...taken, centres: taken.centres.slice(), nearest: taken.nearest.slice(), closest: taken.closest.slice(), secondLower: taken.secondLower.slice() };
+  releaseKmeansMemory(taken);
+  return { mem: copy, calls };
+}
+
 describe('k-means++ sweep as WebAssembly', () => {
-  // k = 8: one group of four trials; k = 30: five trials, so a second, padded group; d = 1 and odd n.
-  const shapes: [number, number, number][] = [[40_001, 6, 8], [25_000, 9, 30], [200_003, 1, 3]];
+  // k = 8: one group of four trials; k = 30: five trials, so a second, padded group; d = 1 and
+  // odd n; 50,001 × 5 with k = 10 cuts the rows in blocks, the last of odd length.
+  const shapes: [number, number, number][] = [[40_001, 6, 8], [25_000, 9, 30], [200_003, 1, 3], [50_001, 5, 10]];
   for (const [n, d, k] of shapes) {
     it(`leaves the seeding state bit for bit as the JavaScript sweep does (${n} × ${d}, k = ${k})`, () => {
       const data = blobs(n, d, n + d + k);
-      const trials = defaultTrials(k);
-      const arena = createSeedingArena(data, n, d, k, 4 * Math.ceil(trials / 4));
-      expect(arena).toBeDefined();
-      const viaWasm = createSeedingState(n, arena);
-      const viaScript = createSeedingState(n);
-      const centresWasm = new Float64Array(k * d);
-      const centresScript = new Float64Array(k * d);
       for (const seed of [0, 1]) {
-        seedPlusPlus(data, n, d, k, createRandom(seed), centresWasm, viaWasm);
-        seedPlusPlus(data, n, d, k, createRandom(seed), centresScript, viaScript);
-        expect(sameBits(centresWasm, centresScript)).toBe(true);
-        expect(sameBits(viaWasm.nearest, viaScript.nearest)).toBe(true);
-        expect(sameBits(viaWasm.closest, viaScript.closest)).toBe(true);
-        expect(sameBits(viaWasm.secondLower, viaScript.secondLower)).toBe(true);
+        const viaWasm = seedOnce(data, n, d, k, seed, true);
+        const viaScript = seedOnce(data, n, d, k, seed, false);
+        expect(viaWasm.calls).toBeGreaterThan(0);
+        expect(viaScript.calls).toBe(0);
+        expect(sameBits(viaWasm.mem.centres, viaScript.mem.centres)).toBe(true);
+        expect(sameBits(viaWasm.mem.nearest, viaScript.mem.nearest)).toBe(true);
+        expect(sameBits(viaWasm.mem.closest, viaScript.mem.closest)).toBe(true);
+        expect(sameBits(viaWasm.mem.secondLower, viaScript.mem.secondLower)).toBe(true);
       }
-      // The sweep did run in the arena: its totals slot holds the last trial totals.
-      expect(arena!.view[arena!.totalsAt / 8]).toBeGreaterThan(0);
     });
   }
 
@@ -67,7 +79,10 @@ describe('k-means++ sweep as WebAssembly', () => {
     }
   });
 
-  it('is not used for small inputs (the JavaScript sweep is as fast there)', () => {
-    expect(createSeedingArena(new Float64Array(1000 * 5), 1000, 5, 4, 4)).toBeUndefined();
+  it('is not used for small inputs (plain arrays over the rows themselves, no copy)', () => {
+    const data = new Float64Array(1000 * 5);
+    const mem = takeKmeansMemory(data, 1000, 5, 4);
+    expect(mem.wasm).toBeUndefined();
+    expect(mem.rows).toBe(data);
   });
 });

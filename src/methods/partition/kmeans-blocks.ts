@@ -1,0 +1,567 @@
+// The row-parallel parts of k-means: each phase works on one block of rows and writes only that
+// block's rows and that block's totals, so threads can run different blocks at once and the
+// numbers are the same as running them one after the other. The serial steps between phases
+// (draws, centre updates) are in seeding.ts and hamerly.ts.
+import { blockRange, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type KmeansMemory } from './kmeans-memory';
+
+export enum Phase {
+  /** Column sums of the block (grand[b × d + j]). */
+  ColumnSums = 1,
+  /** Σ squared distance to the grand mean (in grand[0..d)) → blockValue. */
+  SpreadAbout,
+  /** k-means++ start: distances to centre 0 and their running totals → blockValue = potential. */
+  SeedFirst,
+  /** Distances to the trial rows, stored, and each trial's total (arg0 = trials, arg1 = 1 for WebAssembly). */
+  Trials,
+  /** Trial arg1 becomes centre arg0 → blockValue = potential. */
+  Take,
+  /** First Lloyd assignment from what k-means++ knows; segment sums and counts. */
+  StartSeeded,
+  /** First Lloyd assignment by measuring every centre; segment sums and counts. */
+  StartFromCentres,
+  /** One Hamerly assignment sweep. */
+  Sweep,
+  /** Segment sums and counts from scratch. */
+  Sums,
+  /** Within-SS per segment → parts. */
+  Within,
+  /** Every row to its nearest centre by a full scan; counts → blockValue = rows that changed. */
+  Nearest,
+}
+
+export function runBlock(mem: KmeansMemory, phase: Phase, b: number, arg0: number, arg1: number): void {
+  const [lo, hi] = blockRange(mem.layout, b);
+  const { d, k } = mem.layout;
+  const sums = mem.sums.subarray(b * k * d, (b + 1) * k * d);
+  const counts = mem.counts.subarray(b * k, (b + 1) * k);
+  switch (phase) {
+    case Phase.ColumnSums:
+      return columnSums(mem.rows, d, lo, hi, mem.grand.subarray(b * d, (b + 1) * d));
+    case Phase.SpreadAbout:
+      mem.blockValue[b] = spreadAbout(mem, lo, hi);
+      return;
+    case Phase.SeedFirst:
+      mem.blockValue[b] = seedFirst(mem, lo, hi);
+      return;
+    case Phase.Trials:
+      if (arg1 === 1 && mem.sweep) trialsByWasm(mem, lo, hi, b, arg0);
+      else measureTrials(mem, lo, hi, b, arg0);
+      return;
+    case Phase.Take:
+      mem.blockValue[b] = takeCandidate(mem, lo, hi, arg0, arg1);
+      return;
+    case Phase.StartSeeded:
+      return startSeeded(mem, lo, hi, sums, counts);
+    case Phase.StartFromCentres:
+      return startFromCentres(mem, lo, hi, sums, counts);
+    case Phase.Sweep:
+      return sweep(mem, lo, hi, sums, counts);
+    case Phase.Sums:
+      return segmentSums(mem.rows, d, lo, hi, mem.assignment, sums, counts);
+    case Phase.Within:
+      return withinParts(mem.rows, d, lo, hi, mem.assignment, mem.centres, mem.parts.subarray(b * k, (b + 1) * k));
+    case Phase.Nearest:
+      mem.blockValue[b] = nearestRows(mem.rows, d, k, lo, hi, mem.centres, mem.assignment, counts);
+      return;
+  }
+}
+
+// ---- kernels on plain arrays and row ranges (also used by mini-batch k-means) ----
+
+export function squaredDistance(a: Float64Array, ab: number, b: Float64Array, bb: number, d: number): number {
+  let s = 0;
+  for (let j = 0; j < d; j++) {
+    const diff = a[ab + j] - b[bb + j];
+    s += diff * diff;
+  }
+  return s;
+}
+
+function columnSums(rows: Float64Array, d: number, lo: number, hi: number, out: Float64Array): void {
+  out.fill(0);
+  for (let i = lo; i < hi; i++) for (let j = 0; j < d; j++) out[j] += rows[i * d + j];
+}
+
+function spreadAbout(mem: KmeansMemory, lo: number, hi: number): number {
+  // `closest` is free scratch before seeding.
+  distancesToCentre(mem.rows, mem.layout.d, lo, hi, mem.grand, 0, mem.closest);
+  let total = 0;
+  for (let i = lo; i < hi; i++) total += mem.closest[i];
+  return total;
+}
+
+/**
+ * Squared distance of rows [lo, hi) to the one centre at `centres[at..at + d)`, into out[i].
+ * Four rows at a time: one running sum per row would wait on the adder at every column, four
+ * independent ones keep it busy (each still summed in column order: the same numbers).
+ */
+function distancesToCentre(rows: Float64Array, d: number, lo: number, hi: number, centres: Float64Array, at: number, out: Float64Array): void {
+  let i = lo;
+  for (; i + 3 < hi; i += 4) {
+    const b0 = i * d;
+    const b1 = b0 + d;
+    const b2 = b1 + d;
+    const b3 = b2 + d;
+    let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
+    for (let j = 0; j < d; j++) {
+      const v = centres[at + j];
+      let e = rows[b0 + j] - v;
+      s0 += e * e;
+      e = rows[b1 + j] - v;
+      s1 += e * e;
+      e = rows[b2 + j] - v;
+      s2 += e * e;
+      e = rows[b3 + j] - v;
+      s3 += e * e;
+    }
+    out[i] = s0;
+    out[i + 1] = s1;
+    out[i + 2] = s2;
+    out[i + 3] = s3;
+  }
+  for (; i < hi; i++) out[i] = squaredDistance(rows, i * d, centres, at, d);
+}
+
+/** Segment sums and counts of rows [lo, hi) from scratch. */
+export function segmentSums(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, sums: Float64Array, counts: Float64Array): void {
+  sums.fill(0);
+  counts.fill(0);
+  for (let i = lo; i < hi; i++) {
+    const a = assignment[i];
+    counts[a]++;
+    const ib = i * d;
+    const sb = a * d;
+    for (let j = 0; j < d; j++) sums[sb + j] += rows[ib + j];
+  }
+}
+
+/** Within-SS of rows [lo, hi) per segment, into `parts` (cleared first). */
+export function withinParts(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, centres: Float64Array, parts: Float64Array): void {
+  parts.fill(0);
+  let i = lo;
+  // Four rows at a time, as in distancesToCentre; added to the parts in row order.
+  for (; i + 3 < hi; i += 4) {
+    const a0 = assignment[i];
+    const a1 = assignment[i + 1];
+    const a2 = assignment[i + 2];
+    const a3 = assignment[i + 3];
+    const b0 = i * d;
+    const c0 = a0 * d;
+    const c1 = a1 * d;
+    const c2 = a2 * d;
+    const c3 = a3 * d;
+    let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
+    for (let j = 0; j < d; j++) {
+      let e = rows[b0 + j] - centres[c0 + j];
+      s0 += e * e;
+      e = rows[b0 + d + j] - centres[c1 + j];
+      s1 += e * e;
+      e = rows[b0 + 2 * d + j] - centres[c2 + j];
+      s2 += e * e;
+      e = rows[b0 + 3 * d + j] - centres[c3 + j];
+      s3 += e * e;
+    }
+    parts[a0] += s0;
+    parts[a1] += s1;
+    parts[a2] += s2;
+    parts[a3] += s3;
+  }
+  for (; i < hi; i++) {
+    const a = assignment[i];
+    parts[a] += squaredDistance(rows, i * d, centres, a * d, d);
+  }
+}
+
+/**
+ * Rows [lo, hi) to their nearest centre by a full scan; returns how many changed segment and
+ * fills `counts`. Two rows against four centres at a time (eight independent sums keep the adder
+ * busy; each distance is still summed in column order) and then compared in centre order, so
+ * ties go to the lower segment number exactly as one centre at a time would.
+ */
+export function nearestRows(
+  rows: Float64Array,
+  d: number,
+  k: number,
+  lo: number,
+  hi: number,
+  centres: Float64Array,
+  assignment: Int32Array,
+  counts: Float64Array,
+): number {
+  counts.fill(0);
+  let changed = 0;
+  const grouped = k - (k % 4);
+  for (let i = lo; i < hi; i += 2) {
+    // An odd last row is paired with itself; the copy's result is not used.
+    const pair = i + 1 < hi;
+    const i1 = pair ? i + 1 : i;
+    const ib = i * d;
+    const jb = i1 * d;
+    let best0 = 0;
+    let bestD0 = Infinity;
+    let best1 = 0;
+    let bestD1 = Infinity;
+    let c = 0;
+    for (; c < grouped; c += 4) {
+      const c0 = c * d;
+      const c1 = c0 + d;
+      const c2 = c1 + d;
+      const c3 = c2 + d;
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
+      let t0 = 0, t1 = 0, t2 = 0, t3 = 0; // prettier-ignore
+      for (let j = 0; j < d; j++) {
+        const x = rows[ib + j];
+        const y = rows[jb + j];
+        const v0 = centres[c0 + j];
+        const v1 = centres[c1 + j];
+        const v2 = centres[c2 + j];
+        const v3 = centres[c3 + j];
+        let e = x - v0;
+        s0 += e * e;
+        e = x - v1;
+        s1 += e * e;
+        e = x - v2;
+        s2 += e * e;
+        e = x - v3;
+        s3 += e * e;
+        e = y - v0;
+        t0 += e * e;
+        e = y - v1;
+        t1 += e * e;
+        e = y - v2;
+        t2 += e * e;
+        e = y - v3;
+        t3 += e * e;
+      }
+      if (s0 < bestD0) {
+        bestD0 = s0;
+        best0 = c;
+      }
+      if (s1 < bestD0) {
+        bestD0 = s1;
+        best0 = c + 1;
+      }
+      if (s2 < bestD0) {
+        bestD0 = s2;
+        best0 = c + 2;
+      }
+      if (s3 < bestD0) {
+        bestD0 = s3;
+        best0 = c + 3;
+      }
+      if (t0 < bestD1) {
+        bestD1 = t0;
+        best1 = c;
+      }
+      if (t1 < bestD1) {
+        bestD1 = t1;
+        best1 = c + 1;
+      }
+      if (t2 < bestD1) {
+        bestD1 = t2;
+        best1 = c + 2;
+      }
+      if (t3 < bestD1) {
+        bestD1 = t3;
+        best1 = c + 3;
+      }
+    }
+    for (; c < k; c++) {
+      const s = squaredDistance(rows, ib, centres, c * d, d);
+      if (s < bestD0) {
+        bestD0 = s;
+        best0 = c;
+      }
+      const t = squaredDistance(rows, jb, centres, c * d, d);
+      if (t < bestD1) {
+        bestD1 = t;
+        best1 = c;
+      }
+    }
+    if (assignment[i] !== best0) changed++;
+    assignment[i] = best0;
+    counts[best0]++;
+    if (!pair) continue;
+    if (assignment[i1] !== best1) changed++;
+    assignment[i1] = best1;
+    counts[best1]++;
+  }
+  return changed;
+}
+
+// ---- k-means++ (Arthur & Vassilvitskii 2007) ----
+
+/** Distances to the first centre (centres[0..d)); running totals within the block; returns the block's potential. */
+function seedFirst(mem: KmeansMemory, lo: number, hi: number): number {
+  const { rows, centres, closest, nearest, secondLower, cumulative } = mem;
+  const d = mem.layout.d;
+  distancesToCentre(rows, d, lo, hi, centres, 0, closest);
+  let running = 0;
+  for (let i = lo; i < hi; i++) {
+    nearest[i] = 0;
+    secondLower[i] = Infinity;
+    running += closest[i];
+    cumulative[i] = running;
+  }
+  return running;
+}
+
+/**
+ * The totals of all trials over the block's rows, two rows against four candidates at a time:
+ * eight independent sums keep the adder busy and each loaded value serves several pairs, while
+ * every pair is still summed in column order (the same number as measured alone). Every row is
+ * measured against every candidate (the exact distance gives takeCandidate a tighter bound and
+ * a branch-free update). Each total is summed in row order. The distances are kept row by row
+ * (`stored[i × padded + t]`, one contiguous stream) for takeCandidate.
+ */
+function measureTrials(mem: KmeansMemory, lo: number, hi: number, b: number, trials: number): void {
+  const { rows, candidates, closest, stored } = mem;
+  const { d, padded } = mem.layout;
+  const totals = mem.totals.subarray(b * padded, (b + 1) * padded);
+  totals.fill(0);
+  const sums = new Float64Array(8);
+  for (let i = lo; i < hi; i += 2) {
+    // An odd last row is paired with itself; the copy's results are not used.
+    const pair = i + 1 < hi;
+    const i1 = pair ? i + 1 : i;
+    const own0 = closest[i];
+    const own1 = closest[i1];
+    const a0 = i * d;
+    const a1 = i1 * d;
+    for (let t0 = 0; t0 < trials; t0 += 4) {
+      const tEnd = t0 + 4 < trials ? t0 + 4 : trials;
+      const c0 = t0 * d;
+      const c1 = c0 + d;
+      const c2 = c1 + d;
+      const c3 = c2 + d;
+      let s00 = 0, s01 = 0, s02 = 0, s03 = 0; // prettier-ignore
+      let s10 = 0, s11 = 0, s12 = 0, s13 = 0; // prettier-ignore
+      for (let j = 0; j < d; j++) {
+        const x = rows[a0 + j];
+        const y = rows[a1 + j];
+        const v0 = candidates[c0 + j];
+        const v1 = candidates[c1 + j];
+        const v2 = candidates[c2 + j];
+        const v3 = candidates[c3 + j];
+        let e = x - v0;
+        s00 += e * e;
+        e = x - v1;
+        s01 += e * e;
+        e = x - v2;
+        s02 += e * e;
+        e = x - v3;
+        s03 += e * e;
+        e = y - v0;
+        s10 += e * e;
+        e = y - v1;
+        s11 += e * e;
+        e = y - v2;
+        s12 += e * e;
+        e = y - v3;
+        s13 += e * e;
+      }
+      sums[0] = s00;
+      sums[1] = s01;
+      sums[2] = s02;
+      sums[3] = s03;
+      sums[4] = s10;
+      sums[5] = s11;
+      sums[6] = s12;
+      sums[7] = s13;
+      const o0 = i * padded + t0;
+      stored[o0] = s00;
+      stored[o0 + 1] = s01;
+      stored[o0 + 2] = s02;
+      stored[o0 + 3] = s03;
+      if (pair) {
+        stored[o0 + padded] = s10;
+        stored[o0 + padded + 1] = s11;
+        stored[o0 + padded + 2] = s12;
+        stored[o0 + padded + 3] = s13;
+      }
+      for (let t = t0; t < tEnd; t++) {
+        let s = sums[t - t0];
+        totals[t] += s < own0 ? s : own0;
+        if (!pair) continue;
+        s = sums[4 + t - t0];
+        totals[t] += s < own1 ? s : own1;
+      }
+    }
+  }
+}
+
+/**
+ * measureTrials as WebAssembly (seedingWasm.ts), four trials per call: the same distances,
+ * stored the same way, and the same totals. The block starts at an even row, so its pairs are
+ * the sweep's pairs; an odd last row is measured here and added last (row order).
+ */
+function trialsByWasm(mem: KmeansMemory, lo: number, hi: number, b: number, trials: number): void {
+  const { layout, sweep, rows, candidates, closest, stored } = mem;
+  const { d, padded, at } = layout;
+  const totals = mem.totals.subarray(b * padded, (b + 1) * padded);
+  const count = (hi - lo) >> 1;
+  for (let t0 = 0; t0 < trials; t0 += 4) {
+    sweep!(
+      at.rows + lo * d * 8, at.candidatesPaired + t0 * d * 8, at.closest + lo * 8, count, d * 8,
+      at.stored + (lo * padded + t0) * 8, padded * 8, at.totals + (b * padded + t0) * 8,
+    ); // prettier-ignore
+    if ((hi - lo) % 2 === 1) {
+      const i = hi - 1;
+      const own = closest[i];
+      for (let t = t0; t < t0 + 4; t++) {
+        const s = squaredDistance(rows, i * d, candidates, t * d, d);
+        stored[i * padded + t] = s;
+        if (t < trials) totals[t] += s < own ? s : own;
+      }
+    }
+  }
+}
+
+/**
+ * Centre c becomes the chosen trial: rows it wins (strictly closer; ties keep the earlier,
+ * lower-numbered centre) move to it, and every row's lower bound on the distance to its other
+ * centres takes the new centre in: the larger of the old and new nearest distances. The same
+ * pass writes the running total of the new nearest distances (row order, within the block) and
+ * returns the block's total: the weights of the next centre's draws.
+ */
+function takeCandidate(mem: KmeansMemory, lo: number, hi: number, c: number, chosen: number): number {
+  const { stored, closest, nearest, secondLower, cumulative } = mem;
+  const padded = mem.layout.padded;
+  let running = 0;
+  for (let i = lo; i < hi; i++) {
+    const own = closest[i];
+    const s = stored[i * padded + chosen];
+    // Plain branches measure faster here than Math.min / Math.max (which must handle NaN and −0).
+    if (s < own) {
+      nearest[i] = c;
+      closest[i] = s;
+      running += s;
+      if (own < secondLower[i]) secondLower[i] = own;
+    } else {
+      running += own;
+      if (s < secondLower[i]) secondLower[i] = s;
+    }
+    cumulative[i] = running;
+  }
+  return running;
+}
+
+// ---- Lloyd iterations with Hamerly's (2010) bounds ----
+
+/** First assignment from what k-means++ already knows (nearest centre and bounds). */
+function startSeeded(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, counts: Float64Array): void {
+  const { rows, nearest, closest, secondLower, assignment, upper, lower } = mem;
+  const d = mem.layout.d;
+  sums.fill(0);
+  counts.fill(0);
+  for (let i = lo; i < hi; i++) {
+    const a = nearest[i];
+    assignment[i] = a;
+    upper[i] = Math.sqrt(closest[i]);
+    // Kept squared while seeding (the square root of the smallest is the smallest square root).
+    lower[i] = Math.sqrt(secondLower[i]);
+    counts[a]++;
+    const ib = i * d;
+    const sb = a * d;
+    for (let j = 0; j < d; j++) sums[sb + j] += rows[ib + j];
+  }
+}
+
+/** First assignment from given or random centres: every distance, once. */
+function startFromCentres(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, counts: Float64Array): void {
+  const { rows, centres, assignment, upper, lower } = mem;
+  const { d, k } = mem.layout;
+  sums.fill(0);
+  counts.fill(0);
+  for (let i = lo; i < hi; i++) {
+    const ib = i * d;
+    let best = 0;
+    let bestD = Infinity;
+    let secondD = Infinity;
+    for (let c = 0; c < k; c++) {
+      const s = squaredDistance(rows, ib, centres, c * d, d);
+      if (s < bestD) {
+        secondD = bestD;
+        bestD = s;
+        best = c;
+      } else if (s < secondD) {
+        secondD = s;
+      }
+    }
+    assignment[i] = best;
+    upper[i] = Math.sqrt(bestD);
+    lower[i] = Math.sqrt(secondD);
+    counts[best]++;
+    const sb = best * d;
+    for (let j = 0; j < d; j++) sums[sb + j] += rows[ib + j];
+  }
+}
+
+/**
+ * Assignment step: only rows whose bounds allow a change are looked at. A row whose upper bound
+ * is below max(lower bound, half the distance from its centre to the nearest other centre)
+ * cannot change segment. The bound updates for the last centre move (own centre's move widens
+ * the upper bound; the largest move of any other centre narrows the lower bound) are applied in
+ * the same sweep. The skip test is strict, so a row that may be tied with another centre is
+ * looked at and the tie goes to the lower segment number.
+ */
+function sweep(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, counts: Float64Array): void {
+  const { rows, centres, assignment, upper, lower, moved, halfGap, params } = mem;
+  const { d, k } = mem.layout;
+  const most = params[PARAM_MOST];
+  const secondMost = params[PARAM_SECOND_MOST];
+  const mostAt = params[PARAM_MOST_AT];
+  for (let i = lo; i < hi; i++) {
+    const a = assignment[i];
+    const up = upper[i] + moved[a];
+    const low = lower[i] - (a === mostAt ? secondMost : most);
+    lower[i] = low;
+    const bound = halfGap[a] > low ? halfGap[a] : low;
+    if (up < bound) {
+      upper[i] = up;
+      continue;
+    }
+    const ib = i * d;
+    const ab = a * d;
+    let own = 0;
+    for (let j = 0; j < d; j++) {
+      const diff = rows[ib + j] - centres[ab + j];
+      own += diff * diff;
+    }
+    own = Math.sqrt(own);
+    upper[i] = own;
+    if (own < bound) continue;
+    let best = a;
+    let bestD = own * own;
+    let secondD = Infinity;
+    for (let c = 0; c < k; c++) {
+      if (c === a) continue;
+      const cb = c * d;
+      let s = 0;
+      for (let j = 0; j < d; j++) {
+        const diff = rows[ib + j] - centres[cb + j];
+        s += diff * diff;
+      }
+      if (s < bestD || (s === bestD && c < best)) {
+        secondD = bestD;
+        bestD = s;
+        best = c;
+      } else if (s < secondD) {
+        secondD = s;
+      }
+    }
+    upper[i] = Math.sqrt(bestD);
+    lower[i] = Math.sqrt(secondD);
+    if (best !== a) {
+      assignment[i] = best;
+      counts[a]--;
+      counts[best]++;
+      const bb = best * d;
+      for (let j = 0; j < d; j++) {
+        const v = rows[ib + j];
+        sums[ab + j] -= v;
+        sums[bb + j] += v;
+      }
+    }
+  }
+}

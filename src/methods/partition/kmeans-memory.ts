@@ -1,0 +1,198 @@
+// All state of one k-means call in one block of memory: the rows, what k-means++ learns about
+// them, the Lloyd bounds and assignment, and small per-block totals. For large inputs it is a
+// shared WebAssembly memory, so the trial sweep runs as WebAssembly on it and a worker thread
+// works on the same arrays; otherwise plain arrays over the caller's own rows (no copy).
+//
+// The rows are cut into `blocks` fixed ranges (several for large inputs, chosen from the shape
+// alone: small enough that a thread that falls behind holds the other up only briefly). Every sum over rows is summed block by block and the block totals then added in block
+// order, so the numbers do not depend on which thread did which block.
+import { defaultTrials } from './seeding';
+import { sharedTrialModule, type PairsTotals } from './seedingWasm';
+
+export interface KmeansLayout {
+  readonly n: number;
+  readonly d: number;
+  readonly k: number;
+  /** Trials per k-means++ step rounded up to a multiple of four (the row stride of `stored`). */
+  readonly padded: number;
+  readonly blocks: number;
+  /** Block b is rows [starts[b], starts[b + 1]); every start is even, for the paired sweep. */
+  readonly starts: readonly number[];
+  readonly bytes: number;
+  /** Byte offset of every array. */
+  readonly at: Readonly<Record<Float64Field | Int32Field, number>>;
+}
+
+const FLOAT64_FIELDS = [
+  'rows', 'closest', 'secondLower', 'cumulative', 'upper', 'lower', 'stored', 'candidates', 'candidatesPaired', 'totals',
+  'sums', 'counts', 'centres', 'previous', 'moved', 'halfGap', 'parts', 'blockValue', 'grand', 'params',
+] as const; // prettier-ignore
+const INT32_FIELDS = ['nearest', 'assignment'] as const;
+type Float64Field = (typeof FLOAT64_FIELDS)[number];
+type Int32Field = (typeof INT32_FIELDS)[number];
+
+/** Indices into `params`: the largest and second-largest centre moves, and where the largest was. */
+export const PARAM_MOST = 0;
+export const PARAM_SECOND_MOST = 1;
+export const PARAM_MOST_AT = 2;
+
+export interface KmeansMemory {
+  readonly layout: KmeansLayout;
+  /** The shared WebAssembly memory, when the state lives in one (a worker can then join). */
+  readonly wasm?: WebAssembly.Memory;
+  /** This thread's instance of the WebAssembly trial sweep over `wasm`. */
+  readonly sweep?: PairsTotals;
+  readonly rows: Float64Array;
+  /** k-means++: squared distance to the nearest chosen centre, its number, and a lower bound on the squared distance to the others. */
+  readonly closest: Float64Array;
+  readonly nearest: Int32Array;
+  readonly secondLower: Float64Array;
+  /** Running totals of `closest` within each block (the weights of the draws). */
+  readonly cumulative: Float64Array;
+  /** Distances of every row to the current trials: stored[i × padded + t]. */
+  readonly stored: Float64Array;
+  /** Trial rows one after another (padded × d), and interleaved in pairs for the WebAssembly sweep. */
+  readonly candidates: Float64Array;
+  readonly candidatesPaired: Float64Array;
+  /** Trial totals by block: totals[b × padded + t]. */
+  readonly totals: Float64Array;
+  readonly assignment: Int32Array;
+  readonly upper: Float64Array;
+  readonly lower: Float64Array;
+  /** Segment sums and counts by block: sums[(b × k + c) × d + j], counts[b × k + c]. */
+  readonly sums: Float64Array;
+  readonly counts: Float64Array;
+  readonly centres: Float64Array;
+  readonly previous: Float64Array;
+  readonly moved: Float64Array;
+  readonly halfGap: Float64Array;
+  /** Per-segment within-SS by block: parts[b × k + c]. */
+  readonly parts: Float64Array;
+  /** One number per block from the last phase (a potential, a total, a count of changes). */
+  readonly blockValue: Float64Array;
+  /** Column sums by block: grand[b × d + j]; the grand mean goes in the first d. */
+  readonly grand: Float64Array;
+  readonly params: Float64Array;
+}
+
+/** Inputs at least this large (rows × columns) use shared WebAssembly memory. */
+const MIN_WORK_FOR_SHARED = 200_000;
+/** ... and at least this much work per restart (rows × columns × k) cuts the rows in blocks. */
+const MIN_WORK_FOR_BLOCKS = 2_000_000;
+const BLOCKS = 8;
+
+function align16(bytes: number): number {
+  return Math.ceil(bytes / 16) * 16;
+}
+
+export function kmeansLayout(n: number, d: number, k: number): KmeansLayout {
+  const padded = 4 * Math.ceil(defaultTrials(k) / 4);
+  const blocks = n * d >= MIN_WORK_FOR_SHARED && n * d * k >= MIN_WORK_FOR_BLOCKS ? BLOCKS : 1;
+  const starts = Array.from({ length: blocks + 1 }, (_, b) => (b === blocks ? n : 2 * Math.floor((b * n) / (2 * blocks))));
+  const lengths: Record<Float64Field | Int32Field, number> = {
+    rows: n * d, closest: n, secondLower: n, cumulative: n, upper: n, lower: n, stored: n * padded,
+    candidates: padded * d, candidatesPaired: padded * d, totals: blocks * padded, sums: blocks * k * d, counts: blocks * k,
+    centres: k * d, previous: k * d, moved: k, halfGap: k, parts: blocks * k, blockValue: blocks, grand: blocks * d, params: 4,
+    nearest: n, assignment: n,
+  }; // prettier-ignore
+  const at = {} as Record<Float64Field | Int32Field, number>;
+  let bytes = 0;
+  for (const f of FLOAT64_FIELDS) {
+    at[f] = bytes;
+    bytes = align16(bytes + lengths[f] * 8);
+  }
+  for (const f of INT32_FIELDS) {
+    at[f] = bytes;
+    bytes = align16(bytes + lengths[f] * 4);
+  }
+  return { n, d, k, padded, blocks, starts, bytes, at };
+}
+
+/** The rows of block b: [start, end). */
+export function blockRange(layout: KmeansLayout, b: number): [number, number] {
+  return [layout.starts[b], layout.starts[b + 1]];
+}
+
+/** The block that holds row i. */
+export function blockOf(layout: KmeansLayout, i: number): number {
+  let b = 0;
+  while (i >= layout.starts[b + 1]) b++;
+  return b;
+}
+
+/** Views of every array over `buffer` (rows may live elsewhere: the caller's own, for plain memory). */
+export function memoryViews(
+  layout: KmeansLayout,
+  buffer: ArrayBufferLike,
+  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; rows?: Float64Array } = {},
+): KmeansMemory {
+  const { n, d, k, padded, blocks, at } = layout;
+  const f64 = (f: Float64Field, length: number) => new Float64Array(buffer, at[f], length);
+  const i32 = (f: Int32Field, length: number) => new Int32Array(buffer, at[f], length);
+  return {
+    layout, wasm: extra.wasm, sweep: extra.sweep,
+    rows: extra.rows ?? f64('rows', n * d), closest: f64('closest', n), nearest: i32('nearest', n), secondLower: f64('secondLower', n),
+    cumulative: f64('cumulative', n), stored: f64('stored', n * padded), candidates: f64('candidates', padded * d),
+    candidatesPaired: f64('candidatesPaired', padded * d), totals: f64('totals', blocks * padded), assignment: i32('assignment', n),
+    upper: f64('upper', n), lower: f64('lower', n), sums: f64('sums', blocks * k * d), counts: f64('counts', blocks * k),
+    centres: f64('centres', k * d), previous: f64('previous', k * d), moved: f64('moved', k), halfGap: f64('halfGap', k),
+    parts: f64('parts', blocks * k), blockValue: f64('blockValue', blocks), grand: f64('grand', blocks * d), params: f64('params', 4),
+  }; // prettier-ignore
+}
+
+/** A thread's views of a shared WebAssembly memory made by another thread, with its own sweep instance. */
+export function attachSharedMemory(layout: KmeansLayout, wasm: WebAssembly.Memory): KmeansMemory {
+  return memoryViews(layout, wasm.buffer, { wasm, sweep: instantiateSweep(wasm) });
+}
+
+function instantiateSweep(wasm: WebAssembly.Memory): PairsTotals | undefined {
+  const module = sharedTrialModule();
+  if (!module) return undefined;
+  const instance = new WebAssembly.Instance(module, { env: { memory: wasm } });
+  return instance.exports.trialTotals as PairsTotals;
+}
+
+// One spare shared memory kept between calls: a notebook runs k-means again and again on rows of
+// the same size, and a fresh memory pays its allocation and page faults each time. A taken memory
+// is no longer spare, so a nested call gets one of its own.
+let spare: WebAssembly.Memory | undefined;
+
+/**
+ * Memory for k-means on `data` (n × d, k segments). `shareable` asks for shared WebAssembly memory
+ * when the input is large enough and the platform has it (the rows are then copied in);
+ * otherwise the arrays are plain and `rows` is `data` itself.
+ */
+export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: number, shareable = true): KmeansMemory {
+  const layout = kmeansLayout(n, d, k);
+  if (shareable && n * d >= MIN_WORK_FOR_SHARED) {
+    const shared = sharedMemory(layout);
+    if (shared) {
+      shared.rows.set(data.subarray(0, n * d));
+      return shared;
+    }
+  }
+  return memoryViews(layout, new ArrayBuffer(layout.bytes), { rows: data });
+}
+
+function sharedMemory(layout: KmeansLayout): KmeansMemory | undefined {
+  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule()) return undefined;
+  const pages = Math.ceil(layout.bytes / 65536);
+  if (pages > 32768) return undefined; // over 2 GiB: plain arrays
+  try {
+    let wasm: WebAssembly.Memory;
+    if (spare !== undefined && spare.buffer.byteLength === pages * 65536) {
+      wasm = spare;
+      spare = undefined;
+    } else {
+      wasm = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true } as WebAssembly.MemoryDescriptor);
+    }
+    return attachSharedMemory(layout, wasm);
+  } catch {
+    return undefined;
+  }
+}
+
+/** Done with a memory: a shared one is kept for the next call of the same size. */
+export function releaseKmeansMemory(memory: KmeansMemory): void {
+  if (memory.wasm) spare = memory.wasm;
+}
