@@ -61,3 +61,62 @@ export const LOOP = [0x03, 0x40];
 export const IF = [0x04, 0x40];
 export const END = [0x0b];
 export const brIf = (depth: number) => [0x0d, depth];
+export const I32_MUL = [0x6c];
+/** i32.load, align 2^2, offset 0. */
+export const I32_LOAD = [0x28, 2, 0];
+/** f64.store, align 2^3, offset 0. */
+export const F64_STORE = [0x39, 3, 0];
+export const F64_ADD = [0xa0];
+/** f64.const: the opcode and the value's eight bytes, little-endian. */
+export function f64Const(value: number): number[] {
+  const bytes = new Uint8Array(new Float64Array([value]).buffer);
+  return [0x44, ...Array.from(bytes)];
+}
+
+/**
+ * A module compiled on first use and kept, or undefined for good where WebAssembly (or what the
+ * module needs, such as shared memory) is missing: callers then use their JavaScript loop.
+ */
+export function compiledOnce(bytes: () => Uint8Array): () => WebAssembly.Module | undefined {
+  let compiled: WebAssembly.Module | null | undefined;
+  return () => {
+    if (compiled === undefined) {
+      try {
+        const b = bytes();
+        compiled = typeof WebAssembly === 'object' && WebAssembly.validate(b) ? new WebAssembly.Module(b) : null;
+      } catch {
+        compiled = null;
+      }
+    }
+    return compiled ?? undefined;
+  };
+}
+
+export const I32 = 0x7f;
+export const F64 = 0x7c;
+export const V128 = 0x7b;
+
+/**
+ * A module of one exported function over an imported memory (`env.memory`, shared or private,
+ * up to 4 GiB): `params` i32 parameters, an optional result type, locals as [count, type] runs.
+ */
+export function oneFunctionModule(spec: {
+  name: string;
+  params: number;
+  result?: number;
+  locals: [number, number][];
+  body: number[];
+  sharedMemory: boolean;
+}): Uint8Array {
+  const code = [...vector(spec.locals.map(([count, type]) => [...uleb(count), type])), ...spec.body];
+  const results = spec.result === undefined ? [0] : vector([[spec.result]]);
+  return new Uint8Array([
+    0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0, // magic, version 1
+    ...section(1, vector([[0x60, ...vector(new Array<number[]>(spec.params).fill([I32])), ...results]])),
+    // Imported memory: limits flag 3 = shared with a maximum, 1 = private with a maximum.
+    ...section(2, vector([[...text('env'), ...text('memory'), 0x02, spec.sharedMemory ? 0x03 : 0x01, ...uleb(0), ...uleb(65536)]])),
+    ...section(3, vector([[0]])),
+    ...section(7, vector([[...text(spec.name), 0x00, 0]])),
+    ...section(10, vector([[...uleb(code.length), ...code]])),
+  ]); // prettier-ignore
+}

@@ -20,7 +20,7 @@
 //
 // All addresses are bytes into one shared memory laid out by `pairsLayout`.
 import {
-  uleb, section, vector, text, localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, V128_LOAD, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_SQRT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, IF, END, brIf,
+  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, V128_LOAD, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_SQRT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, IF, END, brIf, oneFunctionModule, I32, V128,
 } from '../core/wasm-encoding';
 
 /** Byte offsets in the shared memory: the condensed output first, then the rows, then the rows interleaved in pairs. */
@@ -163,16 +163,5 @@ export function pairsModuleBytes(shared: boolean): Uint8Array {
     ...END,
     ...END,
   ]; // prettier-ignore
-  const I32 = 0x7f;
-  const V128 = 0x7b;
-  const code = [...vector([[...uleb(3), I32], [...uleb(9), V128]]), ...body];
-  return new Uint8Array([
-    0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0, // magic, version 1
-    ...section(1, vector([[0x60, ...vector(new Array<number[]>(8).fill([I32])), 0]])), // (i32 × 8) → ()
-    // Imported memory: limits flag 3 = shared with a maximum, 1 = private with a maximum.
-    ...section(2, vector([[...text('env'), ...text('memory'), 0x02, shared ? 0x03 : 0x01, ...uleb(0), ...uleb(65536)]])),
-    ...section(3, vector([[0]])),
-    ...section(7, vector([[...text('pairs'), 0x00, 0]])),
-    ...section(10, vector([[...uleb(code.length), ...code]])),
-  ]); // prettier-ignore
+  return oneFunctionModule({ name: 'pairs', params: 8, locals: [[3, I32], [9, V128]], body, sharedMemory: shared });
 }

@@ -2,7 +2,7 @@
 // block's rows and that block's totals, so threads can run different blocks at once and the
 // numbers are the same as running them one after the other. The serial steps between phases
 // (draws, centre updates) are in seeding.ts and hamerly.ts.
-import { blockRange, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type KmeansMemory } from './kmeans-memory';
+import { blockRange, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, PARAM_SEEDING_WASM, type KmeansMemory } from './kmeans-memory';
 
 export enum Phase {
   /** Column sums of the block (grand[b × d + j]). */
@@ -11,7 +11,7 @@ export enum Phase {
   SpreadAbout,
   /** k-means++ start: distances to centre 0 and their running totals → blockValue = potential. */
   SeedFirst,
-  /** Distances to the trial rows, stored, and each trial's total (arg0 = trials, arg1 = 1 for WebAssembly). */
+  /** Distances to the trial rows, stored, and each trial's total (arg0 = trials). */
   Trials,
   /** Trial arg1 becomes centre arg0 → blockValue = potential. */
   Take,
@@ -44,20 +44,21 @@ export function runBlock(mem: KmeansMemory, phase: Phase, b: number, arg0: numbe
       mem.blockValue[b] = seedFirst(mem, lo, hi);
       return;
     case Phase.Trials:
-      if (arg1 === 1 && mem.sweep) trialsByWasm(mem, lo, hi, b, arg0);
+      if (mem.params[PARAM_SEEDING_WASM] === 1 && mem.sweep) trialsByWasm(mem, lo, hi, b, arg0);
       else measureTrials(mem, lo, hi, b, arg0);
       return;
     case Phase.Take:
-      mem.blockValue[b] = takeCandidate(mem, lo, hi, arg0, arg1);
+      mem.blockValue[b] = mem.params[PARAM_SEEDING_WASM] === 1 && mem.take ? takeByWasm(mem, lo, hi, arg0, arg1) : takeCandidate(mem, lo, hi, arg0, arg1);
       return;
     case Phase.StartSeeded:
-      return startSeeded(mem, lo, hi, sums, counts);
+      startSeeded(mem, lo, hi);
+      return blockSums(mem, lo, hi, b);
     case Phase.StartFromCentres:
       return startFromCentres(mem, lo, hi, sums, counts);
     case Phase.Sweep:
       return sweep(mem, lo, hi, sums, counts);
     case Phase.Sums:
-      return segmentSums(mem.rows, d, lo, hi, mem.assignment, sums, counts);
+      return blockSums(mem, lo, hi, b);
     case Phase.Within:
       return withinParts(mem.rows, d, lo, hi, mem.assignment, mem.centres, mem.parts.subarray(b * k, (b + 1) * k));
     case Phase.Nearest:
@@ -120,6 +121,17 @@ function distancesToCentre(rows: Float64Array, d: number, lo: number, hi: number
     out[i + 3] = s3;
   }
   for (; i < hi; i++) out[i] = squaredDistance(rows, i * d, centres, at, d);
+}
+
+/** Segment sums and counts of block b from scratch: as WebAssembly where the memory has it. */
+function blockSums(mem: KmeansMemory, lo: number, hi: number, b: number): void {
+  const { d, k, at } = mem.layout;
+  const sums = mem.sums.subarray(b * k * d, (b + 1) * k * d);
+  const counts = mem.counts.subarray(b * k, (b + 1) * k);
+  if (!mem.segmentSums) return segmentSums(mem.rows, d, lo, hi, mem.assignment, sums, counts);
+  sums.fill(0);
+  counts.fill(0);
+  mem.segmentSums(at.rows + lo * d * 8, at.assignment + lo * 4, at.sums + b * k * d * 8, at.counts + b * k * 8, hi - lo, d * 8, 16 * (d >> 1));
 }
 
 /** Segment sums and counts of rows [lo, hi) from scratch. */
@@ -446,24 +458,22 @@ function takeCandidate(mem: KmeansMemory, lo: number, hi: number, c: number, cho
   return running;
 }
 
+/** takeCandidate as WebAssembly (take-wasm.ts): the same numbers. */
+function takeByWasm(mem: KmeansMemory, lo: number, hi: number, c: number, chosen: number): number {
+  const { padded, at } = mem.layout;
+  return mem.take!(at.closest + lo * 8, at.nearest + lo * 4, at.secondLower + lo * 8, at.cumulative + lo * 8, at.stored + (lo * padded + chosen) * 8, hi - lo, padded * 8, c);
+}
+
 // ---- Lloyd iterations with Hamerly's (2010) bounds ----
 
-/** First assignment from what k-means++ already knows (nearest centre and bounds). */
-function startSeeded(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, counts: Float64Array): void {
-  const { rows, nearest, closest, secondLower, assignment, upper, lower } = mem;
-  const d = mem.layout.d;
-  sums.fill(0);
-  counts.fill(0);
+/** First assignment from what k-means++ already knows (nearest centre and bounds); the caller then takes the sums. */
+function startSeeded(mem: KmeansMemory, lo: number, hi: number): void {
+  const { nearest, closest, secondLower, assignment, upper, lower } = mem;
   for (let i = lo; i < hi; i++) {
-    const a = nearest[i];
-    assignment[i] = a;
+    assignment[i] = nearest[i];
     upper[i] = Math.sqrt(closest[i]);
     // Kept squared while seeding (the square root of the smallest is the smallest square root).
     lower[i] = Math.sqrt(secondLower[i]);
-    counts[a]++;
-    const ib = i * d;
-    const sb = a * d;
-    for (let j = 0; j < d; j++) sums[sb + j] += rows[ib + j];
   }
 }
 

@@ -8,6 +8,8 @@
 // order, so the numbers do not depend on which thread did which block.
 import { defaultTrials } from './seeding';
 import { sharedTrialModule, type PairsTotals } from './seedingWasm';
+import { segmentSumsModule, type SegmentSums } from './sums-wasm';
+import { takeModule, type TakeKernel } from './take-wasm';
 
 export interface KmeansLayout {
   readonly n: number;
@@ -35,13 +37,17 @@ type Int32Field = (typeof INT32_FIELDS)[number];
 export const PARAM_MOST = 0;
 export const PARAM_SECOND_MOST = 1;
 export const PARAM_MOST_AT = 2;
+/** 1 when the k-means++ steps run as WebAssembly, 0 for the JavaScript loops (tests compare them). */
+export const PARAM_SEEDING_WASM = 3;
 
 export interface KmeansMemory {
   readonly layout: KmeansLayout;
   /** The shared WebAssembly memory, when the state lives in one (a worker can then join). */
   readonly wasm?: WebAssembly.Memory;
-  /** This thread's instance of the WebAssembly trial sweep over `wasm`. */
+  /** This thread's instances of the WebAssembly kernels over `wasm`: the trial sweep, the take step and the segment sums. */
   readonly sweep?: PairsTotals;
+  readonly take?: TakeKernel;
+  readonly segmentSums?: SegmentSums;
   readonly rows: Float64Array;
   /** k-means++: squared distance to the nearest chosen centre, its number, and a lower bound on the squared distance to the others. */
   readonly closest: Float64Array;
@@ -124,13 +130,13 @@ export function blockOf(layout: KmeansLayout, i: number): number {
 export function memoryViews(
   layout: KmeansLayout,
   buffer: ArrayBufferLike,
-  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; rows?: Float64Array } = {},
+  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; take?: TakeKernel; segmentSums?: SegmentSums; rows?: Float64Array } = {},
 ): KmeansMemory {
   const { n, d, k, padded, blocks, at } = layout;
   const f64 = (f: Float64Field, length: number) => new Float64Array(buffer, at[f], length);
   const i32 = (f: Int32Field, length: number) => new Int32Array(buffer, at[f], length);
   return {
-    layout, wasm: extra.wasm, sweep: extra.sweep,
+    layout, wasm: extra.wasm, sweep: extra.sweep, take: extra.take, segmentSums: extra.segmentSums,
     rows: extra.rows ?? f64('rows', n * d), closest: f64('closest', n), nearest: i32('nearest', n), secondLower: f64('secondLower', n),
     cumulative: f64('cumulative', n), stored: f64('stored', n * padded), candidates: f64('candidates', padded * d),
     candidatesPaired: f64('candidatesPaired', padded * d), totals: f64('totals', blocks * padded), assignment: i32('assignment', n),
@@ -140,16 +146,19 @@ export function memoryViews(
   }; // prettier-ignore
 }
 
-/** A thread's views of a shared WebAssembly memory made by another thread, with its own sweep instance. */
+/** A thread's views of a shared WebAssembly memory (made by this thread or another), with its own kernel instances. */
 export function attachSharedMemory(layout: KmeansLayout, wasm: WebAssembly.Memory): KmeansMemory {
-  return memoryViews(layout, wasm.buffer, { wasm, sweep: instantiateSweep(wasm) });
+  return memoryViews(layout, wasm.buffer, {
+    wasm,
+    sweep: kernel<PairsTotals>(sharedTrialModule(), wasm, 'trialTotals'),
+    take: kernel<TakeKernel>(takeModule(), wasm, 'take'),
+    segmentSums: kernel<SegmentSums>(segmentSumsModule(), wasm, 'segmentSums'),
+  });
 }
 
-function instantiateSweep(wasm: WebAssembly.Memory): PairsTotals | undefined {
-  const module = sharedTrialModule();
+function kernel<T>(module: WebAssembly.Module | undefined, wasm: WebAssembly.Memory, name: string): T | undefined {
   if (!module) return undefined;
-  const instance = new WebAssembly.Instance(module, { env: { memory: wasm } });
-  return instance.exports.trialTotals as PairsTotals;
+  return new WebAssembly.Instance(module, { env: { memory: wasm } }).exports[name] as T;
 }
 
 // One spare shared memory kept between calls: a notebook runs k-means again and again on rows of
@@ -175,7 +184,7 @@ export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: nu
 }
 
 function sharedMemory(layout: KmeansLayout): KmeansMemory | undefined {
-  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule()) return undefined;
+  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule() || !takeModule() || !segmentSumsModule()) return undefined;
   const pages = Math.ceil(layout.bytes / 65536);
   if (pages > 32768) return undefined; // over 2 GiB: plain arrays
   try {

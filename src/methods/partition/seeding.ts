@@ -2,7 +2,7 @@
 // The sweeps over the rows are phases of kmeans-blocks.ts; the draws and choices here are serial.
 import type { Random } from '../../random';
 import { Phase } from './kmeans-blocks';
-import { blockRange, releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
+import { blockRange, PARAM_SEEDING_WASM, releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
 import { localTeam, type KmeansTeam } from './kmeans-team';
 
 /** Greedy trials per new centre: 2 + floor(ln k) (common practice). */
@@ -31,7 +31,7 @@ export function seedPlusPlusOn(team: KmeansTeam, mem: KmeansMemory, random: Rand
   const trials = defaultTrials(k);
   const picked = new Int32Array(trials);
   const totalOf = new Float64Array(trials);
-  const wasm = seedingWasmWanted && mem.sweep !== undefined ? 1 : 0;
+  mem.params[PARAM_SEEDING_WASM] = seedingWasmWanted ? 1 : 0;
 
   copyRow(rows, random.int(n), d, centres, 0);
   team.run(Phase.SeedFirst);
@@ -50,7 +50,7 @@ export function seedPlusPlusOn(team: KmeansTeam, mem: KmeansMemory, random: Rand
         candidatesPaired[base + 2 * d + 2 * j + 1] = candidates[base + 3 * d + j];
       }
     }
-    team.run(Phase.Trials, trials, wasm);
+    team.run(Phase.Trials, trials);
     for (let t = 0; t < trials; t++) {
       let total = totals[t];
       for (let b = 1; b < blocks; b++) total += totals[b * padded + t];

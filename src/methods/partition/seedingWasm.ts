@@ -13,26 +13,14 @@
 //       tot += acc < own ? acc : own
 //     totals[0..3] = tot
 import {
-  uleb, section, vector, text, localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, f64LoadAt, v128Load, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_LT, V128_BITSELECT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, END, brIf,
+  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, f64LoadAt, v128Load, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_LT, V128_BITSELECT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, END, brIf, compiledOnce, oneFunctionModule, I32, V128,
 } from '../../core/wasm-encoding';
 export type PairsTotals = (
   rows: number, cand: number, closest: number, count: number, rowBytes: number, stored: number, storedStride: number, totals: number,
 ) => void; // prettier-ignore
 
-let compiled: WebAssembly.Module | null | undefined;
-
 /** The sweep compiled for a shared memory (see kmeans-memory.ts); undefined where WebAssembly or its threads are missing. */
-export function sharedTrialModule(): WebAssembly.Module | undefined {
-  if (compiled === undefined) {
-    try {
-      const bytes = trialModuleBytes();
-      compiled = typeof WebAssembly === 'object' && WebAssembly.validate(bytes) ? new WebAssembly.Module(bytes) : null;
-    } catch {
-      compiled = null;
-    }
-  }
-  return compiled ?? undefined;
-}
+export const sharedTrialModule = compiledOnce(trialModuleBytes);
 
 // ---- assembling the module (encoding helpers: src/core/wasm-encoding.ts) ----
 
@@ -83,15 +71,5 @@ export function trialModuleBytes(): Uint8Array {
     ...localGet(TOTALS), ...localGet(TOT01), ...v128Store(0), ...localGet(TOTALS), ...localGet(TOT23), ...v128Store(16),
     ...END,
   ]; // prettier-ignore
-  const I32 = 0x7f;
-  const V128 = 0x7b;
-  const code = [...vector([[...uleb(2), I32], [...uleb(12), V128]]), ...body];
-  return new Uint8Array([
-    0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0,
-    ...section(1, vector([[0x60, ...vector(new Array<number[]>(8).fill([I32])), 0]])), // (i32 × 8) → ()
-    ...section(2, vector([[...text('env'), ...text('memory'), 0x02, 0x03, ...uleb(0), ...uleb(65536)]])), // shared memory, up to 4 GiB
-    ...section(3, vector([[0]])),
-    ...section(7, vector([[...text('trialTotals'), 0x00, 0]])),
-    ...section(10, vector([[...uleb(code.length), ...code]])),
-  ]); // prettier-ignore
+  return oneFunctionModule({ name: 'trialTotals', params: 8, locals: [[2, I32], [12, V128]], body, sharedMemory: true });
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { kmeans } from '../../../src/methods/partition/kmeans';
 import { releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from '../../../src/methods/partition/kmeans-memory';
+import { Phase } from '../../../src/methods/partition/kmeans-blocks';
 import { localTeam } from '../../../src/methods/partition/kmeans-team';
 import { setKmeansThreads, setSeedingWasm } from '../../../src/methods/partition/restarts';
 import { seedPlusPlusOn } from '../../../src/methods/partition/seeding';
@@ -38,7 +39,7 @@ function seedOnce(data: Float64Array, n: number, d: number, k: number, seed: num
   return { mem: copy, calls };
 }
 
-describe('k-means++ sweep as WebAssembly', () => {
+describe('k-means++ trial sweep and take step as WebAssembly', () => {
   // k = 8: one group of four trials; k = 30: five trials, so a second, padded group; d = 1 and
   // odd n; 50,001 × 5 with k = 10 cuts the rows in blocks, the last of odd length.
   const shapes: [number, number, number][] = [[40_001, 6, 8], [25_000, 9, 30], [200_003, 1, 3], [50_001, 5, 10]];
@@ -85,4 +86,25 @@ describe('k-means++ sweep as WebAssembly', () => {
     expect(mem.wasm).toBeUndefined();
     expect(mem.rows).toBe(data);
   });
+});
+
+describe('segment sums as WebAssembly', () => {
+  // Odd and even column counts, one column, and a block structure with an odd last block.
+  const shapes: [number, number, number][] = [[40_001, 7, 9], [30_000, 10, 8], [250_001, 1, 12]];
+  for (const [n, d, k] of shapes) {
+    it(`give bit for bit the sums and counts of the JavaScript loop (${n} × ${d}, k = ${k})`, () => {
+      const data = blobs(n, d, n + d);
+      const shared = takeKmeansMemory(data, n, d, k);
+      const plain = takeKmeansMemory(data, n, d, k, false);
+      expect(shared.segmentSums).toBeDefined();
+      expect(plain.segmentSums).toBeUndefined();
+      const random = createRandom(`sums-${n}`);
+      for (let i = 0; i < n; i++) shared.assignment[i] = plain.assignment[i] = random.int(k);
+      localTeam(shared).run(Phase.Sums);
+      localTeam(plain).run(Phase.Sums);
+      expect(sameBits(shared.sums, plain.sums)).toBe(true);
+      expect(sameBits(shared.counts, plain.counts)).toBe(true);
+      releaseKmeansMemory(shared);
+    });
+  }
 });
