@@ -2,6 +2,7 @@
 // block's rows and that block's totals, so threads can run different blocks at once and the
 // numbers are the same as running them one after the other. The serial steps between phases
 // (draws, centre updates) are in seeding.ts and hamerly.ts.
+import { sqeuclideanPair as squaredDistance } from '../../measure/metrics';
 import { blockRange, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, PARAM_SEEDING_WASM, type KmeansMemory } from './kmeans-memory';
 
 export enum Phase {
@@ -69,13 +70,52 @@ export function runBlock(mem: KmeansMemory, phase: Phase, b: number, arg0: numbe
 
 // ---- kernels on plain arrays and row ranges (also used by mini-batch k-means) ----
 
-export function squaredDistance(a: Float64Array, ab: number, b: Float64Array, bb: number, d: number): number {
-  let s = 0;
+const quad = new Float64Array(8);
+
+/**
+ * Squared distances of the rows at a0 and a1 to the four rows of `others` from b0 on, into
+ * out[0..3] and out[4..7]. Eight independent sums keep the adder busy and each loaded value
+ * serves several pairs, while every distance is still summed in column order (the same number
+ * as measured alone).
+ */
+function twoByFour(rows: Float64Array, a0: number, a1: number, others: Float64Array, b0: number, d: number, out: Float64Array): void {
+  const b1 = b0 + d;
+  const b2 = b1 + d;
+  const b3 = b2 + d;
+  let s00 = 0, s01 = 0, s02 = 0, s03 = 0; // prettier-ignore
+  let s10 = 0, s11 = 0, s12 = 0, s13 = 0; // prettier-ignore
   for (let j = 0; j < d; j++) {
-    const diff = a[ab + j] - b[bb + j];
-    s += diff * diff;
+    const x = rows[a0 + j];
+    const y = rows[a1 + j];
+    const v0 = others[b0 + j];
+    const v1 = others[b1 + j];
+    const v2 = others[b2 + j];
+    const v3 = others[b3 + j];
+    let e = x - v0;
+    s00 += e * e;
+    e = x - v1;
+    s01 += e * e;
+    e = x - v2;
+    s02 += e * e;
+    e = x - v3;
+    s03 += e * e;
+    e = y - v0;
+    s10 += e * e;
+    e = y - v1;
+    s11 += e * e;
+    e = y - v2;
+    s12 += e * e;
+    e = y - v3;
+    s13 += e * e;
   }
-  return s;
+  out[0] = s00;
+  out[1] = s01;
+  out[2] = s02;
+  out[3] = s03;
+  out[4] = s10;
+  out[5] = s11;
+  out[6] = s12;
+  out[7] = s13;
 }
 
 function columnSums(rows: Float64Array, d: number, lo: number, hi: number, out: Float64Array): void {
@@ -186,9 +226,8 @@ export function withinParts(rows: Float64Array, d: number, lo: number, hi: numbe
 
 /**
  * Rows [lo, hi) to their nearest centre by a full scan; returns how many changed segment and
- * fills `counts`. Two rows against four centres at a time (eight independent sums keep the adder
- * busy; each distance is still summed in column order) and then compared in centre order, so
- * ties go to the lower segment number exactly as one centre at a time would.
+ * fills `counts`. Two rows against four centres at a time (twoByFour), then compared in centre
+ * order, so ties go to the lower segment number exactly as one centre at a time would.
  */
 export function nearestRows(
   rows: Float64Array,
@@ -215,67 +254,16 @@ export function nearestRows(
     let bestD1 = Infinity;
     let c = 0;
     for (; c < grouped; c += 4) {
-      const c0 = c * d;
-      const c1 = c0 + d;
-      const c2 = c1 + d;
-      const c3 = c2 + d;
-      let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
-      let t0 = 0, t1 = 0, t2 = 0, t3 = 0; // prettier-ignore
-      for (let j = 0; j < d; j++) {
-        const x = rows[ib + j];
-        const y = rows[jb + j];
-        const v0 = centres[c0 + j];
-        const v1 = centres[c1 + j];
-        const v2 = centres[c2 + j];
-        const v3 = centres[c3 + j];
-        let e = x - v0;
-        s0 += e * e;
-        e = x - v1;
-        s1 += e * e;
-        e = x - v2;
-        s2 += e * e;
-        e = x - v3;
-        s3 += e * e;
-        e = y - v0;
-        t0 += e * e;
-        e = y - v1;
-        t1 += e * e;
-        e = y - v2;
-        t2 += e * e;
-        e = y - v3;
-        t3 += e * e;
-      }
-      if (s0 < bestD0) {
-        bestD0 = s0;
-        best0 = c;
-      }
-      if (s1 < bestD0) {
-        bestD0 = s1;
-        best0 = c + 1;
-      }
-      if (s2 < bestD0) {
-        bestD0 = s2;
-        best0 = c + 2;
-      }
-      if (s3 < bestD0) {
-        bestD0 = s3;
-        best0 = c + 3;
-      }
-      if (t0 < bestD1) {
-        bestD1 = t0;
-        best1 = c;
-      }
-      if (t1 < bestD1) {
-        bestD1 = t1;
-        best1 = c + 1;
-      }
-      if (t2 < bestD1) {
-        bestD1 = t2;
-        best1 = c + 2;
-      }
-      if (t3 < bestD1) {
-        bestD1 = t3;
-        best1 = c + 3;
+      twoByFour(rows, ib, jb, centres, c * d, d, quad);
+      for (let q = 0; q < 4; q++) {
+        if (quad[q] < bestD0) {
+          bestD0 = quad[q];
+          best0 = c + q;
+        }
+        if (quad[4 + q] < bestD1) {
+          bestD1 = quad[4 + q];
+          best1 = c + q;
+        }
       }
     }
     for (; c < k; c++) {
@@ -319,12 +307,11 @@ function seedFirst(mem: KmeansMemory, lo: number, hi: number): number {
 }
 
 /**
- * The totals of all trials over the block's rows, two rows against four candidates at a time:
- * eight independent sums keep the adder busy and each loaded value serves several pairs, while
- * every pair is still summed in column order (the same number as measured alone). Every row is
- * measured against every candidate (the exact distance gives takeCandidate a tighter bound and
- * a branch-free update). Each total is summed in row order. The distances are kept row by row
- * (`stored[i × padded + t]`, one contiguous stream) for takeCandidate.
+ * The totals of all trials over the block's rows, two rows against four candidates at a time
+ * (twoByFour). Every row is measured against every candidate (the exact distance gives
+ * takeCandidate a tighter bound and a branch-free update). Each total is summed in row order.
+ * The distances are kept row by row (`stored[i × padded + t]`, one contiguous stream) for
+ * takeCandidate.
  */
 function measureTrials(mem: KmeansMemory, lo: number, hi: number, b: number, trials: number): void {
   const { rows, candidates, closest, stored } = mem;
@@ -342,55 +329,10 @@ function measureTrials(mem: KmeansMemory, lo: number, hi: number, b: number, tri
     const a1 = i1 * d;
     for (let t0 = 0; t0 < trials; t0 += 4) {
       const tEnd = t0 + 4 < trials ? t0 + 4 : trials;
-      const c0 = t0 * d;
-      const c1 = c0 + d;
-      const c2 = c1 + d;
-      const c3 = c2 + d;
-      let s00 = 0, s01 = 0, s02 = 0, s03 = 0; // prettier-ignore
-      let s10 = 0, s11 = 0, s12 = 0, s13 = 0; // prettier-ignore
-      for (let j = 0; j < d; j++) {
-        const x = rows[a0 + j];
-        const y = rows[a1 + j];
-        const v0 = candidates[c0 + j];
-        const v1 = candidates[c1 + j];
-        const v2 = candidates[c2 + j];
-        const v3 = candidates[c3 + j];
-        let e = x - v0;
-        s00 += e * e;
-        e = x - v1;
-        s01 += e * e;
-        e = x - v2;
-        s02 += e * e;
-        e = x - v3;
-        s03 += e * e;
-        e = y - v0;
-        s10 += e * e;
-        e = y - v1;
-        s11 += e * e;
-        e = y - v2;
-        s12 += e * e;
-        e = y - v3;
-        s13 += e * e;
-      }
-      sums[0] = s00;
-      sums[1] = s01;
-      sums[2] = s02;
-      sums[3] = s03;
-      sums[4] = s10;
-      sums[5] = s11;
-      sums[6] = s12;
-      sums[7] = s13;
+      twoByFour(rows, a0, a1, candidates, t0 * d, d, sums);
       const o0 = i * padded + t0;
-      stored[o0] = s00;
-      stored[o0 + 1] = s01;
-      stored[o0 + 2] = s02;
-      stored[o0 + 3] = s03;
-      if (pair) {
-        stored[o0 + padded] = s10;
-        stored[o0 + padded + 1] = s11;
-        stored[o0 + padded + 2] = s12;
-        stored[o0 + padded + 3] = s13;
-      }
+      for (let t = 0; t < 4; t++) stored[o0 + t] = sums[t];
+      if (pair) for (let t = 0; t < 4; t++) stored[o0 + padded + t] = sums[4 + t];
       for (let t = t0; t < tEnd; t++) {
         let s = sums[t - t0];
         totals[t] += s < own0 ? s : own0;

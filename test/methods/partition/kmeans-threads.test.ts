@@ -1,6 +1,7 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import type { KmeansRun } from '../../../src/methods/partition/restarts';
 import { createRandom } from '../../../src/random';
 
 // The worker thread runs only from the compiled package (dist/, built by `npm test`), so this
@@ -10,16 +11,7 @@ import { createRandom } from '../../../src/random';
 const dist = process.env.KINSORT_DIST_PARTITION ?? join(__dirname, '../../../dist/methods/partition');
 const built = existsSync(join(dist, 'kmeans-worker.js')) && existsSync(join(dist, 'restarts.js'));
 
-interface Run {
-  restart: number;
-  assignment: Int32Array;
-  centres: Float64Array;
-  iterations: number;
-  converged: boolean;
-  withinByRestart: number[];
-  figures: { sizes: number[]; withinSS: number; withinSSBySegment: number[]; betweenSS: number; totalSS: number };
-  byWorker: number;
-}
+type Run = KmeansRun;
 
 // eslint-disable-next-line @typescript-eslint/no-var-requires
 const load = () => require(join(dist, 'restarts.js')) as { runKmeans: (plan: object, onDone: (n: number) => void) => Run; setKmeansThreads: (t: 1 | 2) => number };
