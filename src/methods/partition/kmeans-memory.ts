@@ -21,8 +21,9 @@ export interface KmeansLayout {
   /** Block b is rows [starts[b], starts[b + 1]); every start is even, for the paired sweep. */
   readonly starts: readonly number[];
   readonly bytes: number;
-  /** Byte offset of every array. */
+  /** Byte offset and length (elements; 0 for arrays left out) of every array. */
   readonly at: Readonly<Record<Float64Field | Int32Field, number>>;
+  readonly length: Readonly<Record<Float64Field | Int32Field, number>>;
 }
 
 const FLOAT64_FIELDS = [
@@ -91,15 +92,21 @@ function align16(bytes: number): number {
   return Math.ceil(bytes / 16) * 16;
 }
 
-export function kmeansLayout(n: number, d: number, k: number): KmeansLayout {
+/**
+ * Where every array lives. `rowsInside` false leaves no room for the rows (plain memory uses the
+ * caller's); `lloyd` false leaves none for the k-means++ and bound arrays either (an exact finish
+ * needs only the assignment and the per-segment totals).
+ */
+export function kmeansLayout(n: number, d: number, k: number, { rowsInside = true, lloyd = true } = {}): KmeansLayout {
   const padded = 4 * Math.ceil(defaultTrials(k) / 4);
   const blocks = n * d >= MIN_WORK_FOR_SHARED && n * d * k >= MIN_WORK_FOR_BLOCKS ? BLOCKS : 1;
   const starts = Array.from({ length: blocks + 1 }, (_, b) => (b === blocks ? n : 2 * Math.floor((b * n) / (2 * blocks))));
   const lengths: Record<Float64Field | Int32Field, number> = {
-    rows: n * d, closest: n, secondLower: n, cumulative: n, upper: n, lower: n, stored: n * padded,
+    rows: rowsInside ? n * d : 0, closest: n, secondLower: lloyd ? n : 0, cumulative: lloyd ? n : 0, upper: lloyd ? n : 0,
+    lower: lloyd ? n : 0, stored: lloyd ? n * padded : 0,
     candidates: padded * d, candidatesPaired: padded * d, totals: blocks * padded, sums: blocks * k * d, counts: blocks * k,
     centres: k * d, previous: k * d, moved: k, halfGap: k, parts: blocks * k, blockValue: blocks, grand: blocks * d, params: 4,
-    nearest: n, assignment: n,
+    nearest: lloyd ? n : 0, assignment: n,
   }; // prettier-ignore
   const at = {} as Record<Float64Field | Int32Field, number>;
   let bytes = 0;
@@ -111,7 +118,7 @@ export function kmeansLayout(n: number, d: number, k: number): KmeansLayout {
     at[f] = bytes;
     bytes = align16(bytes + lengths[f] * 4);
   }
-  return { n, d, k, padded, blocks, starts, bytes, at };
+  return { n, d, k, padded, blocks, starts, bytes, at, length: lengths };
 }
 
 /** The rows of block b: [start, end). */
@@ -132,17 +139,17 @@ export function memoryViews(
   buffer: ArrayBufferLike,
   extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; take?: TakeKernel; segmentSums?: SegmentSums; rows?: Float64Array } = {},
 ): KmeansMemory {
-  const { n, d, k, padded, blocks, at } = layout;
-  const f64 = (f: Float64Field, length: number) => new Float64Array(buffer, at[f], length);
-  const i32 = (f: Int32Field, length: number) => new Int32Array(buffer, at[f], length);
+  const { at, length } = layout;
+  const f64 = (f: Float64Field) => new Float64Array(buffer, at[f], length[f]);
+  const i32 = (f: Int32Field) => new Int32Array(buffer, at[f], length[f]);
   return {
     layout, wasm: extra.wasm, sweep: extra.sweep, take: extra.take, segmentSums: extra.segmentSums,
-    rows: extra.rows ?? f64('rows', n * d), closest: f64('closest', n), nearest: i32('nearest', n), secondLower: f64('secondLower', n),
-    cumulative: f64('cumulative', n), stored: f64('stored', n * padded), candidates: f64('candidates', padded * d),
-    candidatesPaired: f64('candidatesPaired', padded * d), totals: f64('totals', blocks * padded), assignment: i32('assignment', n),
-    upper: f64('upper', n), lower: f64('lower', n), sums: f64('sums', blocks * k * d), counts: f64('counts', blocks * k),
-    centres: f64('centres', k * d), previous: f64('previous', k * d), moved: f64('moved', k), halfGap: f64('halfGap', k),
-    parts: f64('parts', blocks * k), blockValue: f64('blockValue', blocks), grand: f64('grand', blocks * d), params: f64('params', 4),
+    rows: extra.rows ?? f64('rows'), closest: f64('closest'), nearest: i32('nearest'), secondLower: f64('secondLower'),
+    cumulative: f64('cumulative'), stored: f64('stored'), candidates: f64('candidates'),
+    candidatesPaired: f64('candidatesPaired'), totals: f64('totals'), assignment: i32('assignment'),
+    upper: f64('upper'), lower: f64('lower'), sums: f64('sums'), counts: f64('counts'),
+    centres: f64('centres'), previous: f64('previous'), moved: f64('moved'), halfGap: f64('halfGap'),
+    parts: f64('parts'), blockValue: f64('blockValue'), grand: f64('grand'), params: f64('params'),
   }; // prettier-ignore
 }
 
@@ -167,19 +174,20 @@ function kernel<T>(module: WebAssembly.Module | undefined, wasm: WebAssembly.Mem
 let spare: WebAssembly.Memory | undefined;
 
 /**
- * Memory for k-means on `data` (n × d, k segments). `shareable` asks for shared WebAssembly memory
+ * Memory for k-means on `data` (n × d, k segments). 'shared' asks for shared WebAssembly memory
  * when the input is large enough and the platform has it (the rows are then copied in);
- * otherwise the arrays are plain and `rows` is `data` itself.
+ * otherwise, and for 'plain', the arrays are plain and `rows` is `data` itself. 'finish' is plain
+ * with only what the exact finish of a run needs (assignment, centres, per-segment totals).
  */
-export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: number, shareable = true): KmeansMemory {
-  const layout = kmeansLayout(n, d, k);
-  if (shareable && n * d >= MIN_WORK_FOR_SHARED) {
-    const shared = sharedMemory(layout);
+export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: number, kind: 'shared' | 'plain' | 'finish' = 'shared'): KmeansMemory {
+  if (kind === 'shared' && n * d >= MIN_WORK_FOR_SHARED) {
+    const shared = sharedMemory(kmeansLayout(n, d, k));
     if (shared) {
       shared.rows.set(data.subarray(0, n * d));
       return shared;
     }
   }
+  const layout = kmeansLayout(n, d, k, { rowsInside: false, lloyd: kind !== 'finish' });
   return memoryViews(layout, new ArrayBuffer(layout.bytes), { rows: data });
 }
 

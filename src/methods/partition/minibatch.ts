@@ -54,7 +54,7 @@ export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions
   const restarts = checkInteger(opts.restarts ?? 3, `${where}: restarts`, 1);
   const data = m.data;
   // The exact finish of each restart runs on the calling thread over plain arrays (no copy of the rows).
-  const mem = takeKmeansMemory(data, n, d, k, false);
+  const mem = takeKmeansMemory(data, n, d, k, 'finish');
   const team = localTeam(mem);
   const root = createRandom(opts.seed ?? 0);
   const centers = new Float64Array(k * d);

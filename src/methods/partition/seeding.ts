@@ -97,7 +97,7 @@ function drawWeighted(mem: KmeansMemory, target: number): number {
 
 /** k-means++ centres for `data` on the calling thread alone (mini-batch k-means seeds from a sample this way). */
 export function seedPlusPlus(data: Float64Array, n: number, d: number, k: number, random: Random, out: Float64Array): void {
-  const mem = takeKmeansMemory(data, n, d, k, false);
+  const mem = takeKmeansMemory(data, n, d, k, 'plain');
   seedPlusPlusOn(localTeam(mem), mem, random);
   out.set(mem.centres);
   releaseKmeansMemory(mem);

@@ -95,7 +95,7 @@ describe('segment sums as WebAssembly', () => {
     it(`give bit for bit the sums and counts of the JavaScript loop (${n} × ${d}, k = ${k})`, () => {
       const data = blobs(n, d, n + d);
       const shared = takeKmeansMemory(data, n, d, k);
-      const plain = takeKmeansMemory(data, n, d, k, false);
+      const plain = takeKmeansMemory(data, n, d, k, 'plain');
       expect(shared.segmentSums).toBeDefined();
       expect(plain.segmentSums).toBeUndefined();
       const random = createRandom(`sums-${n}`);
