@@ -3,7 +3,8 @@
 // layout half of each scan strides through memory (one page per value), which dominated the
 // time. Same chain, tie and naming rules and the same Lance–Williams arithmetic, so the merges
 // are identical to the condensed version's.
-import { RawMerges, createRawMerges } from './merges';
+import type { RawMerges } from './merges';
+import { nnChain } from './nn-chain';
 import { MergeTick } from './ticker';
 import { ReducibleMethod } from './nn-chain-matrix';
 import { condensedRowStarts } from './condensed-rows';
@@ -68,79 +69,50 @@ export function fullEuclidean(n: number, dims: number, data: Float64Array): Floa
 
 /** `full` is overwritten. For ward it must hold SQUARED distances. */
 export function nnChainOnFull(n: number, full: Float64Array, method: ReducibleMethod, tick?: MergeTick): RawMerges {
-  const raw = createRawMerges(n);
-  const size = new Float64Array(n).fill(1);
-  const active = new Int32Array(n);
-  for (let i = 0; i < n; i++) active[i] = i;
-  let count = n;
-  const chain = new Int32Array(n);
-  let chainLength = 0;
-
-  for (let k = 0; k < n - 1; k++) {
-    if (chainLength === 0) chain[chainLength++] = active[0];
-    let x = 0;
-    let y = 0;
-    let current = 0;
-    for (;;) {
-      x = chain[chainLength - 1];
-      const row = x * n;
-      let candidate = -1;
-      if (chainLength > 1) {
-        candidate = chain[chainLength - 2];
-        current = full[row + candidate];
-      } else {
-        current = Infinity;
-      }
-      for (let p = 0; p < count; p++) {
-        const i = active[p];
-        if (i === x) continue;
-        const d = full[row + i];
-        if (d < current) {
-          current = d;
-          candidate = i;
+  return nnChain(
+    n,
+    {
+      nearest({ active, count }, x, predecessor, found) {
+        const row = x * n;
+        let candidate = predecessor;
+        let current = predecessor < 0 ? Infinity : full[row + predecessor];
+        for (let p = 0; p < count; p++) {
+          const i = active[p];
+          if (i === x) continue;
+          const d = full[row + i];
+          if (d < current) {
+            current = d;
+            candidate = i;
+          }
         }
-      }
-      y = candidate;
-      if (chainLength > 1 && y === chain[chainLength - 2]) break;
-      chain[chainLength++] = y;
-    }
-    chainLength -= 2;
-    if (x > y) {
-      const t = x;
-      x = y;
-      y = t;
-    }
-    raw.a[k] = x;
-    raw.b[k] = y;
-    raw.height[k] = method === 'ward' ? Math.sqrt(current) : current;
-    const nx = size[x];
-    const ny = size[y];
-    const total = nx + ny;
-    const rx = x * n;
-    const ry = y * n;
-    for (let p = 0; p < count; p++) {
-      const i = active[p];
-      if (i === x || i === y) continue;
-      const dxi = full[rx + i];
-      const dyi = full[ry + i];
-      let value: number;
-      if (method === 'complete') value = dxi > dyi ? dxi : dyi;
-      else if (method === 'average') value = (nx * dxi + ny * dyi) / total;
-      else if (method === 'weighted') value = 0.5 * (dxi + dyi);
-      else {
-        const ni = size[i];
-        value = ((nx + ni) * dxi + (ny + ni) * dyi - ni * current) / (nx + ny + ni);
-      }
-      full[ry + i] = value;
-      full[i * n + y] = value;
-    }
-    size[y] = total;
-    size[x] = 0;
-    let q = 0;
-    while (active[q] !== x) q++;
-    active.copyWithin(q, q + 1, count);
-    count--;
-    if (tick) tick(k + 1);
-  }
-  return raw;
+        found.value = current;
+        return candidate;
+      },
+      merge({ active, count, size }, x, y, value) {
+        const nx = size[x];
+        const ny = size[y];
+        const total = nx + ny;
+        const rx = x * n;
+        const ry = y * n;
+        for (let p = 0; p < count; p++) {
+          const i = active[p];
+          if (i === x || i === y) continue;
+          const dxi = full[rx + i];
+          const dyi = full[ry + i];
+          let updated: number;
+          if (method === 'complete') updated = dxi > dyi ? dxi : dyi;
+          else if (method === 'average') updated = (nx * dxi + ny * dyi) / total;
+          else if (method === 'weighted') updated = 0.5 * (dxi + dyi);
+          else {
+            const ni = size[i];
+            updated = ((nx + ni) * dxi + (ny + ni) * dyi - ni * value) / (nx + ny + ni);
+          }
+          full[ry + i] = updated;
+          full[i * n + y] = updated;
+        }
+        return method === 'ward' ? Math.sqrt(value) : value;
+      },
+    },
+    tick,
+  );
 }

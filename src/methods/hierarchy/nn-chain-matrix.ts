@@ -1,10 +1,9 @@
 // Nearest-neighbour chain on a condensed matrix (Müllner 2011, Fig. 4) for the reducible
 // linkages, with Lance & Williams (1967) updates in place. Ward runs on squared distances
 // (its update is exact there and needs no square roots); heights are returned on the distance
-// scale. Ties: a chain never leaves its predecessor for an equal candidate (that is what
-// guarantees termination); otherwise the active cluster with the smallest index wins. Merging
-// clusters x < y keeps the name y.
-import { RawMerges, createRawMerges } from './merges';
+// scale. Chain, tie and naming rules: nn-chain.ts.
+import type { RawMerges } from './merges';
+import { nnChain } from './nn-chain';
 import { MergeTick } from './ticker';
 import { condensedRowStarts } from './condensed-rows';
 
@@ -12,74 +11,44 @@ export type ReducibleMethod = 'complete' | 'average' | 'weighted' | 'ward';
 
 /** `work` is overwritten (pass a copy). For ward it must hold SQUARED distances. */
 export function nnChainOnMatrix(n: number, work: Float64Array, method: ReducibleMethod, tick?: MergeTick): RawMerges {
-  const raw = createRawMerges(n);
   const starts = condensedRowStarts(n);
-  const size = new Float64Array(n).fill(1);
-  // Active clusters in increasing order; removal shifts the tail (O(n) per merge, cheap).
-  const active = new Int32Array(n);
-  for (let i = 0; i < n; i++) active[i] = i;
-  let count = n;
-  const chain = new Int32Array(n);
-  let chainLength = 0;
-
-  for (let k = 0; k < n - 1; k++) {
-    if (chainLength === 0) chain[chainLength++] = active[0];
-    let x = 0;
-    let y = 0;
-    let current = 0;
-    for (;;) {
-      x = chain[chainLength - 1];
-      let candidate = -1;
-      if (chainLength > 1) {
-        candidate = chain[chainLength - 2];
-        current = candidate < x ? work[starts[candidate] + x] : work[starts[x] + candidate];
-      } else {
-        current = Infinity;
-      }
-      let p = 0;
-      const sx = starts[x];
-      for (; p < count; p++) {
-        const i = active[p];
-        if (i >= x) break;
-        const d = work[starts[i] + x];
-        if (d < current) {
-          current = d;
-          candidate = i;
+  return nnChain(
+    n,
+    {
+      nearest({ active, count }, x, predecessor, found) {
+        let candidate = predecessor;
+        let current = predecessor < 0 ? Infinity : predecessor < x ? work[starts[predecessor] + x] : work[starts[x] + predecessor];
+        // Rows before x are read down column x; rows after it along row x.
+        let p = 0;
+        const sx = starts[x];
+        for (; p < count; p++) {
+          const i = active[p];
+          if (i >= x) break;
+          const d = work[starts[i] + x];
+          if (d < current) {
+            current = d;
+            candidate = i;
+          }
         }
-      }
-      if (p < count && active[p] === x) p++;
-      for (; p < count; p++) {
-        const i = active[p];
-        const d = work[sx + i];
-        if (d < current) {
-          current = d;
-          candidate = i;
+        if (p < count && active[p] === x) p++;
+        for (; p < count; p++) {
+          const i = active[p];
+          const d = work[sx + i];
+          if (d < current) {
+            current = d;
+            candidate = i;
+          }
         }
-      }
-      y = candidate;
-      if (chainLength > 1 && y === chain[chainLength - 2]) break;
-      chain[chainLength++] = y;
-    }
-    chainLength -= 2;
-    if (x > y) {
-      const t = x;
-      x = y;
-      y = t;
-    }
-    raw.a[k] = x;
-    raw.b[k] = y;
-    raw.height[k] = method === 'ward' ? Math.sqrt(current) : current;
-    updateRow(method, work, starts, active, count, x, y, current, size[x], size[y], size);
-    size[y] += size[x];
-    size[x] = 0;
-    // Drop x from the active list.
-    let q = 0;
-    while (active[q] !== x) q++;
-    active.copyWithin(q, q + 1, count);
-    count--;
-    if (tick) tick(k + 1);
-  }
-  return raw;
+        found.value = current;
+        return candidate;
+      },
+      merge({ active, count, size }, x, y, value) {
+        updateRow(method, work, starts, active, count, x, y, value, size[x], size[y], size);
+        return method === 'ward' ? Math.sqrt(value) : value;
+      },
+    },
+    tick,
+  );
 }
 
 /**
