@@ -6,7 +6,7 @@
 import type { RawMerges } from './merges';
 import { nnChain } from './nn-chain';
 import { MergeTick } from './ticker';
-import { ReducibleMethod } from './nn-chain-matrix';
+import { lanceWilliams, ReducibleMethod } from './nn-chain-matrix';
 import { condensedRowStarts } from './condensed-rows';
 
 /** Largest full matrix used before falling back to the condensed layout (bytes). */
@@ -91,22 +91,12 @@ export function nnChainOnFull(n: number, full: Float64Array, method: ReducibleMe
       merge({ active, count, size }, x, y, value) {
         const nx = size[x];
         const ny = size[y];
-        const total = nx + ny;
         const rx = x * n;
         const ry = y * n;
         for (let p = 0; p < count; p++) {
           const i = active[p];
           if (i === x || i === y) continue;
-          const dxi = full[rx + i];
-          const dyi = full[ry + i];
-          let updated: number;
-          if (method === 'complete') updated = dxi > dyi ? dxi : dyi;
-          else if (method === 'average') updated = (nx * dxi + ny * dyi) / total;
-          else if (method === 'weighted') updated = 0.5 * (dxi + dyi);
-          else {
-            const ni = size[i];
-            updated = ((nx + ni) * dxi + (ny + ni) * dyi - ni * value) / (nx + ny + ni);
-          }
+          const updated = lanceWilliams(method, full[rx + i], full[ry + i], nx, ny, size[i], value);
           full[ry + i] = updated;
           full[i * n + y] = updated;
         }

@@ -51,10 +51,7 @@ export function nnChainOnMatrix(n: number, work: Float64Array, method: Reducible
   );
 }
 
-/**
- * Lance–Williams: new dissimilarities between the merged cluster (named y) and every other.
- * The same arithmetic as SciPy's updates, so tied values stay tied the same way.
- */
+/** New dissimilarities between the merged cluster (named y) and every other. */
 function updateRow(
   method: ReducibleMethod,
   work: Float64Array,
@@ -75,20 +72,23 @@ function updateRow(
   while (active[px] !== x) px++;
   let py = px + 1;
   while (active[py] !== y) py++;
-  const total = nx + ny;
   for (let p = 0; p < count; p++) {
     if (p === px || p === py) continue;
     const i = active[p];
     const ix = p < px ? starts[i] + x : sx + i;
     const iy = p < py ? starts[i] + y : sy + i;
-    const dxi = work[ix];
-    const dyi = work[iy];
-    if (method === 'complete') work[iy] = dxi > dyi ? dxi : dyi;
-    else if (method === 'average') work[iy] = (nx * dxi + ny * dyi) / total;
-    else if (method === 'weighted') work[iy] = 0.5 * (dxi + dyi);
-    else {
-      const ni = size[i];
-      work[iy] = ((nx + ni) * dxi + (ny + ni) * dyi - ni * dxy) / (nx + ny + ni);
-    }
+    work[iy] = lanceWilliams(method, work[ix], work[iy], nx, ny, size[i], dxy);
   }
+}
+
+/**
+ * The Lance–Williams update for one other cluster i: its new dissimilarity to the union of x and
+ * y (sizes nx, ny; ni for i; dxy between x and y). The same arithmetic as SciPy's updates, so
+ * tied values stay tied the same way.
+ */
+export function lanceWilliams(method: ReducibleMethod, dxi: number, dyi: number, nx: number, ny: number, ni: number, dxy: number): number {
+  if (method === 'complete') return dxi > dyi ? dxi : dyi;
+  if (method === 'average') return (nx * dxi + ny * dyi) / (nx + ny);
+  if (method === 'weighted') return 0.5 * (dxi + dyi);
+  return ((nx + ni) * dxi + (ny + ni) * dyi - ni * dxy) / (nx + ny + ni);
 }
