@@ -154,7 +154,12 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
   if (ignoredColumns.length > 0) notes.push(`Ignored column${ignoredColumns.length > 1 ? 's' : ''} the definition does not use: ${ignoredColumns.join(', ')}.`);
   if (refused.length > 0) notes.push(`${refused.length} row(s) could not be prepared and have no segment; see "refused".`);
   if (unseenLevels.length > 0) {
-    notes.push(`${unseenLevels.length} cell(s) hold a category level never seen in training; those rows sit at the baseline of that column (all its indicators 0).`);
+    const shown = unseenLevels.slice(0, 5).map((u) => `${u.id}: ${u.column} = ${JSON.stringify(u.level)}`);
+    const more = unseenLevels.length > shown.length ? `, and ${unseenLevels.length - shown.length} more (see "unseenLevels")` : '';
+    notes.push(
+      `${unseenLevels.length} cell(s) hold a category level never seen in training (${shown.join('; ')}${more}); ` +
+        'those rows sit at the baseline of that column (all its indicators 0).',
+    );
   }
   return {
     rows,

@@ -101,6 +101,8 @@ describe('assigning new rows', () => {
     const outcome = handle.assign(rows);
     expect(outcome.report.unseenLevels).toEqual([{ id: rows[3].rider, row: 3, column: 'fare', level: 'night-owl' }]);
     expect(outcome.rows[3].segment).not.toBeNull();
+    // The note names the row, the column and the level, so a command-line user sees them too.
+    expect(outcome.report.notes.join(' ')).toContain(`${rows[3].rider}: fare = "night-owl"`);
   });
 
   it('keeps every row: a missing value under refuse, an unknown binary level and text in a number are named by id', () => {
