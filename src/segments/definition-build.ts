@@ -73,8 +73,8 @@ function finiteOrNull(value: unknown): unknown {
   return value;
 }
 
-export function buildDefinition(input: BuildDefinitionInput): SegmentDefinition {
-  const where = 'buildDefinition';
+/** `where` names the caller in error messages (the fluent `definition()` passes its own name). */
+export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefinition'): SegmentDefinition {
   checkOptions(input, INPUT_KEYS, where);
   if (input.preparation === null || typeof input.preparation !== 'object') {
     throw new KinsortError(`${where}: "preparation" must be the Preparation object from prepareTable.`, 'bad-argument');

@@ -252,7 +252,7 @@ export class Segmentation {
       training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
       evidence: this.evidence(),
       note: opts.note,
-    });
+    }, 'definition');
     return definitionHandle(def);
   }
 

@@ -64,6 +64,9 @@ describe('fluent calls equal their functional twins', () => {
     const gower = s.kmedoids({ k: 3, metric: 'gower' });
     const gowerTwin = kmedoids(dissimilarity(s.data.mixed), { k: 3 });
     expect(Array.from(gower.assignment)).toEqual(Array.from(gowerTwin.assignment));
+    // A definition cannot carry Gower medoids (new rows are assigned in the prepared space); the
+    // refusal names the call the user made.
+    expect(() => gower.definition()).toThrow(/^definition: the segments were found with the "gower" metric/);
   });
 
   it('agglomerate and cut', () => {
