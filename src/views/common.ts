@@ -97,3 +97,12 @@ export function shortName(name: string, max: number): string {
   const space = room.lastIndexOf(' ');
   return (space >= max / 2 ? room.slice(0, space) : room).trimEnd() + '…';
 }
+
+/** "every second", "every third", "every 21st" … for notes on thinned pictures. */
+export function everyNth(n: number): string {
+  if (n === 2) return 'every second';
+  if (n === 3) return 'every third';
+  const teen = n % 100 >= 11 && n % 100 <= 13;
+  const suffix = teen ? 'th' : n % 10 === 1 ? 'st' : n % 10 === 2 ? 'nd' : n % 10 === 3 ? 'rd' : 'th';
+  return `every ${n}${suffix}`;
+}

@@ -3,7 +3,7 @@
 import { compactLabels } from '../core/assignment';
 import { checkChoice } from '../core/errors';
 import { checkInteger, checkNumber, checkOptions } from '../core/options';
-import { axisStyle, baseLayout, kindOf, plotText, refuse, svgLegend } from './common';
+import { axisStyle, baseLayout, everyNth, kindOf, plotText, refuse, svgLegend } from './common';
 import { INK, segmentColour, textOn } from './palette';
 import { frame, pathData, svgDocument, svgEl } from './svg';
 import { makeView, View } from './view';
@@ -102,7 +102,7 @@ export function dendrogramView(tree: DendrogramTree, options: DendrogramOptions 
   const leafAxisPx = orientation === 'upright' ? 860 : Math.min(2400, Math.max(360, n * 12));
   const every = Math.max(1, Math.ceil((n * 11) / leafAxisPx));
   const shown = tree.order.map((leaf, i) => (i % every === 0 ? labels[leaf] : ''));
-  const note = every > 1 ? [`${n} leaves: every ${every === 2 ? 'second' : `${every}th`} label is printed; hover (with scripts on) names every leaf.`] : [];
+  const note = every > 1 ? [`${n} leaves: ${everyNth(every)} label is printed; hover (with scripts on) names every leaf.`] : [];
 
   const still = staticDendrogram(links, shown, orientation, maxHeight, cutHeight, k, title, leafAxisPx, badges);
   const plot = plotDendrogram(links, tree.order.map((l) => labels[l]), shown, orientation, maxHeight, cutHeight, k, leafAxisPx, badges);

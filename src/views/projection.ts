@@ -3,7 +3,7 @@
 import { compactLabels } from '../core/assignment';
 import { checkOptions } from '../core/options';
 import { Matrix } from '../core/matrix';
-import { axisStyle, baseLayout, kindOf, namesFrom, plotText, refuse, svgLegend } from './common';
+import { axisStyle, baseLayout, everyNth, kindOf, namesFrom, plotText, refuse, svgLegend } from './common';
 import { INK, segmentColour, textOn } from './palette';
 import { extent, frame, pathData, svgDocument, svgEl } from './svg';
 import { makeView, View } from './view';
@@ -162,19 +162,21 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   body.push(...arrowLabels); // above the centre discs
   body.push(...svgLegend(k, 64, height - 10, names));
   const still = svgDocument(width, height, title, body);
-  const notes = stride > 1 ? [`${n} rows: the static picture draws every ${stride}th row; the live chart draws all.`] : [];
+  const notes = stride > 1 ? [`${n} rows: the static picture draws ${everyNth(stride)} row; the live chart draws all.`] : [];
   if (unlabelled.length) notes.push(`Short arrows, unlabelled (little weight on these two components): ${unlabelled.join(', ')}.`);
 
   // Live chart: one trace per segment so the legend toggles segments.
   const hoverCols = Object.entries(opts.hover ?? {});
   for (const [name, values] of hoverCols) if (values.length !== n) refuse(where, `hover column "${name}" has ${values.length} values for ${n} rows.`);
   const data: object[] = [];
+  // Above a few thousand points SVG markers get slow; WebGL draws them instead, and then the
+  // centres too (a WebGL layer covers the SVG one, which would hide them).
+  const traceType = n > 5000 ? 'scattergl' : 'scatter';
   for (let s = 0; s < k; s++) {
     const rows: number[] = [];
     for (let i = 0; i < n; i++) if (labels[i] === s) rows.push(i);
     data.push({
-      // Above a few thousand points SVG markers get slow; WebGL draws them instead.
-      type: n > 5000 ? 'scattergl' : 'scatter',
+      type: traceType,
       mode: 'markers',
       name: plotText(names[s] ? `${s + 1} · ${names[s]}` : `${s + 1}`),
       x: rows.map((i) => x[i]),
@@ -192,7 +194,7 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
     });
   }
   data.push({
-    type: 'scatter',
+    type: traceType,
     mode: 'markers+text',
     name: 'centres',
     x: Array.from(cx),

@@ -5,7 +5,11 @@ import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
 import { chromium, Browser } from 'playwright-core';
-import { saveViewsPage } from '../../src/views';
+import { projectionView, saveViewsPage } from '../../src/views';
+import { createMatrix } from '../../src/core/matrix';
+import { kmeans } from '../../src/methods/partition';
+import { project } from '../../src/methods/project';
+import { createRandom } from '../../src/random';
 import { allViewsList } from './views-list';
 
 export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
@@ -65,4 +69,41 @@ describe('one page holding every view (hostile strings in ids, names and levels)
     expect(state.title).toBe('Every view <with a hostile title>');
     await context.close();
   }, 60_000);
+});
+
+describe('a projection of more rows than SVG markers handle (drawn with WebGL)', () => {
+  it('draws every row and the numbered centres on the WebGL layer, with scripts on', async () => {
+    // Three groups of our own making, 6,000 rows: above the 5,000 where the live chart switches to WebGL.
+    const random = createRandom('webgl-projection');
+    const n = 6000;
+    const d = 4;
+    const data = new Float64Array(n * d);
+    for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) data[i * d + j] = (i % 3) * 3 * (j === 0 ? 1 : 0.3) + random.normal();
+    const m = createMatrix(n, d, data);
+    const fit = kmeans(m, { k: 3, seed: 1, restarts: 2 });
+    const view = projectionView(project(m, { components: 2 }), fit.assignment);
+    const glFile = saveViewsPage(path.join(dir, 'webgl.html'), 'WebGL projection', [view]);
+    const context = await browser.newContext({ javaScriptEnabled: true, viewport: { width: 1000, height: 800 } });
+    const page = await context.newPage();
+    await page.goto('file://' + glFile);
+    await page.waitForFunction(() => document.querySelectorAll('[data-drawn="plotly"]').length === 1, undefined, { timeout: 45_000 });
+    const state = await page.evaluate(() => {
+      const plot = document.querySelector('.js-plotly-plot') as unknown as { _fullData: { type: string; name: string; x: number[] }[] };
+      const canvases = Array.from(document.querySelectorAll('.js-plotly-plot canvas')) as HTMLCanvasElement[];
+      return {
+        types: plot._fullData.map((t) => t.type),
+        points: plot._fullData.filter((t) => t.name !== 'centres').reduce((sum, t) => sum + t.x.length, 0),
+        canvases: canvases.filter((c) => c.width > 0 && c.height > 0).length,
+        stillShown: Array.from(document.querySelectorAll('.ks-static')).filter((e) => (e as HTMLElement).offsetHeight > 0).length,
+        note: document.querySelector('.kinsort-view')?.textContent ?? '',
+      };
+    });
+    // Every trace on the WebGL layer (an SVG centres trace would sit under it, hidden), every row drawn.
+    expect(state.types).toEqual(['scattergl', 'scattergl', 'scattergl', 'scattergl']);
+    expect(state.points).toBe(n);
+    expect(state.canvases).toBeGreaterThan(0);
+    expect(state.stillShown).toBe(0);
+    expect(state.note).toContain('the static picture draws every second row');
+    await context.close();
+  }, 90_000);
 });

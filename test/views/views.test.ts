@@ -11,6 +11,7 @@ import {
 } from '../../src/views';
 import { makeDissimilarity } from '../../src/measure/condensed';
 import { KinsortError } from '../../src/core/errors';
+import { everyNth } from '../../src/views/common';
 import { agglomerate } from '../../src/methods/hierarchy';
 
 function build(hostile: boolean) {
@@ -75,7 +76,7 @@ describe('dendrogramView', () => {
     const big = sampleData(450);
     const view = dendrogramView(agglomerate(big.rows, { method: 'ward' }), { k: 4 });
     expect(view.svg()).not.toContain('rotate(-60');
-    expect(view.fragment()).toMatch(/450 leaves: every (second|\d+th) label is printed/);
+    expect(view.fragment()).toMatch(/450 leaves: every (second|third|\d+(st|nd|rd|th)) label is printed/);
   });
 
   it('refuses a k-means result and suggests the agglomerate step', () => {
@@ -149,5 +150,13 @@ describe('escaping: hostile strings from data never become markup', () => {
   it('the cards show the hostile title as text', () => {
     const cards = views.find((v) => v.kind === 'profile-cards')!.fragment();
     expect(cards).toContain('&lt;script&gt;window.__pwned=1&lt;/script&gt;&lt;img src=x onerror=&quot;');
+  });
+});
+
+describe('notes on thinned pictures', () => {
+  it('say which rows or labels are drawn in plain English ordinals', () => {
+    expect([2, 3, 4, 11, 12, 13, 21, 22, 23, 101].map(everyNth)).toEqual([
+      'every second', 'every third', 'every 4th', 'every 11th', 'every 12th', 'every 13th', 'every 21st', 'every 22nd', 'every 23rd', 'every 101st',
+    ]); // prettier-ignore
   });
 });
