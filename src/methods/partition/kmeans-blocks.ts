@@ -63,7 +63,7 @@ export function runBlock(mem: KmeansMemory, phase: Phase, b: number, arg0: numbe
     case Phase.Within:
       return withinParts(mem.rows, d, lo, hi, mem.assignment, mem.centres, mem.parts.subarray(b * k, (b + 1) * k));
     case Phase.Nearest:
-      mem.blockValue[b] = nearestRows(mem.rows, d, k, lo, hi, mem.centres, mem.assignment, counts);
+      mem.blockValue[b] = nearestRows(mem.rows, d, k, lo, hi, mem.paddedCentres, mem.assignment, counts);
       return;
   }
 }
@@ -116,6 +116,29 @@ function twoByFour(rows: Float64Array, a0: number, a1: number, others: Float64Ar
   out[5] = s11;
   out[6] = s12;
   out[7] = s13;
+}
+
+/** Squared distances of the row at a0 to the four rows of `others` from b0 on, into out[0..3] (as twoByFour, for one row). */
+function oneByFour(rows: Float64Array, a0: number, others: Float64Array, b0: number, d: number, out: Float64Array): void {
+  const b1 = b0 + d;
+  const b2 = b1 + d;
+  const b3 = b2 + d;
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
+  for (let j = 0; j < d; j++) {
+    const x = rows[a0 + j];
+    let e = x - others[b0 + j];
+    s0 += e * e;
+    e = x - others[b1 + j];
+    s1 += e * e;
+    e = x - others[b2 + j];
+    s2 += e * e;
+    e = x - others[b3 + j];
+    s3 += e * e;
+  }
+  out[0] = s0;
+  out[1] = s1;
+  out[2] = s2;
+  out[3] = s3;
 }
 
 function columnSums(rows: Float64Array, d: number, lo: number, hi: number, out: Float64Array): void {
@@ -226,8 +249,9 @@ export function withinParts(rows: Float64Array, d: number, lo: number, hi: numbe
 
 /**
  * Rows [lo, hi) to their nearest centre by a full scan; returns how many changed segment and
- * fills `counts`. Two rows against four centres at a time (twoByFour), then compared in centre
- * order, so ties go to the lower segment number exactly as one centre at a time would.
+ * fills `counts`. Two rows against four centres at a time (twoByFour; `centres` padded to a
+ * multiple of four with centres at infinity), then compared in centre order, so ties go to the
+ * lower segment number exactly as one centre at a time would.
  */
 export function nearestRows(
   rows: Float64Array,
@@ -241,7 +265,6 @@ export function nearestRows(
 ): number {
   counts.fill(0);
   let changed = 0;
-  const grouped = k - (k % 4);
   for (let i = lo; i < hi; i += 2) {
     // An odd last row is paired with itself; the copy's result is not used.
     const pair = i + 1 < hi;
@@ -252,8 +275,7 @@ export function nearestRows(
     let bestD0 = Infinity;
     let best1 = 0;
     let bestD1 = Infinity;
-    let c = 0;
-    for (; c < grouped; c += 4) {
+    for (let c = 0; c < k; c += 4) {
       twoByFour(rows, ib, jb, centres, c * d, d, quad);
       for (let q = 0; q < 4; q++) {
         if (quad[q] < bestD0) {
@@ -264,18 +286,6 @@ export function nearestRows(
           bestD1 = quad[4 + q];
           best1 = c + q;
         }
-      }
-    }
-    for (; c < k; c++) {
-      const s = squaredDistance(rows, ib, centres, c * d, d);
-      if (s < bestD0) {
-        bestD0 = s;
-        best0 = c;
-      }
-      const t = squaredDistance(rows, jb, centres, c * d, d);
-      if (t < bestD1) {
-        bestD1 = t;
-        best1 = c;
       }
     }
     if (assignment[i] !== best0) changed++;
@@ -421,7 +431,7 @@ function startSeeded(mem: KmeansMemory, lo: number, hi: number): void {
 
 /** First assignment from given or random centres: every distance, once. */
 function startFromCentres(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, counts: Float64Array): void {
-  const { rows, centres, assignment, upper, lower } = mem;
+  const { rows, paddedCentres, assignment, upper, lower } = mem;
   const { d, k } = mem.layout;
   sums.fill(0);
   counts.fill(0);
@@ -430,14 +440,17 @@ function startFromCentres(mem: KmeansMemory, lo: number, hi: number, sums: Float
     let best = 0;
     let bestD = Infinity;
     let secondD = Infinity;
-    for (let c = 0; c < k; c++) {
-      const s = squaredDistance(rows, ib, centres, c * d, d);
-      if (s < bestD) {
-        secondD = bestD;
-        bestD = s;
-        best = c;
-      } else if (s < secondD) {
-        secondD = s;
+    for (let c = 0; c < k; c += 4) {
+      oneByFour(rows, ib, paddedCentres, c * d, d, quad);
+      for (let q = 0; q < 4; q++) {
+        const s = quad[q];
+        if (s < bestD) {
+          secondD = bestD;
+          bestD = s;
+          best = c + q;
+        } else if (s < secondD) {
+          secondD = s;
+        }
       }
     }
     assignment[i] = best;
@@ -458,7 +471,7 @@ function startFromCentres(mem: KmeansMemory, lo: number, hi: number, sums: Float
  * looked at and the tie goes to the lower segment number.
  */
 function sweep(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, counts: Float64Array): void {
-  const { rows, centres, assignment, upper, lower, moved, halfGap, params } = mem;
+  const { rows, centres, paddedCentres, assignment, upper, lower, moved, halfGap, params } = mem;
   const { d, k } = mem.layout;
   const most = params[PARAM_MOST];
   const secondMost = params[PARAM_SECOND_MOST];
@@ -486,20 +499,20 @@ function sweep(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, co
     let best = a;
     let bestD = own * own;
     let secondD = Infinity;
-    for (let c = 0; c < k; c++) {
-      if (c === a) continue;
-      const cb = c * d;
-      let s = 0;
-      for (let j = 0; j < d; j++) {
-        const diff = rows[ib + j] - centres[cb + j];
-        s += diff * diff;
-      }
-      if (s < bestD || (s === bestD && c < best)) {
-        secondD = bestD;
-        bestD = s;
-        best = c;
-      } else if (s < secondD) {
-        secondD = s;
+    // Every other centre, four at a time, compared in centre order.
+    for (let c = 0; c < k; c += 4) {
+      oneByFour(rows, ib, paddedCentres, c * d, d, quad);
+      for (let q = 0; q < 4; q++) {
+        const e = c + q;
+        if (e === a) continue;
+        const s = quad[q];
+        if (s < bestD || (s === bestD && e < best)) {
+          secondD = bestD;
+          bestD = s;
+          best = e;
+        } else if (s < secondD) {
+          secondD = s;
+        }
       }
     }
     upper[i] = Math.sqrt(bestD);

@@ -70,6 +70,11 @@ export interface KmeansMemory {
   readonly sums: Float64Array;
   readonly counts: Float64Array;
   readonly centres: Float64Array;
+  /**
+   * The same centres followed by copies at infinity up to a multiple of four, so the distance
+   * loops take centres four at a time with no remainder: a centre at infinity is never nearest.
+   */
+  readonly paddedCentres: Float64Array;
   readonly previous: Float64Array;
   readonly moved: Float64Array;
   readonly halfGap: Float64Array;
@@ -105,7 +110,7 @@ export function kmeansLayout(n: number, d: number, k: number, { rowsInside = tru
     rows: rowsInside ? n * d : 0, closest: n, secondLower: lloyd ? n : 0, cumulative: lloyd ? n : 0, upper: lloyd ? n : 0,
     lower: lloyd ? n : 0, stored: lloyd ? n * padded : 0,
     candidates: padded * d, candidatesPaired: padded * d, totals: blocks * padded, sums: blocks * k * d, counts: blocks * k,
-    centres: k * d, previous: k * d, moved: k, halfGap: k, parts: blocks * k, blockValue: blocks, grand: blocks * d, params: 4,
+    centres: 4 * Math.ceil(k / 4) * d, previous: k * d, moved: k, halfGap: k, parts: blocks * k, blockValue: blocks, grand: blocks * d, params: 4,
     nearest: lloyd ? n : 0, assignment: n,
   }; // prettier-ignore
   const at = {} as Record<Float64Field | Int32Field, number>;
@@ -148,7 +153,7 @@ export function memoryViews(
     cumulative: f64('cumulative'), stored: f64('stored'), candidates: f64('candidates'),
     candidatesPaired: f64('candidatesPaired'), totals: f64('totals'), assignment: i32('assignment'),
     upper: f64('upper'), lower: f64('lower'), sums: f64('sums'), counts: f64('counts'),
-    centres: f64('centres'), previous: f64('previous'), moved: f64('moved'), halfGap: f64('halfGap'),
+    centres: f64('centres').subarray(0, layout.k * layout.d), paddedCentres: f64('centres'), previous: f64('previous'), moved: f64('moved'), halfGap: f64('halfGap'),
     parts: f64('parts'), blockValue: f64('blockValue'), grand: f64('grand'), params: f64('params'),
   }; // prettier-ignore
 }
@@ -184,11 +189,14 @@ export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: nu
     const shared = sharedMemory(kmeansLayout(n, d, k));
     if (shared) {
       shared.rows.set(data.subarray(0, n * d));
+      shared.paddedCentres.fill(Infinity, k * d);
       return shared;
     }
   }
   const layout = kmeansLayout(n, d, k, { rowsInside: false, lloyd: kind !== 'finish' });
-  return memoryViews(layout, new ArrayBuffer(layout.bytes), { rows: data });
+  const plain = memoryViews(layout, new ArrayBuffer(layout.bytes), { rows: data });
+  plain.paddedCentres.fill(Infinity, k * d);
+  return plain;
 }
 
 function sharedMemory(layout: KmeansLayout): KmeansMemory | undefined {
