@@ -2,7 +2,7 @@
 // centres recomputed as the means of their rows, and the sums of squares from scratch — so the
 // reported figures do not carry rounding drift from the incremental updates of the iterations.
 // Sums over rows are taken block by block and added in block order (kmeans-memory.ts).
-import { centresFromSums, repairEmpty, segmentSizes } from './hamerly';
+import { centresFromSums, repairEmpty, runHamerly, segmentSizes } from './hamerly';
 import { Phase } from './kmeans-blocks';
 import type { KmeansMemory } from './kmeans-memory';
 import type { KmeansTeam } from './kmeans-team';
@@ -79,20 +79,24 @@ export function partitionFigures(team: KmeansTeam, mem: KmeansMemory, spread: Gr
 
 /**
  * The exact last word on a kept k-means result (in `mem.assignment` and `mem.centres`): every
- * row to its nearest centre by a full scan (ties: lower segment number), and while that moves
- * any row, centres to the means and scan again (at most `maxSteps` times). Returns the number of
+ * row to its nearest centre by a full scan (ties: lower segment number). When that moves any
+ * row (the restart stopped on the tolerance, or rounding in its running sums), Lloyd iterations
+ * go on from these centres with tolerance 0 — with Hamerly's bounds, as in the restarts — until
+ * nothing moves, and the centres then become the means of their rows, summed from scratch and
+ * checked by one more full scan (at most `maxSteps` centre updates in all). Returns the number of
  * extra centre updates. Afterwards the assignment is nearest-centre for centres that are the
  * means of their rows, unless the cap hit.
  */
 export function settleExactly(team: KmeansTeam, mem: KmeansMemory, maxSteps: number): number {
-  let steps = 0;
+  team.run(Phase.Nearest);
+  if (sumOfBlocks(mem.blockValue, mem.layout.blocks) === 0) return 0;
+  let steps = runHamerly(team, mem, maxSteps, 0, false, false).iterations;
   for (;;) {
-    team.run(Phase.Nearest);
-    const moved = sumOfBlocks(mem.blockValue, mem.layout.blocks);
-    if (moved === 0 || steps >= maxSteps) break;
     centresToMeans(team, mem);
+    if (steps >= maxSteps) break;
+    team.run(Phase.Nearest);
+    if (sumOfBlocks(mem.blockValue, mem.layout.blocks) === 0) break;
     steps++;
   }
-  if (steps > 0) centresToMeans(team, mem);
   return steps;
 }
