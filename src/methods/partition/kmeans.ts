@@ -67,10 +67,10 @@ const KMEANS_OPTIONS = ['k', 'seed', 'restarts', 'maxIterations', 'tolerance', '
  * Partition rows into k segments by k-means.
  *
  * The kept restart ends with a full exact scan: every row goes to its nearest centre (ties: the
- * lower segment number) and, while that moves any row, the centres become the means and the
- * scan repeats (these extra updates count in `iterations`). So the reported assignment is
- * nearest-centre for the reported centres, which are the means of their rows, and within-SS is
- * computed from them. A segment that goes empty is given the row farthest from its own centre,
+ * lower segment number) and, while that moves any row, the iterations go on with tolerance 0
+ * until nothing moves, confirmed by another full scan (these extra updates count in
+ * `iterations`, within `maxIterations` in all). So the reported assignment is nearest-centre for
+ * the reported centres, which are the means of their rows, and within-SS is computed from them. A segment that goes empty is given the row farthest from its own centre,
  * taking rows in a fixed order (see `repairEmpty`).
  */
 export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
