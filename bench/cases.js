@@ -41,6 +41,24 @@ const MAIN_CASES = [
     ],
   },
   {
+    // Not a target case: more segments than groups in the data, so segments overlap and the
+    // iterations (and the bounds' skipping) do most of the work rather than the starts.
+    id: 'kmeans-overlap',
+    title: 'k-means, k = 30 over 8 groups, 3 restarts',
+    full: { n: 50_000, d: 10 },
+    quick: { n: 1_000, d: 10 },
+    kinsortFunction: 'kmeans',
+    kinsort: (ks, m) => ks.kmeans(m, { k: 30, seed: SEED, restarts: 3 }),
+    peers: [
+      {
+        tool: 'scikit-learn KMeans lloyd n_init=3',
+        python: 'kmeans',
+        params: { k: 30, restarts: 3, seed: SEED },
+        ratioMax: null, // no target set: reported for information
+      },
+    ],
+  },
+  {
     id: 'silhouette',
     title: 'silhouette, 8 segments',
     full: { n: 10_000, d: 10 },
