@@ -5,7 +5,7 @@
 // The sweeps over the rows are phases (kmeans-blocks.ts); the centre updates here are serial and
 // add the blocks' segment sums in block order.
 import { Phase } from './kmeans-blocks';
-import { blockOf, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type KmeansMemory } from './kmeans-memory';
+import { blockOf, interleaveInPairs, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type KmeansMemory } from './kmeans-memory';
 import type { KmeansTeam } from './kmeans-team';
 import { withinOn } from './partition-summary';
 
@@ -82,6 +82,7 @@ export function runHamerly(team: KmeansTeam, mem: KmeansMemory, maxIterations: n
 
     // After the last centre update the sweep runs once more, so the result is nearest-centre
     // for the final centres.
+    if (mem.pairScan) interleaveInPairs(mem.paddedCentres, mem.centresPaired, mem.paddedCentres.length / d, d);
     team.run(Phase.Sweep);
     if (last) break;
   }

@@ -57,7 +57,7 @@ export function runBlock(mem: KmeansMemory, phase: Phase, b: number, arg0: numbe
     case Phase.StartFromCentres:
       return startFromCentres(mem, lo, hi, sums, counts);
     case Phase.Sweep:
-      return sweep(mem, lo, hi, sums, counts);
+      return sweep(mem, lo, hi, b, sums, counts);
     case Phase.Sums:
       return blockSums(mem, lo, hi, b);
     case Phase.Within:
@@ -470,12 +470,19 @@ function startFromCentres(mem: KmeansMemory, lo: number, hi: number, sums: Float
  * the same sweep. The skip test is strict, so a row that may be tied with another centre is
  * looked at and the tie goes to the lower segment number.
  */
-function sweep(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, counts: Float64Array): void {
+function sweep(mem: KmeansMemory, lo: number, hi: number, b: number, sums: Float64Array, counts: Float64Array): void {
   const { rows, centres, paddedCentres, assignment, upper, lower, moved, halfGap, params } = mem;
-  const { d, k } = mem.layout;
+  const d = mem.layout.d;
   const most = params[PARAM_MOST];
   const secondMost = params[PARAM_SECOND_MOST];
   const mostAt = params[PARAM_MOST_AT];
+  const k4 = paddedCentres.length / d;
+  // Rows whose bounds fail are measured against every centre two at a time (twice the
+  // independent sums of one row; as WebAssembly where the memory has it); the first waits here
+  // for a partner. Rows in between only touch their own bounds, so the segment sums still change
+  // in row order.
+  const distances = mem.pairScan ? mem.scan.subarray(b * 2 * k4, (b + 1) * 2 * k4) : new Float64Array(2 * k4);
+  let waiting = -1;
   for (let i = lo; i < hi; i++) {
     const a = assignment[i];
     const up = upper[i] + moved[a];
@@ -496,37 +503,79 @@ function sweep(mem: KmeansMemory, lo: number, hi: number, sums: Float64Array, co
     own = Math.sqrt(own);
     upper[i] = own;
     if (own < bound) continue;
-    let best = a;
-    let bestD = own * own;
-    let secondD = Infinity;
-    // Every other centre, four at a time, compared in centre order.
-    for (let c = 0; c < k; c += 4) {
-      oneByFour(rows, ib, paddedCentres, c * d, d, quad);
-      for (let q = 0; q < 4; q++) {
-        const e = c + q;
-        if (e === a) continue;
-        const s = quad[q];
-        if (s < bestD || (s === bestD && e < best)) {
-          secondD = bestD;
-          bestD = s;
-          best = e;
-        } else if (s < secondD) {
-          secondD = s;
-        }
-      }
+    if (waiting < 0) {
+      waiting = i;
+      continue;
     }
-    upper[i] = Math.sqrt(bestD);
-    lower[i] = Math.sqrt(secondD);
-    if (best !== a) {
-      assignment[i] = best;
-      counts[a]--;
-      counts[best]++;
-      const bb = best * d;
-      for (let j = 0; j < d; j++) {
-        const v = rows[ib + j];
-        sums[ab + j] -= v;
-        sums[bb + j] += v;
-      }
+    scanPair(mem, waiting, i, b, distances);
+    moveToNearest(mem, waiting, distances, 0, sums, counts);
+    moveToNearest(mem, i, distances, k4, sums, counts);
+    waiting = -1;
+  }
+  if (waiting >= 0) {
+    // A last row without a partner is measured as its own partner.
+    scanPair(mem, waiting, waiting, b, distances);
+    moveToNearest(mem, waiting, distances, 0, sums, counts);
+  }
+}
+
+/** Squared distances of rows i0 and i1 to every padded centre, into distances[0..k4) and [k4..2·k4). */
+function scanPair(mem: KmeansMemory, i0: number, i1: number, b: number, distances: Float64Array): void {
+  const { rows, paddedCentres, pairScan } = mem;
+  const { d, at } = mem.layout;
+  const k4 = paddedCentres.length / d;
+  if (pairScan) {
+    const out = at.scan + b * 2 * k4 * 8;
+    pairScan(at.rows + i0 * d * 8, at.rows + i1 * d * 8, at.centresPaired, k4 / 4, d * 8, out, out + k4 * 8);
+    return;
+  }
+  for (let c = 0; c < k4; c += 4) {
+    twoByFour(rows, i0 * d, i1 * d, paddedCentres, c * d, d, quad);
+    for (let q = 0; q < 4; q++) {
+      distances[c + q] = quad[q];
+      distances[k4 + c + q] = quad[4 + q];
+    }
+  }
+}
+
+/**
+ * Row i (whose upper bound holds its exact distance to its own centre) goes to the nearest
+ * centre, from its squared distances to every centre at distances[from..]: compared in centre
+ * order against the own distance (ties: the lower segment number), bounds reset to the nearest
+ * and second-nearest distances, and the block's segment sums and counts follow a move.
+ */
+function moveToNearest(mem: KmeansMemory, i: number, distances: Float64Array, from: number, sums: Float64Array, counts: Float64Array): void {
+  const { rows, assignment, upper, lower } = mem;
+  const { d, k } = mem.layout;
+  const a = assignment[i];
+  const own = upper[i];
+  let best = a;
+  let bestD = own * own;
+  let secondD = Infinity;
+  for (let e = 0; e < k; e++) {
+    if (e === a) continue;
+    const s = distances[from + e];
+    if (s < bestD || (s === bestD && e < best)) {
+      secondD = bestD;
+      bestD = s;
+      best = e;
+    } else if (s < secondD) {
+      secondD = s;
+    }
+  }
+  upper[i] = Math.sqrt(bestD);
+  lower[i] = Math.sqrt(secondD);
+  if (best !== a) {
+    assignment[i] = best;
+    counts[a]--;
+    counts[best]++;
+    const ib = i * d;
+    const ab = a * d;
+    const bb = best * d;
+    for (let j = 0; j < d; j++) {
+      const v = rows[ib + j];
+      sums[ab + j] -= v;
+      sums[bb + j] += v;
     }
   }
 }

@@ -10,6 +10,7 @@ import { defaultTrials } from './seeding';
 import { sharedTrialModule, type PairsTotals } from './seedingWasm';
 import { segmentSumsModule, type SegmentSums } from './sums-wasm';
 import { takeModule, type TakeKernel } from './take-wasm';
+import { pairScanModule, type PairScan } from './scan-wasm';
 
 export interface KmeansLayout {
   readonly n: number;
@@ -28,7 +29,7 @@ export interface KmeansLayout {
 
 const FLOAT64_FIELDS = [
   'rows', 'closest', 'secondLower', 'cumulative', 'upper', 'lower', 'stored', 'candidates', 'candidatesPaired', 'totals',
-  'sums', 'counts', 'centres', 'previous', 'moved', 'halfGap', 'parts', 'blockValue', 'grand', 'params',
+  'sums', 'counts', 'centres', 'centresPaired', 'scan', 'previous', 'moved', 'halfGap', 'parts', 'blockValue', 'grand', 'params',
 ] as const; // prettier-ignore
 const INT32_FIELDS = ['nearest', 'assignment'] as const;
 type Float64Field = (typeof FLOAT64_FIELDS)[number];
@@ -49,6 +50,7 @@ export interface KmeansMemory {
   readonly sweep?: PairsTotals;
   readonly take?: TakeKernel;
   readonly segmentSums?: SegmentSums;
+  readonly pairScan?: PairScan;
   readonly rows: Float64Array;
   /** k-means++: squared distance to the nearest chosen centre, its number, and a lower bound on the squared distance to the others. */
   readonly closest: Float64Array;
@@ -75,6 +77,10 @@ export interface KmeansMemory {
    * loops take centres four at a time with no remainder: a centre at infinity is never nearest.
    */
   readonly paddedCentres: Float64Array;
+  /** The padded centres interleaved in pairs, four to a group, for the WebAssembly scan. */
+  readonly centresPaired: Float64Array;
+  /** Per block: squared distances of two rows to every padded centre (scan[b × 2 × k4 …]). */
+  readonly scan: Float64Array;
   readonly previous: Float64Array;
   readonly moved: Float64Array;
   readonly halfGap: Float64Array;
@@ -110,7 +116,8 @@ export function kmeansLayout(n: number, d: number, k: number, { rowsInside = tru
     rows: rowsInside ? n * d : 0, closest: n, secondLower: lloyd ? n : 0, cumulative: lloyd ? n : 0, upper: lloyd ? n : 0,
     lower: lloyd ? n : 0, stored: lloyd ? n * padded : 0,
     candidates: padded * d, candidatesPaired: padded * d, totals: blocks * padded, sums: blocks * k * d, counts: blocks * k,
-    centres: 4 * Math.ceil(k / 4) * d, previous: k * d, moved: k, halfGap: k, parts: blocks * k, blockValue: blocks, grand: blocks * d, params: 4,
+    centres: 4 * Math.ceil(k / 4) * d, centresPaired: lloyd ? 4 * Math.ceil(k / 4) * d : 0, scan: lloyd ? blocks * 8 * Math.ceil(k / 4) : 0,
+    previous: k * d, moved: k, halfGap: k, parts: blocks * k, blockValue: blocks, grand: blocks * d, params: 4,
     nearest: lloyd ? n : 0, assignment: n,
   }; // prettier-ignore
   const at = {} as Record<Float64Field | Int32Field, number>;
@@ -124,6 +131,22 @@ export function kmeansLayout(n: number, d: number, k: number, { rowsInside = tru
     bytes = align16(bytes + lengths[f] * 4);
   }
   return { n, d, k, padded, blocks, starts, bytes, at, length: lengths };
+}
+
+/**
+ * Rows of d values, `count` of them (a multiple of four), interleaved in pairs for the WebAssembly
+ * kernels: in each group of four, rows 0 and 1 side by side column by column, then rows 2 and 3.
+ */
+export function interleaveInPairs(from: Float64Array, to: Float64Array, count: number, d: number): void {
+  for (let t0 = 0; t0 < count; t0 += 4) {
+    const base = t0 * d;
+    for (let j = 0; j < d; j++) {
+      to[base + 2 * j] = from[base + j];
+      to[base + 2 * j + 1] = from[base + d + j];
+      to[base + 2 * d + 2 * j] = from[base + 2 * d + j];
+      to[base + 2 * d + 2 * j + 1] = from[base + 3 * d + j];
+    }
+  }
 }
 
 /** The rows of block b: [start, end). */
@@ -142,18 +165,18 @@ export function blockOf(layout: KmeansLayout, i: number): number {
 export function memoryViews(
   layout: KmeansLayout,
   buffer: ArrayBufferLike,
-  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; take?: TakeKernel; segmentSums?: SegmentSums; rows?: Float64Array } = {},
+  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; take?: TakeKernel; segmentSums?: SegmentSums; pairScan?: PairScan; rows?: Float64Array } = {},
 ): KmeansMemory {
   const { at, length } = layout;
   const f64 = (f: Float64Field) => new Float64Array(buffer, at[f], length[f]);
   const i32 = (f: Int32Field) => new Int32Array(buffer, at[f], length[f]);
   return {
-    layout, wasm: extra.wasm, sweep: extra.sweep, take: extra.take, segmentSums: extra.segmentSums,
+    layout, wasm: extra.wasm, sweep: extra.sweep, take: extra.take, segmentSums: extra.segmentSums, pairScan: extra.pairScan,
     rows: extra.rows ?? f64('rows'), closest: f64('closest'), nearest: i32('nearest'), secondLower: f64('secondLower'),
     cumulative: f64('cumulative'), stored: f64('stored'), candidates: f64('candidates'),
     candidatesPaired: f64('candidatesPaired'), totals: f64('totals'), assignment: i32('assignment'),
     upper: f64('upper'), lower: f64('lower'), sums: f64('sums'), counts: f64('counts'),
-    centres: f64('centres').subarray(0, layout.k * layout.d), paddedCentres: f64('centres'), previous: f64('previous'), moved: f64('moved'), halfGap: f64('halfGap'),
+    centres: f64('centres').subarray(0, layout.k * layout.d), paddedCentres: f64('centres'), centresPaired: f64('centresPaired'), scan: f64('scan'), previous: f64('previous'), moved: f64('moved'), halfGap: f64('halfGap'),
     parts: f64('parts'), blockValue: f64('blockValue'), grand: f64('grand'), params: f64('params'),
   }; // prettier-ignore
 }
@@ -165,6 +188,7 @@ export function attachSharedMemory(layout: KmeansLayout, wasm: WebAssembly.Memor
     sweep: kernel<PairsTotals>(sharedTrialModule(), wasm, 'trialTotals'),
     take: kernel<TakeKernel>(takeModule(), wasm, 'take'),
     segmentSums: kernel<SegmentSums>(segmentSumsModule(), wasm, 'segmentSums'),
+    pairScan: kernel<PairScan>(pairScanModule(), wasm, 'pairScan'),
   });
 }
 
@@ -200,7 +224,7 @@ export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: nu
 }
 
 function sharedMemory(layout: KmeansLayout): KmeansMemory | undefined {
-  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule() || !takeModule() || !segmentSumsModule()) return undefined;
+  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule() || !takeModule() || !segmentSumsModule() || !pairScanModule()) return undefined;
   const pages = Math.ceil(layout.bytes / 65536);
   if (pages > 32768) return undefined; // over 2 GiB: plain arrays
   try {

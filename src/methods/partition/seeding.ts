@@ -2,7 +2,7 @@
 // The sweeps over the rows are phases of kmeans-blocks.ts; the draws and choices here are serial.
 import type { Random } from '../../random';
 import { Phase } from './kmeans-blocks';
-import { blockRange, PARAM_SEEDING_WASM, releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
+import { blockRange, interleaveInPairs, PARAM_SEEDING_WASM, releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
 import { localTeam, type KmeansTeam } from './kmeans-team';
 
 /** Greedy trials per new centre: 2 + floor(ln k) (common practice). */
@@ -41,15 +41,7 @@ export function seedPlusPlusOn(team: KmeansTeam, mem: KmeansMemory, random: Rand
     // Trial rows side by side, padded to a multiple of four with copies of the last one, and
     // interleaved in pairs (0 and 1, 2 and 3 of each four) for the WebAssembly sweep.
     for (let t = 0; t < padded; t++) copyRow(rows, picked[t < trials ? t : trials - 1], d, candidates, t * d);
-    for (let t0 = 0; t0 < padded; t0 += 4) {
-      const base = t0 * d;
-      for (let j = 0; j < d; j++) {
-        candidatesPaired[base + 2 * j] = candidates[base + j];
-        candidatesPaired[base + 2 * j + 1] = candidates[base + d + j];
-        candidatesPaired[base + 2 * d + 2 * j] = candidates[base + 2 * d + j];
-        candidatesPaired[base + 2 * d + 2 * j + 1] = candidates[base + 3 * d + j];
-      }
-    }
+    interleaveInPairs(candidates, candidatesPaired, padded, d);
     team.run(Phase.Trials, trials);
     for (let t = 0; t < trials; t++) {
       let total = totals[t];

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { kmeans } from '../../../src/methods/partition/kmeans';
 import { releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from '../../../src/methods/partition/kmeans-memory';
+import { runHamerly } from '../../../src/methods/partition/hamerly';
 import { Phase } from '../../../src/methods/partition/kmeans-blocks';
 import { localTeam } from '../../../src/methods/partition/kmeans-team';
 import { setKmeansThreads, setSeedingWasm } from '../../../src/methods/partition/restarts';
@@ -104,6 +105,32 @@ describe('segment sums as WebAssembly', () => {
       localTeam(plain).run(Phase.Sums);
       expect(sameBits(shared.sums, plain.sums)).toBe(true);
       expect(sameBits(shared.counts, plain.counts)).toBe(true);
+      releaseKmeansMemory(shared);
+    });
+  }
+});
+
+describe('Hamerly full scans as WebAssembly', () => {
+  // k = 13 pads to 16 centres (three at infinity); k = 4 has no padding; d odd and even.
+  const shapes: [number, number, number][] = [[40_001, 7, 13], [30_000, 10, 4]];
+  for (const [n, d, k] of shapes) {
+    it(`give bit for bit the iterations of the JavaScript scan (${n} × ${d}, k = ${k}, from given centres)`, () => {
+      const data = blobs(n, d, n + k);
+      const shared = takeKmeansMemory(data, n, d, k);
+      const plain = takeKmeansMemory(data, n, d, k, 'plain');
+      expect(shared.pairScan).toBeDefined();
+      expect(plain.pairScan).toBeUndefined();
+      for (const mem of [shared, plain]) {
+        for (let c = 0; c < k; c++) mem.centres.set(data.subarray((c * 3001) * d, (c * 3001 + 1) * d), c * d);
+      }
+      const runShared = runHamerly(localTeam(shared), shared, 40, 0, false, false);
+      const runPlain = runHamerly(localTeam(plain), plain, 40, 0, false, false);
+      expect(runShared).toEqual(runPlain);
+      expect(runShared.iterations).toBeGreaterThan(3);
+      expect(sameBits(shared.assignment, plain.assignment)).toBe(true);
+      expect(sameBits(shared.centres, plain.centres)).toBe(true);
+      expect(sameBits(shared.upper, plain.upper)).toBe(true);
+      expect(sameBits(shared.lower, plain.lower)).toBe(true);
       releaseKmeansMemory(shared);
     });
   }
