@@ -118,21 +118,25 @@ function twoByFour(rows: Float64Array, a0: number, a1: number, others: Float64Ar
   out[7] = s13;
 }
 
-/** Squared distances of the row at a0 to the four rows of `others` from b0 on, into out[0..3] (as twoByFour, for one row). */
-function oneByFour(rows: Float64Array, a0: number, others: Float64Array, b0: number, d: number, out: Float64Array): void {
-  const b1 = b0 + d;
-  const b2 = b1 + d;
-  const b3 = b2 + d;
+/**
+ * Four squared distances at once, between rows of `a` (from a0 … a3) and rows of `b` (from
+ * b0 … b3), into out[0..3]: four independent sums keep the adder busy where one would wait on
+ * it at every column, and each is still summed in column order (the same number as alone).
+ */
+function fourDistances(
+  a: Float64Array, a0: number, a1: number, a2: number, a3: number,
+  b: Float64Array, b0: number, b1: number, b2: number, b3: number,
+  d: number, out: Float64Array,
+): void { // prettier-ignore
   let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
   for (let j = 0; j < d; j++) {
-    const x = rows[a0 + j];
-    let e = x - others[b0 + j];
+    let e = a[a0 + j] - b[b0 + j];
     s0 += e * e;
-    e = x - others[b1 + j];
+    e = a[a1 + j] - b[b1 + j];
     s1 += e * e;
-    e = x - others[b2 + j];
+    e = a[a2 + j] - b[b2 + j];
     s2 += e * e;
-    e = x - others[b3 + j];
+    e = a[a3 + j] - b[b3 + j];
     s3 += e * e;
   }
   out[0] = s0;
@@ -155,33 +159,15 @@ function spreadAbout(mem: KmeansMemory, lo: number, hi: number): number {
 }
 
 /**
- * Squared distance of rows [lo, hi) to the one centre at `centres[at..at + d)`, into out[i].
- * Four rows at a time: one running sum per row would wait on the adder at every column, four
- * independent ones keep it busy (each still summed in column order: the same numbers).
+ * Squared distance of rows [lo, hi) to the one centre at `centres[at..at + d)`, into out[i],
+ * four rows at a time (fourDistances).
  */
 function distancesToCentre(rows: Float64Array, d: number, lo: number, hi: number, centres: Float64Array, at: number, out: Float64Array): void {
   let i = lo;
   for (; i + 3 < hi; i += 4) {
     const b0 = i * d;
-    const b1 = b0 + d;
-    const b2 = b1 + d;
-    const b3 = b2 + d;
-    let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
-    for (let j = 0; j < d; j++) {
-      const v = centres[at + j];
-      let e = rows[b0 + j] - v;
-      s0 += e * e;
-      e = rows[b1 + j] - v;
-      s1 += e * e;
-      e = rows[b2 + j] - v;
-      s2 += e * e;
-      e = rows[b3 + j] - v;
-      s3 += e * e;
-    }
-    out[i] = s0;
-    out[i + 1] = s1;
-    out[i + 2] = s2;
-    out[i + 3] = s3;
+    fourDistances(rows, b0, b0 + d, b0 + 2 * d, b0 + 3 * d, centres, at, at, at, at, d, quad);
+    for (let q = 0; q < 4; q++) out[i + q] = quad[q];
   }
   for (; i < hi; i++) out[i] = squaredDistance(rows, i * d, centres, at, d);
 }
@@ -214,32 +200,18 @@ export function segmentSums(rows: Float64Array, d: number, lo: number, hi: numbe
 export function withinParts(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, centres: Float64Array, parts: Float64Array): void {
   parts.fill(0);
   let i = lo;
-  // Four rows at a time, as in distancesToCentre; added to the parts in row order.
+  // Four rows at a time (fourDistances); added to the parts in row order.
   for (; i + 3 < hi; i += 4) {
+    const b0 = i * d;
     const a0 = assignment[i];
     const a1 = assignment[i + 1];
     const a2 = assignment[i + 2];
     const a3 = assignment[i + 3];
-    const b0 = i * d;
-    const c0 = a0 * d;
-    const c1 = a1 * d;
-    const c2 = a2 * d;
-    const c3 = a3 * d;
-    let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
-    for (let j = 0; j < d; j++) {
-      let e = rows[b0 + j] - centres[c0 + j];
-      s0 += e * e;
-      e = rows[b0 + d + j] - centres[c1 + j];
-      s1 += e * e;
-      e = rows[b0 + 2 * d + j] - centres[c2 + j];
-      s2 += e * e;
-      e = rows[b0 + 3 * d + j] - centres[c3 + j];
-      s3 += e * e;
-    }
-    parts[a0] += s0;
-    parts[a1] += s1;
-    parts[a2] += s2;
-    parts[a3] += s3;
+    fourDistances(rows, b0, b0 + d, b0 + 2 * d, b0 + 3 * d, centres, a0 * d, a1 * d, a2 * d, a3 * d, d, quad);
+    parts[a0] += quad[0];
+    parts[a1] += quad[1];
+    parts[a2] += quad[2];
+    parts[a3] += quad[3];
   }
   for (; i < hi; i++) {
     const a = assignment[i];
@@ -441,7 +413,7 @@ function startFromCentres(mem: KmeansMemory, lo: number, hi: number, sums: Float
     let bestD = Infinity;
     let secondD = Infinity;
     for (let c = 0; c < k; c += 4) {
-      oneByFour(rows, ib, paddedCentres, c * d, d, quad);
+      fourDistances(rows, ib, ib, ib, ib, paddedCentres, c * d, (c + 1) * d, (c + 2) * d, (c + 3) * d, d, quad);
       for (let q = 0; q < 4; q++) {
         const s = quad[q];
         if (s < bestD) {
