@@ -17,6 +17,7 @@ const hasDist = fs.existsSync(path.join(ROOT, 'dist', 'index.js'));
 const CASE_FUNCTIONS: Record<string, string> = {
   dissimilarity: 'dissimilarity',
   kmeans: 'kmeans',
+  'kmeans-overlap': 'kmeans',
   silhouette: 'silhouette',
   ward: 'agglomerate',
   average: 'agglomerate',
