@@ -4,7 +4,7 @@
 // to start (or never starts) the calling thread simply claims every chunk itself, so the result
 // never depends on the worker. The loop runs as WebAssembly (wasmPairs.ts) where available and
 // as plain JavaScript (euclideanKernel.ts) otherwise; both give the same numbers.
-import { workerPool } from '../core/worker-pool';
+import { releaseSharedSource, workerPool } from '../core/worker-pool';
 import { finish, pairSum, squaredDifferencesRows } from './euclideanKernel';
 import { fillPairsInputs, instantiatePairs, pairsLayout, pairsModule, pairsRowsWasm, type PairsFunction, type PairsLayout } from './wasmPairs';
 
@@ -194,6 +194,7 @@ const pool = workerPool(({ Worker }) => new Worker(WORKER_SOURCE, { eval: true }
 const WORKER_SOURCE = `
 'use strict';
 const { parentPort } = require('worker_threads');
+${releaseSharedSource}
 ${pairSum.toString()}
 ${finish.toString()}
 ${squaredDifferencesRows.toString()}
@@ -217,5 +218,6 @@ parentPort.on('message', (job) => {
     Atomics.add(control, 1, 1);
     Atomics.notify(control, 1);
   }
+  releaseShared();
 });
 `;

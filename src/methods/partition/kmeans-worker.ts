@@ -1,6 +1,7 @@
 // Worker thread for k-means (see kmeans-team.ts). It stays alive between calls; for each call it
 // attaches to the shared memory and runs the blocks it can claim of every phase until told to stop.
 import { parentPort } from 'node:worker_threads';
+import { sharedMemoryReleaser } from '../../core/worker-pool';
 import { runBlock } from './kmeans-blocks';
 import { attachSharedMemory } from './kmeans-memory';
 import { ARG0, ARG1, awaitGeneration, claimBlock, DONE, PHASE, STOP, WORKER_BLOCKS, WORKER_FAILED, type TeamJob } from './kmeans-team';
@@ -33,4 +34,9 @@ function serve(job: TeamJob): void {
   }
 }
 
-parentPort?.on('message', serve);
+// Each call's memory is dropped here after the call (a new size brings a new memory).
+const releaseShared = sharedMemoryReleaser();
+parentPort?.on('message', (job: TeamJob) => {
+  serve(job);
+  releaseShared();
+});
