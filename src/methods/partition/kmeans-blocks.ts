@@ -53,13 +53,13 @@ export function runBlock(mem: KmeansMemory, phase: Phase, b: number, arg0: numbe
       return;
     case Phase.StartSeeded:
       startSeeded(mem, lo, hi);
-      return blockSums(mem, lo, hi, b);
+      return blockSums(mem, lo, hi, b, sums, counts);
     case Phase.StartFromCentres:
       return startFromCentres(mem, lo, hi, sums, counts);
     case Phase.Sweep:
       return sweep(mem, lo, hi, b, sums, counts);
     case Phase.Sums:
-      return blockSums(mem, lo, hi, b);
+      return blockSums(mem, lo, hi, b, sums, counts);
     case Phase.Within:
       return withinParts(mem.rows, d, lo, hi, mem.assignment, mem.centres, mem.parts.subarray(b * k, (b + 1) * k));
     case Phase.Nearest:
@@ -68,7 +68,7 @@ export function runBlock(mem: KmeansMemory, phase: Phase, b: number, arg0: numbe
   }
 }
 
-// ---- kernels on plain arrays and row ranges (also used by mini-batch k-means) ----
+// ---- kernels on plain arrays and row ranges ----
 
 const quad = new Float64Array(8);
 
@@ -173,10 +173,8 @@ function distancesToCentre(rows: Float64Array, d: number, lo: number, hi: number
 }
 
 /** Segment sums and counts of block b from scratch: as WebAssembly where the memory has it. */
-function blockSums(mem: KmeansMemory, lo: number, hi: number, b: number): void {
+function blockSums(mem: KmeansMemory, lo: number, hi: number, b: number, sums: Float64Array, counts: Float64Array): void {
   const { d, k, at } = mem.layout;
-  const sums = mem.sums.subarray(b * k * d, (b + 1) * k * d);
-  const counts = mem.counts.subarray(b * k, (b + 1) * k);
   if (!mem.segmentSums) return segmentSums(mem.rows, d, lo, hi, mem.assignment, sums, counts);
   sums.fill(0);
   counts.fill(0);
@@ -184,7 +182,7 @@ function blockSums(mem: KmeansMemory, lo: number, hi: number, b: number): void {
 }
 
 /** Segment sums and counts of rows [lo, hi) from scratch. */
-export function segmentSums(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, sums: Float64Array, counts: Float64Array): void {
+function segmentSums(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, sums: Float64Array, counts: Float64Array): void {
   sums.fill(0);
   counts.fill(0);
   for (let i = lo; i < hi; i++) {
@@ -197,7 +195,7 @@ export function segmentSums(rows: Float64Array, d: number, lo: number, hi: numbe
 }
 
 /** Within-SS of rows [lo, hi) per segment, into `parts` (cleared first). */
-export function withinParts(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, centres: Float64Array, parts: Float64Array): void {
+function withinParts(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, centres: Float64Array, parts: Float64Array): void {
   parts.fill(0);
   let i = lo;
   // Four rows at a time (fourDistances); added to the parts in row order.
@@ -225,7 +223,7 @@ export function withinParts(rows: Float64Array, d: number, lo: number, hi: numbe
  * multiple of four with centres at infinity), then compared in centre order, so ties go to the
  * lower segment number exactly as one centre at a time would.
  */
-export function nearestRows(
+function nearestRows(
   rows: Float64Array,
   d: number,
   k: number,
