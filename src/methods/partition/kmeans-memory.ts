@@ -1,7 +1,7 @@
 // All state of one k-means call in one block of memory: the rows, what k-means++ learns about
-// them, the Lloyd bounds and assignment, and small per-block totals. For large inputs it is a
-// shared WebAssembly memory, so the trial sweep runs as WebAssembly on it and a worker thread
-// works on the same arrays; otherwise plain arrays over the caller's own rows (no copy).
+// them, the Lloyd bounds and assignment, and small per-block totals. Where the platform has them
+// it is a shared WebAssembly memory, so the kernels run as WebAssembly on it and a worker thread
+// can work on the same arrays; otherwise plain arrays over the caller's own rows (no copy).
 //
 // The rows are cut into `blocks` fixed ranges (several for large inputs, chosen from the shape
 // alone: small enough that a thread that falls behind holds the other up only briefly). Every sum over rows is summed block by block and the block totals then added in block
@@ -93,9 +93,9 @@ export interface KmeansMemory {
   readonly params: Float64Array;
 }
 
-/** Inputs at least this large (rows × columns) use shared WebAssembly memory. */
-const MIN_WORK_FOR_SHARED = 200_000;
-/** ... and at least this much work per restart (rows × columns × k) cuts the rows in blocks. */
+/** Inputs at least this large (rows × columns) … */
+const MIN_VALUES_FOR_BLOCKS = 200_000;
+/** … with at least this much work per restart (rows × columns × k) are cut in blocks of rows. */
 const MIN_WORK_FOR_BLOCKS = 2_000_000;
 const BLOCKS = 8;
 
@@ -110,7 +110,7 @@ function align16(bytes: number): number {
  */
 export function kmeansLayout(n: number, d: number, k: number, { rowsInside = true, lloyd = true } = {}): KmeansLayout {
   const padded = 4 * Math.ceil(defaultTrials(k) / 4);
-  const blocks = n * d >= MIN_WORK_FOR_SHARED && n * d * k >= MIN_WORK_FOR_BLOCKS ? BLOCKS : 1;
+  const blocks = n * d >= MIN_VALUES_FOR_BLOCKS && n * d * k >= MIN_WORK_FOR_BLOCKS ? BLOCKS : 1;
   const starts = Array.from({ length: blocks + 1 }, (_, b) => (b === blocks ? n : 2 * Math.floor((b * n) / (2 * blocks))));
   const lengths: Record<Float64Field | Int32Field, number> = {
     rows: rowsInside ? n * d : 0, closest: n, secondLower: lloyd ? n : 0, cumulative: lloyd ? n : 0, upper: lloyd ? n : 0,
@@ -204,12 +204,13 @@ let spare: WebAssembly.Memory | undefined;
 
 /**
  * Memory for k-means on `data` (n × d, k segments). 'shared' asks for shared WebAssembly memory
- * when the input is large enough and the platform has it (the rows are then copied in);
- * otherwise, and for 'plain', the arrays are plain and `rows` is `data` itself. 'finish' is plain
- * with only what the exact finish of a run needs (assignment, centres, per-segment totals).
+ * where the platform has it (the rows are then copied in; even for small inputs the kernels
+ * more than pay for the copy, and a memory of the same size is reused); otherwise, and for
+ * 'plain', the arrays are plain and `rows` is `data` itself. 'finish' is plain with only what the
+ * exact finish of a run needs (assignment, centres, per-segment totals).
  */
 export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: number, kind: 'shared' | 'plain' | 'finish' = 'shared'): KmeansMemory {
-  if (kind === 'shared' && n * d >= MIN_WORK_FOR_SHARED) {
+  if (kind === 'shared') {
     const shared = sharedMemory(kmeansLayout(n, d, k));
     if (shared) {
       shared.rows.set(data.subarray(0, n * d));

@@ -42,8 +42,8 @@ function seedOnce(data: Float64Array, n: number, d: number, k: number, seed: num
 
 describe('k-means++ trial sweep and take step as WebAssembly', () => {
   // k = 8: one group of four trials; k = 30: five trials, so a second, padded group; d = 1 and
-  // odd n; 50,001 × 5 with k = 10 cuts the rows in blocks, the last of odd length.
-  const shapes: [number, number, number][] = [[40_001, 6, 8], [25_000, 9, 30], [200_003, 1, 3], [50_001, 5, 10]];
+  // odd n; 50,001 × 5 with k = 10 cuts the rows in blocks, the last of odd length; 1,001 × 3 is small.
+  const shapes: [number, number, number][] = [[40_001, 6, 8], [25_000, 9, 30], [200_003, 1, 3], [50_001, 5, 10], [1_001, 3, 5]];
   for (const [n, d, k] of shapes) {
     it(`leaves the seeding state bit for bit as the JavaScript sweep does (${n} × ${d}, k = ${k})`, () => {
       const data = blobs(n, d, n + d + k);
@@ -81,11 +81,16 @@ describe('k-means++ trial sweep and take step as WebAssembly', () => {
     }
   });
 
-  it('is not used for small inputs (plain arrays over the rows themselves, no copy)', () => {
+  it('runs on shared memory for small inputs too, while plain memory works on the rows themselves (no copy)', () => {
     const data = new Float64Array(1000 * 5);
-    const mem = takeKmeansMemory(data, 1000, 5, 4);
-    expect(mem.wasm).toBeUndefined();
-    expect(mem.rows).toBe(data);
+    const shared = takeKmeansMemory(data, 1000, 5, 4);
+    expect(shared.wasm).toBeDefined();
+    expect(shared.sweep).toBeDefined();
+    expect(shared.layout.blocks).toBe(1);
+    releaseKmeansMemory(shared);
+    const plain = takeKmeansMemory(data, 1000, 5, 4, 'plain');
+    expect(plain.wasm).toBeUndefined();
+    expect(plain.rows).toBe(data);
   });
 });
 
@@ -112,7 +117,7 @@ describe('segment sums as WebAssembly', () => {
 
 describe('Hamerly full scans as WebAssembly', () => {
   // k = 13 pads to 16 centres (three at infinity); k = 4 has no padding; d odd and even.
-  const shapes: [number, number, number][] = [[40_001, 7, 13], [30_000, 10, 4]];
+  const shapes: [number, number, number][] = [[40_001, 7, 13], [30_000, 10, 4], [999, 2, 6]];
   for (const [n, d, k] of shapes) {
     it(`give bit for bit the iterations of the JavaScript scan (${n} × ${d}, k = ${k}, from given centres)`, () => {
       const data = blobs(n, d, n + k);
@@ -121,7 +126,7 @@ describe('Hamerly full scans as WebAssembly', () => {
       expect(shared.pairScan).toBeDefined();
       expect(plain.pairScan).toBeUndefined();
       for (const mem of [shared, plain]) {
-        for (let c = 0; c < k; c++) mem.centres.set(data.subarray((c * 3001) * d, (c * 3001 + 1) * d), c * d);
+        for (let c = 0; c < k; c++) mem.centres.set(data.subarray(((c * 3001) % n) * d, ((c * 3001) % n + 1) * d), c * d);
       }
       const runShared = runHamerly(localTeam(shared), shared, 40, 0, false, false);
       const runPlain = runHamerly(localTeam(plain), plain, 40, 0, false, false);
