@@ -98,11 +98,12 @@ export const V128 = 0x7b;
 
 /**
  * A module of one exported function over an imported memory (`env.memory`, shared or private,
- * up to 4 GiB): `params` i32 parameters, an optional result type, locals as [count, type] runs.
+ * up to 4 GiB): `params` i32 parameters (or their types, in order), an optional result type,
+ * locals as [count, type] runs.
  */
 export function oneFunctionModule(spec: {
   name: string;
-  params: number;
+  params: number | number[];
   result?: number;
   locals: [number, number][];
   body: number[];
@@ -110,9 +111,10 @@ export function oneFunctionModule(spec: {
 }): Uint8Array {
   const code = [...vector(spec.locals.map(([count, type]) => [...uleb(count), type])), ...spec.body];
   const results = spec.result === undefined ? [0] : vector([[spec.result]]);
+  const paramTypes = typeof spec.params === 'number' ? new Array<number>(spec.params).fill(I32) : spec.params;
   return new Uint8Array([
     0x00, 0x61, 0x73, 0x6d, 1, 0, 0, 0, // magic, version 1
-    ...section(1, vector([[0x60, ...vector(new Array<number[]>(spec.params).fill([I32])), ...results]])),
+    ...section(1, vector([[0x60, ...vector(paramTypes.map((t) => [t])), ...results]])),
     // Imported memory: limits flag 3 = shared with a maximum, 1 = private with a maximum.
     ...section(2, vector([[...text('env'), ...text('memory'), 0x02, spec.sharedMemory ? 0x03 : 0x01, ...uleb(0), ...uleb(65536)]])),
     ...section(3, vector([[0]])),
@@ -120,3 +122,14 @@ export function oneFunctionModule(spec: {
     ...section(10, vector([[...uleb(code.length), ...code]])),
   ]); // prettier-ignore
 }
+
+export const ELSE = [0x05];
+export const SELECT = [0x1b];
+export const I32_EQ = [0x46];
+/** i32.store, align 2^2, offset 0. */
+export const I32_STORE = [0x36, 2, 0];
+export const F64_LT = [0x63];
+export const F64_GT = [0x64];
+export const F64_SUB = [0xa1];
+export const F64_MUL = [0xa2];
+export const F64_SQRT = [0x9f];

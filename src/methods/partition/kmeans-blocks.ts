@@ -452,6 +452,23 @@ function sweep(mem: KmeansMemory, lo: number, hi: number, b: number, sums: Float
   // for a partner. Rows in between only touch their own bounds, so the segment sums still change
   // in row order.
   const distances = mem.pairScan ? mem.scan.subarray(b * 2 * k4, (b + 1) * 2 * k4) : new Float64Array(2 * k4);
+  if (mem.boundPass) {
+    // The bound pass as WebAssembly lists the rows to scan, in row order; they pair up the same way.
+    const { at } = mem.layout;
+    const listed = mem.boundPass(
+      at.assignment + lo * 4, at.upper + lo * 8, at.lower + lo * 8, at.rows + lo * d * 8, at.centres, at.moved, at.halfGap,
+      hi - lo, d * 8, mostAt, lo, at.listed + lo * 4, most, secondMost,
+    ); // prettier-ignore
+    const list = mem.listed;
+    for (let p = lo; p < lo + listed; p += 2) {
+      const i0 = list[p];
+      const i1 = p + 1 < lo + listed ? list[p + 1] : i0;
+      scanPair(mem, i0, i1, b, distances);
+      moveToNearest(mem, i0, distances, 0, sums, counts);
+      if (i1 !== i0) moveToNearest(mem, i1, distances, k4, sums, counts);
+    }
+    return;
+  }
   let waiting = -1;
   for (let i = lo; i < hi; i++) {
     const a = assignment[i];

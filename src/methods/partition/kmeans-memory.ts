@@ -11,6 +11,7 @@ import { sharedTrialModule, type PairsTotals } from './seedingWasm';
 import { segmentSumsModule, type SegmentSums } from './sums-wasm';
 import { takeModule, type TakeKernel } from './take-wasm';
 import { pairScanModule, type PairScan } from './scan-wasm';
+import { boundPassModule, type BoundPass } from './bounds-wasm';
 
 export interface KmeansLayout {
   readonly n: number;
@@ -31,7 +32,7 @@ const FLOAT64_FIELDS = [
   'rows', 'closest', 'secondLower', 'cumulative', 'upper', 'lower', 'stored', 'candidates', 'candidatesPaired', 'totals',
   'sums', 'counts', 'centres', 'centresPaired', 'scan', 'previous', 'moved', 'halfGap', 'parts', 'blockValue', 'grand', 'params',
 ] as const; // prettier-ignore
-const INT32_FIELDS = ['nearest', 'assignment'] as const;
+const INT32_FIELDS = ['nearest', 'assignment', 'listed'] as const;
 type Float64Field = (typeof FLOAT64_FIELDS)[number];
 type Int32Field = (typeof INT32_FIELDS)[number];
 
@@ -51,6 +52,7 @@ export interface KmeansMemory {
   readonly take?: TakeKernel;
   readonly segmentSums?: SegmentSums;
   readonly pairScan?: PairScan;
+  readonly boundPass?: BoundPass;
   readonly rows: Float64Array;
   /** k-means++: squared distance to the nearest chosen centre, its number, and a lower bound on the squared distance to the others. */
   readonly closest: Float64Array;
@@ -66,6 +68,8 @@ export interface KmeansMemory {
   /** Trial totals by block: totals[b × padded + t]. */
   readonly totals: Float64Array;
   readonly assignment: Int32Array;
+  /** Per block, from the block's first row on: rows a Hamerly sweep must scan in full. */
+  readonly listed: Int32Array;
   readonly upper: Float64Array;
   readonly lower: Float64Array;
   /** Segment sums and counts by block: sums[(b × k + c) × d + j], counts[b × k + c]. */
@@ -118,7 +122,7 @@ export function kmeansLayout(n: number, d: number, k: number, { rowsInside = tru
     candidates: padded * d, candidatesPaired: padded * d, totals: blocks * padded, sums: blocks * k * d, counts: blocks * k,
     centres: 4 * Math.ceil(k / 4) * d, centresPaired: lloyd ? 4 * Math.ceil(k / 4) * d : 0, scan: lloyd ? blocks * 8 * Math.ceil(k / 4) : 0,
     previous: k * d, moved: k, halfGap: k, parts: blocks * k, blockValue: blocks, grand: blocks * d, params: 4,
-    nearest: lloyd ? n : 0, assignment: n,
+    nearest: lloyd ? n : 0, assignment: n, listed: lloyd ? n : 0,
   }; // prettier-ignore
   const at = {} as Record<Float64Field | Int32Field, number>;
   let bytes = 0;
@@ -165,15 +169,15 @@ export function blockOf(layout: KmeansLayout, i: number): number {
 export function memoryViews(
   layout: KmeansLayout,
   buffer: ArrayBufferLike,
-  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; take?: TakeKernel; segmentSums?: SegmentSums; pairScan?: PairScan; rows?: Float64Array } = {},
+  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; take?: TakeKernel; segmentSums?: SegmentSums; pairScan?: PairScan; boundPass?: BoundPass; rows?: Float64Array } = {},
 ): KmeansMemory {
   const { at, length } = layout;
   const f64 = (f: Float64Field) => new Float64Array(buffer, at[f], length[f]);
   const i32 = (f: Int32Field) => new Int32Array(buffer, at[f], length[f]);
   return {
-    layout, wasm: extra.wasm, sweep: extra.sweep, take: extra.take, segmentSums: extra.segmentSums, pairScan: extra.pairScan,
+    layout, wasm: extra.wasm, sweep: extra.sweep, take: extra.take, segmentSums: extra.segmentSums, pairScan: extra.pairScan, boundPass: extra.boundPass,
     rows: extra.rows ?? f64('rows'), closest: f64('closest'), nearest: i32('nearest'), secondLower: f64('secondLower'),
-    cumulative: f64('cumulative'), stored: f64('stored'), candidates: f64('candidates'),
+    cumulative: f64('cumulative'), listed: i32('listed'), stored: f64('stored'), candidates: f64('candidates'),
     candidatesPaired: f64('candidatesPaired'), totals: f64('totals'), assignment: i32('assignment'),
     upper: f64('upper'), lower: f64('lower'), sums: f64('sums'), counts: f64('counts'),
     centres: f64('centres').subarray(0, layout.k * layout.d), paddedCentres: f64('centres'), centresPaired: f64('centresPaired'), scan: f64('scan'), previous: f64('previous'), moved: f64('moved'), halfGap: f64('halfGap'),
@@ -189,6 +193,7 @@ export function attachSharedMemory(layout: KmeansLayout, wasm: WebAssembly.Memor
     take: kernel<TakeKernel>(takeModule(), wasm, 'take'),
     segmentSums: kernel<SegmentSums>(segmentSumsModule(), wasm, 'segmentSums'),
     pairScan: kernel<PairScan>(pairScanModule(), wasm, 'pairScan'),
+    boundPass: kernel<BoundPass>(boundPassModule(), wasm, 'boundPass'),
   });
 }
 
@@ -225,7 +230,7 @@ export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: nu
 }
 
 function sharedMemory(layout: KmeansLayout): KmeansMemory | undefined {
-  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule() || !takeModule() || !segmentSumsModule() || !pairScanModule()) return undefined;
+  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule() || !takeModule() || !segmentSumsModule() || !pairScanModule() || !boundPassModule()) return undefined;
   const pages = Math.ceil(layout.bytes / 65536);
   if (pages > 32768) return undefined; // over 2 GiB: plain arrays
   try {

@@ -8,16 +8,12 @@
 //   take(closest, nearest, secondLower, cumulative, stored, count, storedStride, centre) → total
 //     (byte offsets of the block's first row; `stored` already points at the chosen trial)
 import {
-  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_EQZ, I32_LOAD, F64_LOAD, F64_STORE, F64_ADD, f64Const, BLOCK, LOOP, END, brIf, compiledOnce, oneFunctionModule, I32, F64,
+  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_EQZ, I32_LOAD, F64_LOAD, F64_STORE, F64_ADD, f64Const, BLOCK, LOOP, END, brIf, compiledOnce, F64_LT, SELECT, I32_STORE, oneFunctionModule, I32, F64,
 } from '../../core/wasm-encoding';
 
 export type TakeKernel = (
   closest: number, nearest: number, secondLower: number, cumulative: number, stored: number, count: number, storedStride: number, centre: number,
 ) => number; // prettier-ignore
-
-const F64_LT = [0x63];
-const SELECT = [0x1b];
-const I32_STORE = [0x36, 2, 0];
 
 export function takeModuleBytes(): Uint8Array {
   const [CLOSEST, NEAREST, SECOND, CUMULATIVE, STORED, COUNT, STRIDE, CENTRE, WIN] = Array.from({ length: 9 }, (_, i) => i);

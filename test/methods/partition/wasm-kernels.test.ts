@@ -115,7 +115,7 @@ describe('segment sums as WebAssembly', () => {
   }
 });
 
-describe('Hamerly full scans as WebAssembly', () => {
+describe('Hamerly sweeps (bound pass and full scans) as WebAssembly', () => {
   // k = 13 pads to 16 centres (three at infinity); k = 4 has no padding; d odd and even.
   const shapes: [number, number, number][] = [[40_001, 7, 13], [30_000, 10, 4], [999, 2, 6]];
   for (const [n, d, k] of shapes) {
