@@ -48,10 +48,23 @@ export function project(rows: RowsInput, options?: ProjectOptions): Projection {
     for (let i = 0; i < n; i++) for (let t = 0; t < d; t++) mean[t] += data[i * d + t];
     for (let t = 0; t < d; t++) mean[t] /= n;
   }
-  // Upper triangle of the covariance, one pass over the centred rows.
+  // Upper triangle of the covariance, one pass over the centred rows, four rows at a time: each
+  // entry takes the four rows' products at once, a quarter of the updates of one row at a time.
   const cov = new Float64Array(d * d);
-  const centred = new Float64Array(d);
-  for (let i = 0; i < n; i++) {
+  const centred = new Float64Array(4 * d);
+  let i = 0;
+  for (; i + 3 < n; i += 4) {
+    for (let t = 0; t < 4 * d; t++) centred[t] = data[i * d + t] - mean[t % d];
+    for (let a = 0; a < d; a++) {
+      const x0 = centred[a];
+      const x1 = centred[d + a];
+      const x2 = centred[2 * d + a];
+      const x3 = centred[3 * d + a];
+      const row = a * d;
+      for (let b = a; b < d; b++) cov[row + b] += x0 * centred[b] + x1 * centred[d + b] + x2 * centred[2 * d + b] + x3 * centred[3 * d + b];
+    }
+  }
+  for (; i < n; i++) {
     for (let t = 0; t < d; t++) centred[t] = data[i * d + t] - mean[t];
     for (let a = 0; a < d; a++) {
       const ca = centred[a];
@@ -111,11 +124,30 @@ function scoresOf(projection: Projection, m: Matrix): Matrix {
   const w = projection.loadings.data;
   const mean = projection.mean;
   const out = new Float64Array(n * c);
+  const centred = new Float64Array(d);
   for (let i = 0; i < n; i++) {
-    for (let t = 0; t < d; t++) {
-      const x = data[i * d + t] - mean[t];
-      if (x === 0) continue;
-      for (let k = 0; k < c; k++) out[i * c + k] += x * w[t * c + k];
+    for (let t = 0; t < d; t++) centred[t] = data[i * d + t] - mean[t];
+    // Components four at a time: independent sums, each over the columns in order.
+    let k = 0;
+    for (; k + 3 < c; k += 4) {
+      let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
+      for (let t = 0; t < d; t++) {
+        const x = centred[t];
+        const wt = t * c + k;
+        s0 += x * w[wt];
+        s1 += x * w[wt + 1];
+        s2 += x * w[wt + 2];
+        s3 += x * w[wt + 3];
+      }
+      out[i * c + k] = s0;
+      out[i * c + k + 1] = s1;
+      out[i * c + k + 2] = s2;
+      out[i * c + k + 3] = s3;
+    }
+    for (; k < c; k++) {
+      let s = 0;
+      for (let t = 0; t < d; t++) s += centred[t] * w[t * c + k];
+      out[i * c + k] = s;
     }
   }
   return createMatrix(n, c, out, { rowLabels: m.rowLabels });
