@@ -13,8 +13,9 @@
 //       tot += acc < own ? acc : own
 //     totals[0..3] = tot
 import {
-  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, f64LoadAt, v128Load, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_LT, V128_BITSELECT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, END, brIf, compiledOnce, oneFunctionModule, I32, V128,
+  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_EQZ, F64_LOAD, f64LoadAt, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_LT, V128_BITSELECT, F64X2_ADD, BLOCK, LOOP, END, brIf, compiledOnce, oneFunctionModule, I32, V128,
 } from '../../core/wasm-encoding';
+import { twoRowsByFour } from './scan-wasm';
 export type PairsTotals = (
   rows: number, cand: number, closest: number, count: number, rowBytes: number, stored: number, storedStride: number, totals: number,
 ) => void; // prettier-ignore
@@ -27,10 +28,6 @@ export const sharedTrialModule = compiledOnce(trialModuleBytes);
 export function trialModuleBytes(): Uint8Array {
   const [ROWS, CAND, CLOSEST, COUNT, ROW_BYTES, STORED, STORED_STRIDE, TOTALS, U, NEXT_ROW] = Array.from({ length: 10 }, (_, i) => i);
   const [OWN0, OWN1, X, A0, B0, A1, B1, E, TOT01, TOT23, C01, C23] = Array.from({ length: 12 }, (_, i) => 10 + i);
-  // acc += (x − candidates)²
-  const accumulate = (acc: number, candidates: number) => [
-    ...localGet(acc), ...localGet(X), ...localGet(candidates), ...F64X2_SUB, ...localTee(E), ...localGet(E), ...F64X2_MUL, ...F64X2_ADD, ...localSet(acc),
-  ]; // prettier-ignore
   // tot += acc < own ? acc : own
   const contribute = (tot: number, acc: number, own: number) => [
     ...localGet(tot), ...localGet(acc), ...localGet(own), ...localGet(acc), ...localGet(own), ...F64X2_LT, ...V128_BITSELECT,
@@ -45,17 +42,7 @@ export function trialModuleBytes(): Uint8Array {
     ...localGet(CLOSEST), ...F64_LOAD, ...F64X2_SPLAT, ...localSet(OWN0),
     ...localGet(CLOSEST), ...f64LoadAt(8), ...F64X2_SPLAT, ...localSet(OWN1),
     ...localGet(ROWS), ...localGet(ROW_BYTES), ...I32_ADD, ...localSet(NEXT_ROW),
-    ...V128_ZERO, ...localSet(A0), ...V128_ZERO, ...localSet(B0), ...V128_ZERO, ...localSet(A1), ...V128_ZERO, ...localSet(B1),
-    ...i32Const(0), ...localSet(U),
-    ...LOOP,
-    ...localGet(CAND), ...localGet(U), ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0), ...localSet(C01),
-    ...localGet(CAND), ...localGet(ROW_BYTES), ...localGet(U), ...I32_ADD, ...i32Const(1), ...I32_SHL, ...I32_ADD, ...v128Load(0), ...localSet(C23),
-    ...localGet(ROWS), ...localGet(U), ...I32_ADD, ...F64_LOAD, ...F64X2_SPLAT, ...localSet(X),
-    ...accumulate(A0, C01), ...accumulate(B0, C23),
-    ...localGet(NEXT_ROW), ...localGet(U), ...I32_ADD, ...F64_LOAD, ...F64X2_SPLAT, ...localSet(X),
-    ...accumulate(A1, C01), ...accumulate(B1, C23),
-    ...localGet(U), ...i32Const(8), ...I32_ADD, ...localTee(U), ...localGet(ROW_BYTES), ...I32_LT_U, ...brIf(0),
-    ...END,
+    ...twoRowsByFour({ rowA: ROWS, rowB: NEXT_ROW, candidates: CAND, rowBytes: ROW_BYTES, u: U, x: X, e: E, c01: C01, c23: C23, a01: A0, a23: B0, b01: A1, b23: B1 }),
     ...localGet(STORED), ...localGet(A0), ...v128Store(0), ...localGet(STORED), ...localGet(B0), ...v128Store(16),
     ...localGet(STORED), ...localGet(STORED_STRIDE), ...I32_ADD, ...localSet(U),
     ...localGet(U), ...localGet(A1), ...v128Store(0), ...localGet(U), ...localGet(B1), ...v128Store(16),
