@@ -7,7 +7,6 @@ import { SCALE_METHODS, MISSING_POLICIES } from '../prepare';
 import { LINKAGE_METHODS } from '../methods/hierarchy';
 import { study } from '../study/study';
 import { loadDefinition } from '../segments/definition-handle';
-import { writeDefinitionJson } from '../segments/definition-json';
 import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
 import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';
 import { scoredCsv } from './csv-out';

@@ -88,7 +88,6 @@ function progressFor(given: ProgressCallback | undefined, title: string): Progre
 
 export class PreparedStudy {
   private readonly dissimilarities = new Map<string, Dissimilarity>();
-  private projection?: Projection;
 
   constructor(readonly data: PreparedData) {}
 
@@ -181,7 +180,6 @@ export class PreparedStudy {
     const opts = checkOptions(options, ['components'], 'project');
     const components = opts.components ?? Math.min(this.data.matrix.cols, 10);
     const p = project(this.data.matrix, { components });
-    if (components === 2) this.projection = p;
     return showable(p, () => screeView(p));
   }
 }
