@@ -4,8 +4,9 @@
 // nearest other centre) cannot change segment, so its distances are not computed at all.
 // The sweeps over the rows are phases (kmeans-blocks.ts); the centre updates here are serial and
 // add the blocks' segment sums in block order.
+import { sqeuclideanPair as squaredDistance } from '../../measure/metrics';
 import { Phase } from './kmeans-blocks';
-import { blockOf, interleaveInPairs, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type KmeansMemory } from './kmeans-memory';
+import { acrossBlocks, blockOf, interleaveInPairs, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type KmeansMemory } from './kmeans-memory';
 import type { KmeansTeam } from './kmeans-team';
 import { withinOn } from './partition-summary';
 
@@ -98,15 +99,11 @@ export function centresFromSums(mem: KmeansMemory, moved?: Float64Array): number
   const { sums, counts, centres, previous } = mem;
   let shift = 0;
   for (let c = 0; c < k; c++) {
-    let count = counts[c];
-    for (let b = 1; b < blocks; b++) count += counts[b * k + c];
-    const inv = 1 / count;
+    const inv = 1 / acrossBlocks(counts, blocks, k, c);
     const cb = c * d;
     let s = 0;
     for (let j = 0; j < d; j++) {
-      let sum = sums[cb + j];
-      for (let b = 1; b < blocks; b++) sum += sums[b * k * d + cb + j];
-      const v = sum * inv;
+      const v = acrossBlocks(sums, blocks, k * d, cb + j) * inv;
       const diff = v - previous[cb + j];
       s += diff * diff;
       centres[cb + j] = v;
@@ -120,9 +117,7 @@ export function centresFromSums(mem: KmeansMemory, moved?: Float64Array): number
 /** Rows per segment over all blocks. */
 export function segmentSizes(mem: KmeansMemory): number[] {
   const { k, blocks } = mem.layout;
-  const sizes = new Array<number>(k).fill(0);
-  for (let b = 0; b < blocks; b++) for (let c = 0; c < k; c++) sizes[c] += mem.counts[b * k + c];
-  return sizes;
+  return Array.from({ length: k }, (_, c) => acrossBlocks(mem.counts, blocks, k, c));
 }
 
 /**
@@ -139,15 +134,7 @@ export function repairEmpty(mem: KmeansMemory): number {
   if (empty === 0) return 0;
   const { rows, centres, assignment, sums, counts, upper, lower } = mem;
   const rowDistance = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const a = assignment[i];
-    let s = 0;
-    for (let j = 0; j < d; j++) {
-      const diff = rows[i * d + j] - centres[a * d + j];
-      s += diff * diff;
-    }
-    rowDistance[i] = s;
-  }
+  for (let i = 0; i < n; i++) rowDistance[i] = squaredDistance(rows, i * d, centres, assignment[i] * d, d);
   const sorted = Array.from({ length: n }, (_, i) => i).sort((a, b) => rowDistance[b] - rowDistance[a] || a - b);
   let next = 0;
   for (let c = 0; c < k; c++) {

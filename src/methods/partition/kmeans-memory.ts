@@ -153,6 +153,17 @@ export function interleaveInPairs(from: Float64Array, to: Float64Array, count: n
   }
 }
 
+/**
+ * One figure summed across the blocks in block order: values[at], then values[stride + at], …
+ * (each block holds its own copy of the figure, `stride` apart). Every total over rows is made
+ * this way, so it does not depend on which thread did which block.
+ */
+export function acrossBlocks(values: Float64Array, blocks: number, stride: number, at: number): number {
+  let total = values[at];
+  for (let b = 1; b < blocks; b++) total += values[b * stride + at];
+  return total;
+}
+
 /** The rows of block b: [start, end). */
 export function blockRange(layout: KmeansLayout, b: number): [number, number] {
   return [layout.starts[b], layout.starts[b + 1]];

@@ -4,9 +4,8 @@
 // Sums over rows are taken block by block and added in block order (kmeans-memory.ts).
 import { centresFromSums, repairEmpty, runHamerly, segmentSizes } from './hamerly';
 import { Phase } from './kmeans-blocks';
-import type { KmeansMemory } from './kmeans-memory';
+import { acrossBlocks, type KmeansMemory } from './kmeans-memory';
 import type { KmeansTeam } from './kmeans-team';
-import { sumOfBlocks } from './seeding';
 
 /** Centres to the means of their rows, sums from scratch (an empty segment is repaired first). */
 export function centresToMeans(team: KmeansTeam, mem: KmeansMemory): void {
@@ -21,8 +20,7 @@ export function withinOn(team: KmeansTeam, mem: KmeansMemory, bySegment?: number
   team.run(Phase.Within);
   let total = 0;
   for (let c = 0; c < k; c++) {
-    let part = mem.parts[c];
-    for (let b = 1; b < blocks; b++) part += mem.parts[b * k + c];
+    const part = acrossBlocks(mem.parts, blocks, k, c);
     if (bySegment) bySegment[c] = part;
     total += part;
   }
@@ -40,13 +38,11 @@ export function grandSpread(team: KmeansTeam, mem: KmeansMemory): GrandSpread {
   team.run(Phase.ColumnSums);
   const grand = new Float64Array(d);
   for (let j = 0; j < d; j++) {
-    let sum = mem.grand[j];
-    for (let b = 1; b < blocks; b++) sum += mem.grand[b * d + j];
-    grand[j] = sum / n;
+    grand[j] = acrossBlocks(mem.grand, blocks, d, j) / n;
   }
   mem.grand.set(grand);
   team.run(Phase.SpreadAbout);
-  return { grand, totalSS: sumOfBlocks(mem.blockValue, blocks) };
+  return { grand, totalSS: acrossBlocks(mem.blockValue, blocks, 1, 0) };
 }
 
 export interface PartitionFigures {
@@ -89,13 +85,13 @@ export function partitionFigures(team: KmeansTeam, mem: KmeansMemory, spread: Gr
  */
 export function settleExactly(team: KmeansTeam, mem: KmeansMemory, maxSteps: number): number {
   team.run(Phase.Nearest);
-  if (sumOfBlocks(mem.blockValue, mem.layout.blocks) === 0) return 0;
+  if (acrossBlocks(mem.blockValue, mem.layout.blocks, 1, 0) === 0) return 0;
   let steps = runHamerly(team, mem, maxSteps, 0, false, false).iterations;
   for (;;) {
     centresToMeans(team, mem);
     if (steps >= maxSteps) break;
     team.run(Phase.Nearest);
-    if (sumOfBlocks(mem.blockValue, mem.layout.blocks) === 0) break;
+    if (acrossBlocks(mem.blockValue, mem.layout.blocks, 1, 0) === 0) break;
     steps++;
   }
   return steps;

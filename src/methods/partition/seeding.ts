@@ -2,7 +2,7 @@
 // The sweeps over the rows are phases of kmeans-blocks.ts; the draws and choices here are serial.
 import type { Random } from '../../random';
 import { Phase } from './kmeans-blocks';
-import { blockRange, interleaveInPairs, PARAM_SEEDING_WASM, releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
+import { acrossBlocks, blockRange, interleaveInPairs, PARAM_SEEDING_WASM, releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
 import { localTeam, type KmeansTeam } from './kmeans-team';
 
 /** Greedy trials per new centre: 2 + floor(ln k) (common practice). */
@@ -35,7 +35,7 @@ export function seedPlusPlusOn(team: KmeansTeam, mem: KmeansMemory, random: Rand
 
   copyRow(rows, random.int(n), d, centres, 0);
   team.run(Phase.SeedFirst);
-  let potential = sumOfBlocks(blockValue, blocks);
+  let potential = acrossBlocks(blockValue, blocks, 1, 0);
   for (let c = 1; c < k; c++) {
     for (let t = 0; t < trials; t++) picked[t] = potential > 0 ? drawWeighted(mem, random.next() * potential) : random.int(n);
     // Trial rows side by side, padded to a multiple of four with copies of the last one, and
@@ -43,25 +43,14 @@ export function seedPlusPlusOn(team: KmeansTeam, mem: KmeansMemory, random: Rand
     for (let t = 0; t < padded; t++) copyRow(rows, picked[t < trials ? t : trials - 1], d, candidates, t * d);
     interleaveInPairs(candidates, candidatesPaired, padded, d);
     team.run(Phase.Trials, trials);
-    for (let t = 0; t < trials; t++) {
-      let total = totals[t];
-      for (let b = 1; b < blocks; b++) total += totals[b * padded + t];
-      totalOf[t] = total;
-    }
+    for (let t = 0; t < trials; t++) totalOf[t] = acrossBlocks(totals, blocks, padded, t);
     // Strictly lower: ties keep the earlier candidate.
     let best = 0;
     for (let t = 1; t < trials; t++) if (totalOf[t] < totalOf[best]) best = t;
     copyRow(rows, picked[best], d, centres, c * d);
     team.run(Phase.Take, c, best);
-    potential = sumOfBlocks(blockValue, blocks);
+    potential = acrossBlocks(blockValue, blocks, 1, 0);
   }
-}
-
-/** Block values added in block order. */
-export function sumOfBlocks(values: Float64Array, blocks: number): number {
-  let total = values[0];
-  for (let b = 1; b < blocks; b++) total += values[b];
-  return total;
 }
 
 /**
