@@ -1,6 +1,6 @@
 // The WebAssembly binary vocabulary our small hand-assembled kernels are written in (the
-// euclidean pair loop, the k-means++ trial sweep): LEB128 numbers, sections, and the few
-// instructions they use. Kept in one place so each kernel file reads as its instruction list.
+// euclidean pair loop and the k-means kernels): LEB128 numbers, sections, the few instructions
+// they use, and the one-function module around each. Kept in one place so each kernel file reads as its instruction list.
 
 /** Unsigned LEB128. */
 export function uleb(value: number): number[] {

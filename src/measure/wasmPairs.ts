@@ -20,7 +20,7 @@
 //
 // All addresses are bytes into one shared memory laid out by `pairsLayout`.
 import {
-  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, V128_LOAD, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_SQRT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, IF, END, brIf, oneFunctionModule, I32, V128,
+  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, V128_LOAD, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_SQRT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, IF, END, brIf, oneFunctionModule, compiledOnce, I32, V128,
 } from '../core/wasm-encoding';
 
 /** Byte offsets in the shared memory: the condensed output first, then the rows, then the rows interleaved in pairs. */
@@ -99,22 +99,15 @@ export function pairsRowsWasm(
   }
 }
 
-const compiled = new Map<boolean, WebAssembly.Module | null>();
+const compiledShared = compiledOnce(() => pairsModuleBytes(true));
+const compiledPrivate = compiledOnce(() => pairsModuleBytes(false));
 
 /**
  * The compiled module for a shared memory (two threads) or a private one, or undefined where
  * WebAssembly with 128-bit vectors is not available.
  */
 export function pairsModule(shared: boolean): WebAssembly.Module | undefined {
-  if (!compiled.has(shared)) {
-    try {
-      const bytes = pairsModuleBytes(shared);
-      compiled.set(shared, typeof WebAssembly === 'object' && WebAssembly.validate(bytes) ? new WebAssembly.Module(bytes) : null);
-    } catch {
-      compiled.set(shared, null);
-    }
-  }
-  return compiled.get(shared) ?? undefined;
+  return shared ? compiledShared() : compiledPrivate();
 }
 
 /** A memory of the layout's size (shared or private, as the module was built) with the module instantiated on it. */
