@@ -2,14 +2,13 @@
 // same data in the same run. Not the benchmark suite (that is `npm run bench`); just a probe.
 // Build and run:
 //   npx tsc --outDir /tmp/kinsort-probe --rootDir . --module commonjs --target es2022 --esModuleInterop \
-//     --skipLibCheck --types node bench/partition-probe.ts src/methods/partition/kmeans-worker.ts && node /tmp/kinsort-probe/bench/partition-probe.js
+//     --skipLibCheck --types node bench/partition-probe.ts && node /tmp/kinsort-probe/bench/partition-probe.js
 import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createMatrix } from '../src/core/matrix';
 import { kmeans } from '../src/methods/partition/kmeans';
-import { setKmeansThreads } from '../src/methods/partition/restarts';
 import { createRandom } from '../src/random';
 
 const n = Number(process.env.PROBE_N ?? 100_000);
@@ -36,18 +35,14 @@ function median(values: number[]): number {
 }
 
 const ours: number[] = [];
-const oursOneThread: number[] = [];
 let within = 0;
 let iterations = 0;
 for (let r = 0; r < repeats; r++) {
-  for (const threads of [2, 1] as const) {
-    setKmeansThreads(threads);
-    const t0 = process.hrtime.bigint();
-    const fit = kmeans(matrix, { k, restarts, seed: r });
-    (threads === 2 ? ours : oursOneThread).push(Number(process.hrtime.bigint() - t0) / 1e6);
-    within = fit.withinSS;
-    iterations = fit.iterations;
-  }
+  const t0 = process.hrtime.bigint();
+  const fit = kmeans(matrix, { k, restarts, seed: r });
+  ours.push(Number(process.hrtime.bigint() - t0) / 1e6);
+  within = fit.withinSS;
+  iterations = fit.iterations;
 }
 
 const python = `
@@ -64,7 +59,7 @@ for algorithm in ("lloyd", "elkan"):
 `;
 const peer = execFileSync('/usr/bin/python3', ['-c', python, file], { encoding: 'utf8' });
 const oursMs = median(ours);
-console.log(`kinsort kmeans  ${n} × ${d}, k = ${k}, ${restarts} restarts: median ${oursMs.toFixed(0)} ms with 2 threads, ${median(oursOneThread).toFixed(0)} ms with 1 (within-SS ${within.toFixed(2)}, iterations ${iterations})`);
+console.log(`kinsort kmeans  ${n} × ${d}, k = ${k}, ${restarts} restarts: median ${oursMs.toFixed(0)} ms (within-SS ${within.toFixed(2)}, iterations ${iterations})`);
 for (const line of peer.trim().split('\n')) {
   const [algorithm, ms, inertia, iters] = line.split(' ');
   console.log(`scikit-learn ${algorithm.padEnd(6)} median ${Number(ms).toFixed(0)} ms (within-SS ${Number(inertia).toFixed(2)}, iterations ${iters})  ratio kinsort/sklearn ${(oursMs / Number(ms)).toFixed(2)}`);

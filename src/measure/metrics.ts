@@ -2,6 +2,7 @@
 // flat arrays (k-medoids, silhouette on rows and assigning new rows use it without a matrix).
 import { KinsortError, checkChoice } from '../core/errors';
 import { describe } from '../core/options';
+import { squaredDistance } from './squared-distance';
 
 export const ROW_METRICS = [
   'euclidean',
@@ -126,22 +127,10 @@ export function distanceFunction(metric: RowMetric | string, p?: number, weights
 }
 
 export function euclideanPair(a: Float64Array, ao: number, b: Float64Array, bo: number, d: number): number {
-  let s = 0;
-  for (let t = 0; t < d; t++) {
-    const diff = a[ao + t] - b[bo + t];
-    s += diff * diff;
-  }
-  return Math.sqrt(s);
+  return Math.sqrt(squaredDistance(a, ao, b, bo, d));
 }
 
-export function sqeuclideanPair(a: Float64Array, ao: number, b: Float64Array, bo: number, d: number): number {
-  let s = 0;
-  for (let t = 0; t < d; t++) {
-    const diff = a[ao + t] - b[bo + t];
-    s += diff * diff;
-  }
-  return s;
-}
+export const sqeuclideanPair: PairKernel = squaredDistance;
 
 function manhattanPair(a: Float64Array, ao: number, b: Float64Array, bo: number, d: number): number {
   let s = 0;

@@ -5,4 +5,3 @@ export { kmedoids } from './kmedoids';
 export type { KmedoidsOptions, KmedoidsResult } from './kmedoids';
 export { kmeansMiniBatch } from './minibatch';
 export type { KmeansMiniBatchOptions } from './minibatch';
-export { setKmeansThreads } from './restarts';

@@ -1,12 +1,13 @@
 // All state of one k-means call in one block of memory: the rows, what k-means++ learns about
 // them, the Lloyd bounds and assignment, and small per-block totals. Where the platform has them
-// it is a shared WebAssembly memory, so the kernels run as WebAssembly on it and a worker thread
-// can work on the same arrays; otherwise plain arrays over the caller's own rows (no copy).
+// it is a WebAssembly memory, so the kernels run as WebAssembly on it; otherwise plain arrays
+// over the caller's own rows (no copy).
 //
-// The rows are cut into `blocks` fixed ranges (several for large inputs, chosen from the shape
-// alone: small enough that a thread that falls behind holds the other up only briefly). Every sum over rows is summed block by block and the block totals then added in block
-// order, so the numbers do not depend on which thread did which block.
-import { defaultTrials } from './seeding';
+// The rows are cut into `blocks` fixed ranges (eight for large inputs, chosen from the shape
+// alone). Every sum over rows is summed block by block and the block totals then added in block
+// order: a fixed summation order (as scikit-learn sums over fixed chunks of rows), which keeps
+// the rounding of the large sums independent of how a pass is written.
+import { defaultTrials } from './seeding-trials';
 import { sharedTrialModule, type PairsTotals } from './seedingWasm';
 import { segmentSumsModule, type SegmentSums } from './sums-wasm';
 import { takeModule, type TakeKernel } from './take-wasm';
@@ -162,6 +163,12 @@ export function acrossBlocks(values: Float64Array, blocks: number, stride: numbe
   let total = values[at];
   for (let b = 1; b < blocks; b++) total += values[b * stride + at];
   return total;
+}
+
+/** Run `step` on every block of rows in block order: rows [lo, hi) of block b. */
+export function forEachBlock(mem: KmeansMemory, step: (lo: number, hi: number, b: number) => void): void {
+  const { starts, blocks } = mem.layout;
+  for (let b = 0; b < blocks; b++) step(starts[b], starts[b + 1], b);
 }
 
 /** The rows of block b: [start, end). */

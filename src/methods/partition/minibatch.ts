@@ -7,14 +7,16 @@ import type { RowsInput } from '../../core/matrix';
 import { checkInteger, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
 import { createRandom, type Random, type Seed } from '../../random';
-import { sqeuclideanPair as squaredDistance } from '../../measure/metrics';
-import { Phase } from './kmeans-blocks';
+import { squaredDistance } from '../../measure/squared-distance';
+import { centresToMeans } from './centre-update';
+import { nearestAll } from './exact-finish';
+import { grandSpread } from './grand-spread';
 import { takeKmeansMemory } from './kmeans-memory';
-import { localTeam } from './kmeans-team';
 import { nestedCentres, type KmeansResult } from './kmeans';
 import { checkSegmentCount, partitionRows } from './partition-input';
-import { centresToMeans, grandSpread, partitionFigures, withinOn } from './partition-summary';
+import { partitionFigures } from './partition-figures';
 import { seedPlusPlus } from './seeding';
+import { withinOn } from './within-ss';
 
 export interface KmeansMiniBatchOptions {
   k: number;
@@ -53,9 +55,8 @@ export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions
   const patience = checkInteger(opts.patience ?? 10, `${where}: patience`, 1);
   const restarts = checkInteger(opts.restarts ?? 3, `${where}: restarts`, 1);
   const data = m.data;
-  // The exact finish of each restart runs on the calling thread over plain arrays (no copy of the rows).
+  // The exact finish of each restart runs over plain arrays (no copy of the rows).
   const mem = takeKmeansMemory(data, n, d, k, 'finish');
-  const team = localTeam(mem);
   const root = createRandom(opts.seed ?? 0);
   const centers = new Float64Array(k * d);
 
@@ -66,9 +67,9 @@ export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions
     const run = miniBatchRun(data, n, d, k, batchSize, maxIterations, patience, random, centers);
     // Every row to its nearest centre, then centres to the means of their rows.
     mem.centres.set(centers);
-    team.run(Phase.Nearest);
-    centresToMeans(team, mem);
-    const within = withinOn(team, mem);
+    nearestAll(mem);
+    centresToMeans(mem);
+    const within = withinOn(mem);
     restartWithinSS.push(within);
     if (best === undefined || within < best.within) {
       best = { within, assignment: mem.assignment.slice(), centers: mem.centres.slice(), ...run };
@@ -78,7 +79,7 @@ export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions
   const kept = best!;
   mem.assignment.set(kept.assignment);
   mem.centres.set(kept.centers);
-  const figures = partitionFigures(team, mem, grandSpread(team, mem));
+  const figures = partitionFigures(mem, grandSpread(mem));
   return {
     kind: 'kmeans',
     variant: 'mini-batch',

@@ -2,9 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { kmeans } from '../../../src/methods/partition/kmeans';
 import { releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from '../../../src/methods/partition/kmeans-memory';
 import { runHamerly } from '../../../src/methods/partition/hamerly';
-import { Phase } from '../../../src/methods/partition/kmeans-blocks';
-import { localTeam } from '../../../src/methods/partition/kmeans-team';
-import { setKmeansThreads, setSeedingWasm } from '../../../src/methods/partition/restarts';
+import { sumsFromScratch } from '../../../src/methods/partition/centre-update';
+import { setSeedingWasm } from '../../../src/methods/partition/restarts';
 import { seedPlusPlusOn } from '../../../src/methods/partition/seeding';
 import { createRandom } from '../../../src/random';
 
@@ -31,7 +30,7 @@ function seedOnce(data: Float64Array, n: number, d: number, k: number, seed: num
   const counted: KmeansMemory = { ...taken, sweep: (...args) => (calls++, taken.sweep!(...args)) };
   const previous = setSeedingWasm(wasm);
   try {
-    seedPlusPlusOn(localTeam(counted), counted, createRandom(seed));
+    seedPlusPlusOn(counted, createRandom(seed));
   } finally {
     setSeedingWasm(previous);
   }
@@ -65,7 +64,6 @@ describe('k-means++ trial sweep and take step as WebAssembly', () => {
     const d = 7;
     const data = blobs(n, d, 3);
     const rows = { rows: n, cols: d, data };
-    const previousThreads = setKmeansThreads(1);
     const previousWasm = setSeedingWasm(true);
     try {
       const a = kmeans(rows, { k: 12, seed: 9, restarts: 3 });
@@ -76,7 +74,6 @@ describe('k-means++ trial sweep and take step as WebAssembly', () => {
       expect(sameBits(a.assignment, b.assignment)).toBe(true);
       expect(a.centers).toEqual(b.centers);
     } finally {
-      setKmeansThreads(previousThreads as 1 | 2);
       setSeedingWasm(previousWasm);
     }
   });
@@ -106,8 +103,8 @@ describe('segment sums as WebAssembly', () => {
       expect(plain.segmentSums).toBeUndefined();
       const random = createRandom(`sums-${n}`);
       for (let i = 0; i < n; i++) shared.assignment[i] = plain.assignment[i] = random.int(k);
-      localTeam(shared).run(Phase.Sums);
-      localTeam(plain).run(Phase.Sums);
+      sumsFromScratch(shared);
+      sumsFromScratch(plain);
       expect(sameBits(shared.sums, plain.sums)).toBe(true);
       expect(sameBits(shared.counts, plain.counts)).toBe(true);
       releaseKmeansMemory(shared);
@@ -128,8 +125,8 @@ describe('Hamerly sweeps (bound pass and full scans) as WebAssembly', () => {
       for (const mem of [shared, plain]) {
         for (let c = 0; c < k; c++) mem.centres.set(data.subarray(((c * 3001) % n) * d, ((c * 3001) % n + 1) * d), c * d);
       }
-      const runShared = runHamerly(localTeam(shared), shared, 40, 0, false, false);
-      const runPlain = runHamerly(localTeam(plain), plain, 40, 0, false, false);
+      const runShared = runHamerly(shared, 40, 0, false, false);
+      const runPlain = runHamerly(plain, 40, 0, false, false);
       expect(runShared).toEqual(runPlain);
       expect(runShared.iterations).toBeGreaterThan(3);
       expect(sameBits(shared.assignment, plain.assignment)).toBe(true);

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { blockOf, blockRange, kmeansLayout } from '../../../src/methods/partition/kmeans-memory';
-import { CLAIMS, claimBlock } from '../../../src/methods/partition/kmeans-team';
 
 describe('blocks of rows', () => {
   it('depend on the shape alone and cover every row once, each starting at an even row', () => {
@@ -22,18 +21,5 @@ describe('blocks of rows', () => {
       }
       expect(next).toBe(n);
     }
-  });
-});
-
-describe('claiming blocks of a phase', () => {
-  it('hands out each block of the current generation once, and none of a finished one', () => {
-    const control = new Int32Array(new SharedArrayBuffer(32));
-    Atomics.store(control, CLAIMS, 7 << 5);
-    expect([claimBlock(control, 7, 3), claimBlock(control, 7, 3), claimBlock(control, 7, 3)]).toEqual([0, 1, 2]);
-    expect(claimBlock(control, 7, 3)).toBe(-1);
-    // A late thread still on generation 7 gets nothing of generation 8.
-    Atomics.store(control, CLAIMS, 8 << 5);
-    expect(claimBlock(control, 7, 3)).toBe(-1);
-    expect(claimBlock(control, 8, 3)).toBe(0);
   });
 });
