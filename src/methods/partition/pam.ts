@@ -4,10 +4,22 @@
 // exchanges in O(n²) rather than O(k n²) with the FastPAM1 bookkeeping of Schubert & Rousseeuw
 // (2019); the exchange chosen is the same as the plain evaluation's.
 //
-// Ties follow R's cluster::pam (from memory, and checked against it on a tie-heavy fixture):
-// in BUILD the later row wins a tie; in SWAP the first exchange found wins, scanning candidate
-// rows in order and, for each, the medoids in row order. Values within 1e-12 of the total are
-// treated as ties so that a different summation order cannot change the choice.
+// BUILD follows R's cluster::pam (cluster 2.1, src/pam.c, bswap) to the last bit: every row
+// starts at a distance "larger than all", 1.1 × the largest dissimilarity + 1; a candidate's
+// gain is Σ_j max(0, current_j − d(i, j)) summed in row order (the candidate itself included,
+// at distance 0); gains are compared exactly and the later row wins a tie. So the same
+// dissimilarities give R's BUILD medoids even where gains tie or differ only by rounding
+// (checked on tie-heavy Gower data: test/reference/pam_gower_ties.R).
+// In SWAP the first exchange found wins, scanning candidate rows in order and, for each, the
+// medoids in row order, as in R; there the change of cost is summed in another order than R's,
+// so values within 1e-12 of the total are treated as ties and a summation order cannot change
+// the choice.
+//
+// References:
+//   L. Kaufman and P. J. Rousseeuw, "Finding Groups in Data: An Introduction to Cluster
+//   Analysis", Wiley (1990), chapter 2, doi:10.1002/9780470316801.
+//   E. Schubert and P. J. Rousseeuw, "Faster k-medoids clustering: improving the PAM, CLARA, and
+//   CLARANS algorithms", SISAP 2019, 171–187, doi:10.1007/978-3-030-32047-8_16, arXiv:1810.05691.
 
 /** Row `c` of the full matrix, read from the condensed array, into `out`. */
 export function condensedRow(condensed: Float64Array, n: number, c: number, out: Float64Array): void {
@@ -32,36 +44,37 @@ export interface PamState {
   cost: number;
 }
 
-/** BUILD: the first medoid minimises the total dissimilarity; each next one gains the most. */
+/**
+ * BUILD: the first medoid minimises the total dissimilarity; each next one gains the most.
+ * Arithmetic and tie rule as R's cluster::pam (see the top of this file).
+ */
 export function pamBuild(condensed: Float64Array, n: number, k: number, onStep?: (done: number) => void): number[] {
   const row = new Float64Array(n);
-  const closest = new Float64Array(n).fill(Infinity);
+  let largest = 0;
+  for (let t = 0; t < condensed.length; t++) if (largest < condensed[t]) largest = condensed[t];
+  // R's "larger than all dissimilarities"; the first step's gains are then n × this − Σ d(i, ·).
+  const closest = new Float64Array(n).fill(largest * 1.1 + 1);
   const isMedoid = new Uint8Array(n);
   const medoids: number[] = [];
-  let scale = 0;
-  for (let t = 0; t < condensed.length; t++) scale += condensed[t];
-  const eps = 1e-12 * Math.max(scale, Number.MIN_VALUE);
   for (let step = 0; step < k; step++) {
-    let bestGain = -Infinity;
+    let bestGain = 0;
     let best = -1;
     for (let i = 0; i < n; i++) {
       if (isMedoid[i]) continue;
       condensedRow(condensed, n, i, row);
       let gain = 0;
-      if (step === 0) {
-        for (let j = 0; j < n; j++) gain -= row[j];
-      } else {
-        for (let j = 0; j < n; j++) {
-          const g = closest[j] - row[j];
-          if (g > 0) gain += g;
-        }
+      for (let j = 0; j < n; j++) {
+        const g = closest[j] - row[j];
+        if (g > 0) gain += g;
       }
-      // Later row wins a tie (≥ within eps).
-      if (best < 0 || gain >= bestGain - eps) {
+      // Exact comparison, the later row wins a tie.
+      if (bestGain <= gain) {
+        bestGain = gain;
         best = i;
-        if (gain > bestGain) bestGain = gain;
       }
     }
+    // Only NaN gains get here without a choice (R refuses missing dissimilarities): the first free row.
+    if (best < 0) best = isMedoid.indexOf(0);
     isMedoid[best] = 1;
     medoids.push(best);
     condensedRow(condensed, n, best, row);
@@ -110,6 +123,8 @@ export function pamSwap(condensed: Float64Array, n: number, start: number[], max
   const removalLoss = new Float64Array(k);
   const change = new Float64Array(k);
   const isMedoid = new Uint8Array(n);
+  const medoidRow = new Float64Array(n);
+  const otherRow = new Float64Array(n);
   let swaps = 0;
   let passes = 0;
   while (swaps < maxSwaps) {
@@ -124,6 +139,7 @@ export function pamSwap(condensed: Float64Array, n: number, start: number[], max
     let bestChange = 0;
     let bestCandidate = -1;
     let bestSlot = -1;
+    let bestExact = NaN;
     for (let c = 0; c < n; c++) {
       if (isMedoid[c]) continue;
       condensedRow(condensed, n, c, row);
@@ -142,12 +158,24 @@ export function pamSwap(condensed: Float64Array, n: number, start: number[], max
         }
       }
       // Medoids in row order (state.medoids is sorted); the first clearly better exchange wins.
+      // Near ties (within eps) are settled as R settles them: on the change summed R's way,
+      // strictly lower wins.
       for (let m = 0; m < k; m++) {
         const total = change[m] + shared;
         if (total < bestChange - eps) {
           bestChange = total;
           bestCandidate = c;
           bestSlot = m;
+          bestExact = NaN;
+        } else if (bestCandidate >= 0 && total <= bestChange + eps) {
+          if (Number.isNaN(bestExact)) bestExact = changeAsR(condensed, n, state, medoids[bestSlot], bestCandidate, medoidRow, otherRow);
+          const exact = changeAsR(condensed, n, state, medoids[m], c, medoidRow, otherRow);
+          if (exact < bestExact) {
+            bestChange = total;
+            bestCandidate = c;
+            bestSlot = m;
+            bestExact = exact;
+          }
         }
       }
     }
@@ -160,4 +188,26 @@ export function pamSwap(condensed: Float64Array, n: number, start: number[], max
     swaps++;
   }
   return { state, swaps, passes };
+}
+
+/**
+ * The change of cost when `candidate` replaces `medoid`, summed as R's cluster::pam sums it (row
+ * by row, with its own case split), for settling near ties exactly as R does.
+ */
+function changeAsR(condensed: Float64Array, n: number, state: PamState, medoid: number, candidate: number, medoidRow: Float64Array, candidateRow: Float64Array): number {
+  condensedRow(condensed, n, medoid, medoidRow);
+  condensedRow(condensed, n, candidate, candidateRow);
+  const { nearestDistance, secondDistance } = state;
+  let dz = 0;
+  for (let j = 0; j < n; j++) {
+    const dm = medoidRow[j];
+    const dc = candidateRow[j];
+    if (dm === nearestDistance[j]) {
+      const small = secondDistance[j] > dc ? dc : secondDistance[j];
+      dz += -nearestDistance[j] + small;
+    } else if (dc < nearestDistance[j]) {
+      dz += -nearestDistance[j] + dc;
+    }
+  }
+  return dz;
 }

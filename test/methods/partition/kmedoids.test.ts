@@ -42,6 +42,26 @@ describe('kmedoids against R cluster::pam', () => {
   }
 });
 
+// Fixture pam_gower_ties.json from test/reference/pam_gower_ties.R: R cluster::daisy (Gower) and
+// cluster::pam with and without SWAP on tie-heavy data of our own making. Before BUILD summed and
+// compared its gains as R does, 4 of these 48 fits started from other medoids than R's.
+describe('kmedoids BUILD tie rule against R cluster::pam on tie-heavy Gower data', () => {
+  const ties = readFixture('pam_gower_ties.json');
+  for (const c of ties.cases) {
+    it(`seed ${c.seed}, ${c.n} rows, k = 2..5: BUILD medoids, final medoids and costs as R's`, () => {
+      const diss = fromCondensed(c.condensed, { metric: 'gower' });
+      for (const r of c.fits) {
+        const built = kmedoids(diss, { k: r.k, maxSwaps: 0 });
+        expect(built.medoids).toEqual(sorted(toRows(r.buildMedoidRows)));
+        expect(built.buildCost).toBeCloseTo(r.totalBuild, 9);
+        const fit = kmedoids(diss, { k: r.k });
+        expect(fit.medoids).toEqual(sorted(toRows(r.medoidRows)));
+        expect(fit.cost).toBeCloseTo(r.totalSwap, 9);
+      }
+    });
+  }
+});
+
 describe('kmedoids result and properties', () => {
   const rows = fixture.ruspini.rows as number[][];
   it('has the documented shape', () => {
