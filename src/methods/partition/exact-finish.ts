@@ -21,7 +21,7 @@ const quad = new Float64Array(8);
  */
 export function settleExactly(mem: KmeansMemory, maxSteps: number): number {
   if (nearestAll(mem) === 0) return 0;
-  let steps = runHamerly(mem, maxSteps, 0, false, false).iterations;
+  let steps = runHamerly(mem, maxSteps, 0, false, 'centres').iterations;
   for (;;) {
     centresToMeans(mem);
     if (steps >= maxSteps) break;

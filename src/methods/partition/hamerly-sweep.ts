@@ -14,14 +14,17 @@ import { forEachBlock, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type Kmeans
 const quad = new Float64Array(8);
 
 /**
- * The first assignment and bounds: from what k-means++ already knows (`seeded`: nearest centre,
- * its distance and a lower bound on the others), or by measuring every centre. Then every
- * block's segment sums and counts.
+ * Where the first assignment and bounds come from: what k-means++ already knows ('seeded':
+ * nearest centre, its distance and a lower bound on the others), measuring every centre
+ * ('centres'), or the assignment and bounds already in `mem`, valid for its centres ('kept').
  */
-export function firstAssignment(mem: KmeansMemory, seeded: boolean): void {
+export type StartFrom = 'seeded' | 'centres' | 'kept';
+
+/** The first assignment and bounds, then every block's segment sums and counts. */
+export function firstAssignment(mem: KmeansMemory, from: StartFrom): void {
   forEachBlock(mem, (lo, hi, b) => {
-    if (seeded) startSeeded(mem, lo, hi);
-    else startFromCentres(mem, lo, hi);
+    if (from === 'seeded') startSeeded(mem, lo, hi);
+    else if (from === 'centres') startFromCentres(mem, lo, hi);
     blockSums(mem, lo, hi, b);
   });
 }

@@ -9,7 +9,7 @@
 //   G. Hamerly, "Making k-means even faster", Proceedings of the 2010 SIAM International
 //   Conference on Data Mining, 130–140, doi:10.1137/1.9781611972801.12.
 import { centresFromSums, repairEmpty } from './centre-update';
-import { firstAssignment, hamerlySweep } from './hamerly-sweep';
+import { firstAssignment, hamerlySweep, type StartFrom } from './hamerly-sweep';
 import { interleaveInPairs, PARAM_MOST, PARAM_MOST_AT, PARAM_SECOND_MOST, type KmeansMemory } from './kmeans-memory';
 import { withinOn } from './within-ss';
 
@@ -23,16 +23,16 @@ export interface LloydRun {
 }
 
 /**
- * Run Lloyd iterations from the centres in `mem.centres` (overwritten with the final ones), or
- * from the k-means++ state when `seeded`. The assignment is left in `mem.assignment`. Stops when
+ * Run Lloyd iterations from the centres in `mem.centres` (overwritten with the final ones): the
+ * first assignment and bounds as `from` says (hamerly-sweep.ts). The assignment is left in `mem.assignment`. Stops when
  * the summed squared centre movement is at most `tolerance` (an absolute value; the caller
  * scales it), or after `maxIterations` updates.
  */
-export function runHamerly(mem: KmeansMemory, maxIterations: number, tolerance: number, trace: boolean, seeded: boolean): LloydRun {
+export function runHamerly(mem: KmeansMemory, maxIterations: number, tolerance: number, trace: boolean, from: StartFrom): LloydRun {
   const { d, k } = mem.layout;
   const { centres, previous, moved, halfGap, params } = mem;
   const traceValues: number[] | undefined = trace ? [] : undefined;
-  firstAssignment(mem, seeded);
+  firstAssignment(mem, from);
 
   let iterations = 0;
   let converged = false;

@@ -8,11 +8,7 @@
 // order: a fixed summation order (as scikit-learn sums over fixed chunks of rows), which keeps
 // the rounding of the large sums independent of how a pass is written.
 import { defaultTrials } from './seeding-trials';
-import { sharedTrialModule, type PairsTotals } from './seedingWasm';
-import { segmentSumsModule, type SegmentSums } from './sums-wasm';
-import { takeModule, type TakeKernel } from './take-wasm';
-import { pairScanModule, type PairScan } from './scan-wasm';
-import { boundPassModule, type BoundPass } from './bounds-wasm';
+import { kernelModule, type BoundPass, type KernelName, type PairScan, type SegmentSums, type TakeKernel, type TrialTotals } from './wasm-kernels';
 
 export interface KmeansLayout {
   readonly n: number;
@@ -46,10 +42,10 @@ export const PARAM_SEEDING_WASM = 3;
 
 export interface KmeansMemory {
   readonly layout: KmeansLayout;
-  /** The shared WebAssembly memory, when the state lives in one (a worker can then join). */
+  /** The WebAssembly memory, when the state lives in one. */
   readonly wasm?: WebAssembly.Memory;
-  /** This thread's instances of the WebAssembly kernels over `wasm`: the trial sweep, the take step and the segment sums. */
-  readonly sweep?: PairsTotals;
+  /** The WebAssembly kernels over `wasm` (wasm-kernels.ts). */
+  readonly sweep?: TrialTotals;
   readonly take?: TakeKernel;
   readonly segmentSums?: SegmentSums;
   readonly pairScan?: PairScan;
@@ -157,7 +153,7 @@ export function interleaveInPairs(from: Float64Array, to: Float64Array, count: n
 /**
  * One figure summed across the blocks in block order: values[at], then values[stride + at], …
  * (each block holds its own copy of the figure, `stride` apart). Every total over rows is made
- * this way, so it does not depend on which thread did which block.
+ * this way: one fixed summation order.
  */
 export function acrossBlocks(values: Float64Array, blocks: number, stride: number, at: number): number {
   let total = values[at];
@@ -187,7 +183,7 @@ export function blockOf(layout: KmeansLayout, i: number): number {
 export function memoryViews(
   layout: KmeansLayout,
   buffer: ArrayBufferLike,
-  extra: { wasm?: WebAssembly.Memory; sweep?: PairsTotals; take?: TakeKernel; segmentSums?: SegmentSums; pairScan?: PairScan; boundPass?: BoundPass; rows?: Float64Array } = {},
+  extra: { wasm?: WebAssembly.Memory; sweep?: TrialTotals; take?: TakeKernel; segmentSums?: SegmentSums; pairScan?: PairScan; boundPass?: BoundPass; rows?: Float64Array } = {},
 ): KmeansMemory {
   const { at, length } = layout;
   const f64 = (f: Float64Field) => new Float64Array(buffer, at[f], length[f]);
@@ -203,42 +199,43 @@ export function memoryViews(
   }; // prettier-ignore
 }
 
-/** A thread's views of a shared WebAssembly memory (made by this thread or another), with its own kernel instances. */
-export function attachSharedMemory(layout: KmeansLayout, wasm: WebAssembly.Memory): KmeansMemory {
+/** Views of a WebAssembly memory, with the kernels instantiated over it. */
+function attachWasmMemory(layout: KmeansLayout, wasm: WebAssembly.Memory): KmeansMemory {
   return memoryViews(layout, wasm.buffer, {
     wasm,
-    sweep: kernel<PairsTotals>(sharedTrialModule(), wasm, 'trialTotals'),
-    take: kernel<TakeKernel>(takeModule(), wasm, 'take'),
-    segmentSums: kernel<SegmentSums>(segmentSumsModule(), wasm, 'segmentSums'),
-    pairScan: kernel<PairScan>(pairScanModule(), wasm, 'pairScan'),
-    boundPass: kernel<BoundPass>(boundPassModule(), wasm, 'boundPass'),
+    sweep: kernel<TrialTotals>('trial-totals', wasm, 'trialTotals'),
+    take: kernel<TakeKernel>('take', wasm, 'take'),
+    segmentSums: kernel<SegmentSums>('segment-sums', wasm, 'segmentSums'),
+    pairScan: kernel<PairScan>('pair-scan', wasm, 'pairScan'),
+    boundPass: kernel<BoundPass>('bound-pass', wasm, 'boundPass'),
   });
 }
 
-function kernel<T>(module: WebAssembly.Module | undefined, wasm: WebAssembly.Memory, name: string): T | undefined {
-  if (!module) return undefined;
-  return new WebAssembly.Instance(module, { env: { memory: wasm } }).exports[name] as T;
+function kernel<T>(name: KernelName, wasm: WebAssembly.Memory, exported: string): T {
+  return new WebAssembly.Instance(kernelModule(name)!, { env: { memory: wasm } }).exports[exported] as T;
 }
 
-// One spare shared memory kept between calls: a notebook runs k-means again and again on rows of
-// the same size, and a fresh memory pays its allocation and page faults each time. A taken memory
-// is no longer spare, so a nested call gets one of its own.
+const KERNELS: KernelName[] = ['trial-totals', 'take', 'segment-sums', 'pair-scan', 'bound-pass'];
+
+// One spare WebAssembly memory kept between calls: a notebook runs k-means again and again on
+// rows of the same size, and a fresh memory pays its allocation and page faults each time. A
+// taken memory is no longer spare, so a nested call gets one of its own.
 let spare: WebAssembly.Memory | undefined;
 
 /**
- * Memory for k-means on `data` (n × d, k segments). 'shared' asks for shared WebAssembly memory
- * where the platform has it (the rows are then copied in; even for small inputs the kernels
- * more than pay for the copy, and a memory of the same size is reused); otherwise, and for
- * 'plain', the arrays are plain and `rows` is `data` itself. 'finish' is plain with only what the
- * exact finish of a run needs (assignment, centres, per-segment totals).
+ * Memory for k-means on `data` (n × d, k segments). 'wasm' asks for a WebAssembly memory where
+ * the platform has it (the rows are then copied in; even for small inputs the kernels more than
+ * pay for the copy, and a memory of the same size is reused); otherwise, and for 'plain', the
+ * arrays are plain and `rows` is `data` itself. 'finish' is plain with only what the exact
+ * finish of a run needs (assignment, centres, per-segment totals).
  */
-export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: number, kind: 'shared' | 'plain' | 'finish' = 'shared'): KmeansMemory {
-  if (kind === 'shared') {
-    const shared = sharedMemory(kmeansLayout(n, d, k));
-    if (shared) {
-      shared.rows.set(data.subarray(0, n * d));
-      shared.paddedCentres.fill(Infinity, k * d);
-      return shared;
+export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: number, kind: 'wasm' | 'plain' | 'finish' = 'wasm'): KmeansMemory {
+  if (kind === 'wasm') {
+    const inWasm = wasmMemory(kmeansLayout(n, d, k));
+    if (inWasm) {
+      inWasm.rows.set(data.subarray(0, n * d));
+      inWasm.paddedCentres.fill(Infinity, k * d);
+      return inWasm;
     }
   }
   const layout = kmeansLayout(n, d, k, { rowsInside: false, lloyd: kind !== 'finish' });
@@ -247,8 +244,8 @@ export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: nu
   return plain;
 }
 
-function sharedMemory(layout: KmeansLayout): KmeansMemory | undefined {
-  if (typeof SharedArrayBuffer !== 'function' || typeof WebAssembly !== 'object' || !sharedTrialModule() || !takeModule() || !segmentSumsModule() || !pairScanModule() || !boundPassModule()) return undefined;
+function wasmMemory(layout: KmeansLayout): KmeansMemory | undefined {
+  if (typeof WebAssembly !== 'object' || KERNELS.some((name) => !kernelModule(name))) return undefined;
   const pages = Math.ceil(layout.bytes / 65536);
   if (pages > 32768) return undefined; // over 2 GiB: plain arrays
   try {
@@ -257,15 +254,15 @@ function sharedMemory(layout: KmeansLayout): KmeansMemory | undefined {
       wasm = spare;
       spare = undefined;
     } else {
-      wasm = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true } as WebAssembly.MemoryDescriptor);
+      wasm = new WebAssembly.Memory({ initial: pages, maximum: pages });
     }
-    return attachSharedMemory(layout, wasm);
+    return attachWasmMemory(layout, wasm);
   } catch {
     return undefined;
   }
 }
 
-/** Done with a memory: a shared one is kept for the next call of the same size. */
+/** Done with a memory: a WebAssembly one is kept for the next call of the same size. */
 export function releaseKmeansMemory(memory: KmeansMemory): void {
   if (memory.wasm) spare = memory.wasm;
 }

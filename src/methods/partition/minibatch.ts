@@ -90,6 +90,7 @@ export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions
     iterations: kept.iterations,
     converged: kept.converged,
     restartsRun: restarts,
+    refinedRows: 0,
     restartWithinSS,
   };
 }

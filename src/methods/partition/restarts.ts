@@ -10,6 +10,7 @@ import { runHamerly, type LloydRun } from './hamerly';
 import { releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
 import { partitionFigures, type PartitionFigures } from './partition-figures';
 import { seedPlusPlusOn, seedRandomRows } from './seeding';
+import { transferRows } from './transfers';
 import { withinOn } from './within-ss';
 
 export { setSeedingWasm } from './seeding';
@@ -26,6 +27,8 @@ export interface RestartPlan {
   maxIterations: number;
   /** Tolerance on the summed squared centre movement, relative to the mean column variance. */
   relativeTolerance: number;
+  /** Single-row transfers (Hartigan's rule) after Lloyd in every restart. */
+  refine: boolean;
   trace: boolean;
 }
 
@@ -37,6 +40,8 @@ export interface KmeansRun {
   iterations: number;
   converged: boolean;
   withinByRestart: number[];
+  /** Rows moved by single transfers in the kept restart. */
+  refinedRows: number;
   figures: PartitionFigures;
   trace?: number[];
 }
@@ -58,18 +63,19 @@ function runOn(mem: KmeansMemory, plan: RestartPlan, onDone: (done: number) => v
   const tolerance = plan.relativeTolerance * (spread.totalSS / (n * d));
   const root = createRandom(plan.seed);
   const withinByRestart: number[] = [];
-  let kept: (LloydRun & { restart: number; within: number; assignment: Int32Array; centres: Float64Array }) | undefined;
+  let kept: (LloydRun & { restart: number; within: number; refinedRows: number; assignment: Int32Array; centres: Float64Array }) | undefined;
   for (let r = 0; r < restarts; r++) {
     if (start instanceof Float64Array) mem.centres.set(start);
     else if (start === 'random') seedRandomRows(mem.rows, n, d, k, root.fork(r), mem.centres);
     else seedPlusPlusOn(mem, root.fork(r));
-    const run = runHamerly(mem, maxIterations, tolerance, plan.trace, start === 'k-means++');
+    const run = runHamerly(mem, maxIterations, tolerance, plan.trace, start === 'k-means++' ? 'seeded' : 'centres');
+    const refinedRows = plan.refine ? refineByTransfers(mem, run, maxIterations, tolerance, plan.trace) : 0;
     // Exact finish: centres to the means of their rows (sums from scratch), within-SS from them.
     centresToMeans(mem);
     const within = withinOn(mem);
     withinByRestart.push(within);
     if (kept === undefined || within < kept.within) {
-      kept = { ...run, restart: r, within, assignment: mem.assignment.slice(), centres: mem.centres.slice() };
+      kept = { ...run, restart: r, within, refinedRows, assignment: mem.assignment.slice(), centres: mem.centres.slice() };
     }
     onDone(r + 1);
   }
@@ -87,7 +93,32 @@ function runOn(mem: KmeansMemory, plan: RestartPlan, onDone: (done: number) => v
     iterations: best.iterations + extra,
     converged: best.converged,
     withinByRestart,
+    refinedRows: best.refinedRows,
     figures,
     trace: best.trace,
   };
+}
+
+/** Transfer passes this many at a time; between them Lloyd's iterations carry on what the transfers began. */
+const PASSES_PER_ROUND = 2;
+
+/**
+ * Single-row transfers after Lloyd (transfers.ts), alternating with Lloyd: when a pair of
+ * transfer passes still moves rows, a segment is often migrating one row at a time, which
+ * Lloyd's iterations finish in a few sweeps. Ends at a fixed point of the transfer rule (or when
+ * the centre updates reach `maxIterations`). Returns the rows moved by transfers; `run` counts
+ * the extra Lloyd updates.
+ */
+function refineByTransfers(mem: KmeansMemory, run: LloydRun, maxIterations: number, tolerance: number, trace: boolean): number {
+  let moves = 0;
+  for (;;) {
+    const step = transferRows(mem, PASSES_PER_ROUND);
+    moves += step.moves;
+    if (step.settled || run.iterations >= maxIterations) break;
+    // The transfers leave bounds valid for their centres: Lloyd goes on from them.
+    const more = runHamerly(mem, maxIterations - run.iterations, tolerance, trace, 'kept');
+    run.iterations += more.iterations;
+    if (run.trace && more.trace) run.trace.push(...more.trace);
+  }
+  return moves;
 }

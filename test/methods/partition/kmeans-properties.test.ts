@@ -64,7 +64,9 @@ describe('kmeans properties (fast-check)', () => {
     );
   });
 
-  it('permuting the rows, with fixed given centres, permutes the partition', () => {
+  // Plain Lloyd (refine: false): single-row transfers take the rows in row order, so with them
+  // the local optimum reached may depend on the order (as R's Hartigan–Wong does).
+  it('permuting the rows, with fixed given centres, permutes the partition (plain Lloyd)', () => {
     fc.assert(
       fc.property(
         table.chain((rows) => fc.tuple(fc.constant(rows), fc.shuffledSubarray(rows.map((_, i) => i), { minLength: rows.length }))),
@@ -81,8 +83,8 @@ describe('kmeans properties (fast-check)', () => {
             }
           }
           const k = start.length;
-          const a = kmeans(rows, { k, start, tolerance: 0 });
-          const b = kmeans(order.map((i) => rows[i]), { k, start, tolerance: 0 });
+          const a = kmeans(rows, { k, start, tolerance: 0, refine: false });
+          const b = kmeans(order.map((i) => rows[i]), { k, start, tolerance: 0, refine: false });
           order.forEach((i, pos) => expect(b.assignment[pos]).toBe(a.assignment[i]));
         },
       ),

@@ -125,8 +125,8 @@ describe('Hamerly sweeps (bound pass and full scans) as WebAssembly', () => {
       for (const mem of [shared, plain]) {
         for (let c = 0; c < k; c++) mem.centres.set(data.subarray(((c * 3001) % n) * d, ((c * 3001) % n + 1) * d), c * d);
       }
-      const runShared = runHamerly(shared, 40, 0, false, false);
-      const runPlain = runHamerly(plain, 40, 0, false, false);
+      const runShared = runHamerly(shared, 40, 0, false, 'centres');
+      const runPlain = runHamerly(plain, 40, 0, false, 'centres');
       expect(runShared).toEqual(runPlain);
       expect(runShared.iterations).toBeGreaterThan(3);
       expect(sameBits(shared.assignment, plain.assignment)).toBe(true);
