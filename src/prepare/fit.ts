@@ -3,7 +3,8 @@ import { KinsortError } from '../core/errors';
 import { levelKey, sortLevels } from '../table/cells';
 import type { Cell } from '../table/types';
 import type { UsedColumn } from './roles';
-import { mean, median, minMax, quantileSorted, sampleSd, scaledMad, sortedCopy } from './stats';
+import { quantileSorted } from '../core/quantile';
+import { mean, median, minMax, sampleSd, scaledMad, sortedCopy } from './stats';
 import type { PreparedColumn, ScaleMethod } from './types';
 import { levelCodes, numericCell, requireLevel } from './values';
 

@@ -1,5 +1,6 @@
 // Column statistics for scaling. Quantiles are type 7 (linear between order statistics), the
-// default of numpy.percentile and R's quantile().
+// default of numpy.percentile and R's quantile(), from core/quantile.ts.
+import { quantileSorted } from '../core/quantile';
 
 export function mean(values: Float64Array): number {
   let sum = 0;
@@ -24,15 +25,6 @@ export function sortedCopy(values: Float64Array): Float64Array {
   return Float64Array.from(values).sort();
 }
 
-/** Type-7 quantile of already sorted values, p in [0, 1]. */
-export function quantileSorted(sorted: Float64Array, p: number): number {
-  const n = sorted.length;
-  if (n === 1) return sorted[0];
-  const h = (n - 1) * p;
-  const lo = Math.floor(h);
-  const hi = Math.min(lo + 1, n - 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
-}
 
 export function median(values: Float64Array): number {
   return quantileSorted(sortedCopy(values), 0.5);

@@ -7,6 +7,11 @@ import type { Cell, DeclaredType } from '../table/types';
 export type ScaleMethod = 'none' | 'zscore' | 'robust' | 'minmax';
 export type MissingPolicy = 'refuse' | 'drop' | 'median';
 export const SCALE_METHODS: readonly ScaleMethod[] = ['none', 'zscore', 'robust', 'minmax'];
+/** The column types a preparation knows (the declared types of table/): the one list of them. */
+export { DECLARED_TYPES as COLUMN_TYPES } from '../table/read';
+/** What a prepared column's spread is. */
+export type SpreadKind = 'sd' | 'iqr' | 'mad' | 'range' | 'none';
+export const SPREAD_KINDS: readonly SpreadKind[] = ['sd', 'iqr', 'mad', 'range', 'none'];
 export const MISSING_POLICIES: readonly MissingPolicy[] = ['refuse', 'drop', 'median'];
 
 export interface PrepareOptions {
@@ -42,7 +47,7 @@ export interface PreparedColumn {
   /** numeric / ordinal: divisor after centring. 1 for others. */
   spread: number;
   /** What `spread` is: sd, iqr, mad (×1.4826), range, or none (1). */
-  spreadKind: 'sd' | 'iqr' | 'mad' | 'range' | 'none';
+  spreadKind: SpreadKind;
   /** Value put in for a missing cell under the 'median' policy (raw units or level); null otherwise. */
   fill: number | string | null;
   /** Names of the matrix columns this column produces, in order. */

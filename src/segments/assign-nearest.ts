@@ -1,5 +1,7 @@
 // Nearest segment for prepared rows: flat loops over a Float64Array, ties to the lower segment
 // number (strict "<" while scanning segments in order) — the same rule the SQL text uses.
+import { valueAtPosition } from '../core/quantile';
+import { squaredDistance } from '../measure/squared-distance';
 import type { DefinitionMetric } from './definition-types';
 
 /** Distance from row i of `data` to centre c of `centers` (both row-major, `dims` wide). */
@@ -18,10 +20,7 @@ export function pointToCenter(
     for (let j = 0; j < dims; j++) s += Math.abs(data[a + j] - centers[b + j]);
     return s;
   }
-  for (let j = 0; j < dims; j++) {
-    const d = data[a + j] - centers[b + j];
-    s += d * d;
-  }
+  s = squaredDistance(data, a, centers, b, dims);
   return metric === 'euclidean' ? Math.sqrt(s) : s;
 }
 
@@ -71,12 +70,9 @@ export function nearestCenters(
   return { segment, distance, far };
 }
 
-/** Percentile p (0..100) with linear interpolation between order statistics; 0 for no values. */
+/** Percentile p (0..100), type 7 (core/quantile.ts); 0 for no values. */
 export function percentile(values: Float64Array, p: number): number {
   if (values.length === 0) return 0;
   const sorted = Float64Array.from(values).sort();
-  const pos = ((sorted.length - 1) * p) / 100;
-  const lo = Math.floor(pos);
-  const hi = Math.min(lo + 1, sorted.length - 1);
-  return sorted[lo] + (sorted[hi] - sorted[lo]) * (pos - lo);
+  return valueAtPosition(sorted, ((sorted.length - 1) * p) / 100);
 }

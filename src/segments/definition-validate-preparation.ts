@@ -1,10 +1,10 @@
 // The preparation inside a definition is checked on load too, so a damaged file is refused with
 // the key named rather than failing later inside assign or toSql.
 import { KinsortError } from '../core/errors';
-import { MISSING_POLICIES, SCALE_METHODS } from '../prepare/types';
+import { COLUMN_TYPES as PREPARED_COLUMN_TYPES, MISSING_POLICIES, SCALE_METHODS, SPREAD_KINDS as PREPARED_SPREAD_KINDS } from '../prepare/types';
 
-const COLUMN_TYPES = ['numeric', 'binary', 'categorical', 'ordinal'];
-const SPREAD_KINDS = ['sd', 'iqr', 'mad', 'range', 'none'];
+const COLUMN_TYPES: readonly string[] = PREPARED_COLUMN_TYPES;
+const SPREAD_KINDS: readonly string[] = PREPARED_SPREAD_KINDS;
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');

@@ -1,6 +1,7 @@
 // The numbers behind the profile cards: size and share, the variables that set each segment
 // apart (standardised difference from the whole), a typical member, profile-only columns
 // summarised, stability where computed. Views only draw these; no numerics live in views/.
+import { quantileSorted } from '../core/quantile';
 import { compactLabels } from '../core/assignment';
 import { KinsortError } from '../core/errors';
 import { Matrix, toMatrix, RowsInput } from '../core/matrix';
@@ -281,14 +282,6 @@ function typicalRow(m: Matrix, labels: Int32Array, s: number, size: number): num
   return best;
 }
 
-/** Quantile by linear interpolation between order statistics (the R type 7 / NumPy default rule). */
-export function quantileSorted(sorted: ArrayLike<number>, p: number): number {
-  if (sorted.length === 0) return NaN;
-  const h = (sorted.length - 1) * p;
-  const lo = Math.floor(h);
-  const hi = Math.min(sorted.length - 1, lo + 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
-}
 
 function summariseKept(name: string, raw: readonly ProfileValue[], labels: Int32Array, s: number): KeptSummary {
   const values: ProfileValue[] = [];

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import * as fs from 'fs';
 import * as path from 'path';
 import fc from 'fast-check';
-import { profileSegments, quantileSorted } from '../../src/segments/profile';
+import { profileSegments } from '../../src/segments/profile';
+import { quantileSorted } from '../../src/core/quantile';
 import { KinsortError } from '../../src/core/errors';
 
 const fixture = JSON.parse(
