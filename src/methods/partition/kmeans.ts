@@ -1,6 +1,12 @@
 // k-means: k-means++ starts (or random rows, or given centres), Lloyd iterations with Hamerly
 // bounds, single-row transfers (Hartigan's rule) after them, several restarts each on its own
 // random stream, the lowest within-SS kept.
+//
+// The steps, one file each (with their papers): seeding.ts (k-means++, Arthur & Vassilvitskii
+// 2007), hamerly.ts and hamerly-sweep.ts (Lloyd 1982 with Hamerly's 2010 bounds),
+// centre-update.ts (means and the repair of an empty segment), transfers.ts (Hartigan & Wong
+// 1979; Telgarsky & Vattani 2010), exact-finish.ts and partition-figures.ts (the exact end),
+// restarts.ts (the order of it all), wasm-kernels.ts (the WebAssembly kernels, kernels/*.wat).
 import { KinsortError } from '../../core/errors';
 import { toMatrix, type RowsInput } from '../../core/matrix';
 import { checkInteger, checkNumber, checkOptions, describe } from '../../core/options';

@@ -3,6 +3,9 @@
 // 1 / (rows it has absorbed so far). For very large n it trades a little within-SS for far
 // fewer distance evaluations. The reported assignment and figures are computed exactly on all
 // rows at the end, as for kmeans.
+//
+// Reference: D. Sculley, "Web-scale k-means clustering", Proceedings of the 19th International
+// Conference on World Wide Web (WWW 2010), 1177–1178, doi:10.1145/1772690.1772862.
 import type { RowsInput } from '../../core/matrix';
 import { checkInteger, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
