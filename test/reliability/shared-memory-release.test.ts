@@ -3,13 +3,13 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-// The worker threads receive a fresh shared memory with large jobs (each dissimilarity call's
-// output, each k-means call of a new size). A pooled worker that kept them would grow the
-// process by the whole output on every call; this runs repeated calls in a child process of
-// the compiled package (the k-means worker exists only there) and checks the resident size
-// stays put.
+// The dissimilarity worker threads receive a fresh shared memory with large jobs (each call's
+// output); a pooled worker that kept them would grow the process by the whole output on every
+// call. k-means keeps one spare WebAssembly memory between calls and must drop it for a call of
+// a new size. This runs repeated calls in a child process of the compiled package (the workers
+// exist only there) and checks the resident size stays put.
 const dist = join(__dirname, '../../dist');
-const built = existsSync(join(dist, 'methods/partition/kmeans-worker.js'));
+const built = existsSync(join(dist, 'index.js'));
 
 const SCRIPT = `
 const ks = require(${JSON.stringify(dist)});
@@ -24,7 +24,7 @@ for (let i = 0; i < 8; i++) { kept = ks.kmeans(rows(60000 + 1000 * i, 10), { k: 
 console.log(JSON.stringify(after));
 `;
 
-describe('shared memory handed to worker threads', () => {
+describe('memory handed to worker threads and kept for WebAssembly kernels', () => {
   it.skipIf(!built)('is released after each call: repeated dissimilarity and k-means calls do not grow the process', () => {
     const out = execFileSync(process.execPath, ['--expose-gc', '-e', SCRIPT], { encoding: 'utf8', timeout: 120_000 });
     const rss: number[] = JSON.parse(out.trim().split('\n').pop()!);
