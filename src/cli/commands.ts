@@ -12,6 +12,7 @@ import { SCALE_METHODS, MISSING_POLICIES } from '../prepare';
 import { LINKAGE_METHODS } from '../methods/hierarchy';
 import { study } from '../study/study';
 import type { Segmentation } from '../study/segmentation';
+import type { ProgressCallback } from '../core/progress';
 import { loadDefinition } from '../segments/definition-handle';
 import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
 import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';
@@ -54,14 +55,30 @@ function terminalLines(lines: readonly string[]): string {
   return lines.map(forTerminal).join('\n') + '\n';
 }
 
+/** Rows above which a hierarchy reports on standard error: its estimate first, then every 10%. */
+const HIERARCHY_REPORT_ROWS = 10_000;
+
+function hierarchyProgress(rows: number, io: Io): ProgressCallback | undefined {
+  if (rows <= HIERARCHY_REPORT_ROWS) return undefined;
+  let nextPercent = 10;
+  return (event) => {
+    if (event.done === 0 && event.detail) io.err(`kinsort fit: ${event.detail}\n`);
+    const percent = Math.floor((100 * event.done) / event.total);
+    if (percent >= nextPercent) {
+      io.err(`kinsort fit: agglomerating, ${percent}% of merges done\n`);
+      nextPercent = percent - (percent % 10) + 10;
+    }
+  };
+}
+
 /** Rows above which the summary silhouette uses a seeded sample, as compareK does. */
 const SUMMARY_SILHOUETTE_ROWS = 10_000;
 
 /** The summary's words for each method's headline figure. */
-const OBJECTIVE_WORDS: Record<string, string> = {
-  withinSS: 'within-segment sum of squares',
-  cost: 'total distance to the medoids',
-};
+const OBJECTIVE_WORDS: ReadonlyMap<string, string> = new Map([
+  ['withinSS', 'within-segment sum of squares'],
+  ['cost', 'total distance to the medoids'],
+]);
 
 /** A choice given on the command line: the error names the command and the flag the user typed. */
 function flagChoice<T extends string>(command: string, flag: string, value: unknown, allowed: readonly T[], what: string): T {
@@ -69,20 +86,20 @@ function flagChoice<T extends string>(command: string, flag: string, value: unkn
     return checkChoice(value, allowed, what);
   } catch (e) {
     if (!(e instanceof KinsortError)) throw e;
-    const known = flag === 'metric' && !(allowed as readonly string[]).includes(String(value)) ? METRIC_ELSEWHERE[String(value)] ?? '' : '';
+    const known = flag === 'metric' && !(allowed as readonly string[]).includes(String(value)) ? METRIC_ELSEWHERE.get(String(value)) ?? '' : '';
     throw new KinsortError(`${command} --${flag}: ${e.message}${known}`, e.code);
   }
 }
 
 // Metrics the library has but a definition file cannot carry: say so, and where they do work.
-const METRIC_ELSEWHERE: Record<string, string> = {
-  gower:
-    ' Gower k-medoids runs in the fluent layer (prepared.kmedoids({ k, metric: \'gower\' })), but a definition file assigns new rows and writes SQL with the metrics above only.',
-  cosine: ' A definition file assigns new rows and writes SQL with the metrics above only.',
-  correlation: ' A definition file assigns new rows and writes SQL with the metrics above only.',
-  chebyshev: ' A definition file assigns new rows and writes SQL with the metrics above only.',
-  minkowski: ' A definition file assigns new rows and writes SQL with the metrics above only.',
-};
+// A Map: the user's word is looked up, and a plain object would answer "constructor" too.
+const METRIC_ELSEWHERE: ReadonlyMap<string, string> = new Map([
+  ['gower', ' Gower k-medoids runs in the fluent layer (prepared.kmedoids({ k, metric: \'gower\' })), but a definition file assigns new rows and writes SQL with the metrics above only.'],
+  ['cosine', ' A definition file assigns new rows and writes SQL with the metrics above only.'],
+  ['correlation', ' A definition file assigns new rows and writes SQL with the metrics above only.'],
+  ['chebyshev', ' A definition file assigns new rows and writes SQL with the metrics above only.'],
+  ['minkowski', ' A definition file assigns new rows and writes SQL with the metrics above only.'],
+]);
 
 function refuse(message: string): never {
   throw new KinsortError(message, 'bad-option');
@@ -133,7 +150,7 @@ export function fitCommand(args: string[], io: Io): number {
           : refuse('fit: k-means works with euclidean distance only; drop --metric or use --method kmedoids.'))
       : method === 'kmedoids'
         ? prepared.kmedoids({ k, metric })
-        : prepared.agglomerate({ method: linkage, metric }).cut({ k });
+        : prepared.agglomerate({ method: linkage, metric, onProgress: hierarchyProgress(prepared.data.matrix.rows, io) }).cut({ k });
   const definition = seg.definition({ note: optionalString(values, 'note') });
   writeFile(out, definition.toJSON(), 'the definition');
 
@@ -147,7 +164,7 @@ export function fitCommand(args: string[], io: Io): number {
   }
   for (const imp of report.imputed) lines.push(`imputed ${imp.count} missing value(s) in ${imp.column} with ${imp.value}`);
   lines.push(`segment sizes: ${definition.definition.segments.map((s) => `${s.number}: ${s.size}`).join(', ')}`);
-  lines.push(`${OBJECTIVE_WORDS[seg.objective.name] ?? seg.objective.name}: ${Number(seg.objective.value.toPrecision(6))}`);
+  lines.push(`${OBJECTIVE_WORDS.get(seg.objective.name) ?? seg.objective.name}: ${Number(seg.objective.value.toPrecision(6))}`);
   if (k >= 2 && k < seg.ids.length) {
     // The silhouette is measured in the space the fit used: k-means is always euclidean.
     const silhouetteMetric = method === 'kmeans' ? 'euclidean' : (metric ?? 'euclidean');
