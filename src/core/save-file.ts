@@ -13,8 +13,8 @@ function failure(file: string, what: string, e: unknown): KinsortError {
     code === 'ENOTDIR' ? 'part of the path is a file, not a folder' :
     code === 'EACCES' || code === 'EPERM' ? 'permission denied' :
     code === 'ENOENT' ? 'the folder cannot be created there' :
-    code ?? (e as Error).message;
-  return new KinsortError(`cannot save ${what} to "${file}": ${why}.`, 'bad-input');
+    (e as Error).message;
+  return new KinsortError(`cannot write ${what} to "${file}": ${why}${code ? ` (${code})` : ''}.`, 'bad-input');
 }
 
 /** Create `folder` and its missing parents, one level at a time (never loops). */

@@ -60,7 +60,7 @@ export function loadDefinition(source: string | object): DefinitionHandle {
   if (typeof source === 'string') {
     if (looksLikeJsonText(source) || source.trim() === '') return definitionHandle(readDefinition(source));
     // A regular file of bounded size only (a FIFO or /dev/zero would never return).
-    const text = readRegularTextFile(source, 'loadDefinition: definition file');
+    const text = readRegularTextFile(source, 'loadDefinition: cannot read');
     return definitionHandle(readDefinition(text, `loadDefinition("${source}")`));
   }
   if (source === null || typeof source !== 'object') {

@@ -127,7 +127,7 @@ export function readCsvFile(path: string, options?: ReadTableOptions): Table {
 /** A CSV file's header and cells: a regular file only, of bounded size (file-text.ts). */
 function csvFileColumns(path: unknown, delimiter: string | undefined): RawColumns {
   if (typeof path !== 'string' || path === '') throw new KinsortError('readCsvFile: give a file path.', 'bad-argument');
-  const text = readRegularTextFile(path, 'CSV file');
+  const text = readRegularTextFile(path, 'Cannot read CSV file');
   return { ...parseCsvText(text, delimiter), source: `CSV file "${path}"` };
 }
 

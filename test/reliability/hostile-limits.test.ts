@@ -75,8 +75,8 @@ describe('reading files: regular files only, bounded', () => {
   it('a file larger than the bound is refused, naming the bound; a file under it reads', () => {
     const file = join(dir, 'big.csv');
     writeFileSync(file, 'id,x\n' + 'a,1\n'.repeat(1000));
-    refusal(() => readRegularTextFile(file, 'CSV file', 1000), 'larger than 1,000 bytes');
-    expect(readRegularTextFile(file, 'CSV file', 10_000).length).toBe(4005);
+    refusal(() => readRegularTextFile(file, 'Cannot read CSV file', 1000), 'is larger than 1,000 bytes');
+    expect(readRegularTextFile(file, 'Cannot read CSV file', 10_000).length).toBe(4005);
     refusal(() => readCsvFile(join(dir, 'absent.csv')), 'absent.csv', 'no such file');
   });
 });
