@@ -187,11 +187,10 @@ function summarySilhouette(seg: Segmentation, metric: 'euclidean' | 'manhattan' 
   }
   const sample = silhouetteSample(seg.data.matrix, SUMMARY_SILHOUETTE_ROWS, seed)!;
   const labels = Int32Array.from(sample.indices, (i) => seg.assignment[i]);
-  const value = silhouette(sample.rows, labels, { metric }).average;
-  return (
-    `average silhouette (${metric}, on a seeded sample of ${SUMMARY_SILHOUETTE_ROWS.toLocaleString('en-US')} of ` +
-    `${n.toLocaleString('en-US')} rows; --silhouette full for all): ${Number(value.toPrecision(4))}`
-  );
+  const where = `${metric}, on a seeded sample of ${SUMMARY_SILHOUETTE_ROWS.toLocaleString('en-US')} of ${n.toLocaleString('en-US')} rows; --silhouette full for all`;
+  // A segment of a handful of rows may miss the sample entirely; one segment has no silhouette.
+  if (new Set(labels).size < 2) return `average silhouette (${where}): not measured, the sample holds one segment only`;
+  return `average silhouette (${where}): ${Number(silhouette(sample.rows, labels, { metric }).average.toPrecision(4))}`;
 }
 
 export function assignCommand(args: string[], io: Io): number {

@@ -54,6 +54,9 @@ export function editDistance(a: string, b: string): number {
  */
 export const SUGGESTION_MAX_LENGTH = 200;
 
+/** Most character comparisons one suggestion may cost (many long candidates: stop looking). */
+const SUGGESTION_WORK = 20_000_000;
+
 /** The closest candidate to `name`, when it is close enough to be a likely typo. */
 export function closestName(name: string, candidates: readonly string[]): string | undefined {
   if (name.length > SUGGESTION_MAX_LENGTH) return undefined;
@@ -61,9 +64,12 @@ export function closestName(name: string, candidates: readonly string[]): string
   const allowed = Math.max(2, Math.floor(name.length / 3));
   let best: string | undefined;
   let bestDistance = Infinity;
+  let work = 0;
   for (const candidate of candidates) {
     // The distance is at least the difference in length: skip what cannot be close enough.
     if (Math.abs(candidate.length - name.length) > allowed) continue;
+    work += (name.length + 1) * (candidate.length + 1);
+    if (work > SUGGESTION_WORK) break;
     const d = editDistance(lower, candidate.toLowerCase());
     if (d < bestDistance) {
       bestDistance = d;

@@ -165,3 +165,13 @@ describe('terminal text: one escaping helper', () => {
     expect(forTerminal('名前 é 😀')).toBe('名前 é 😀');
   });
 });
+
+describe('"did you mean" among many long candidates is bounded too', () => {
+  it('50,000 candidates of 190 characters: an answer without the 1.8e9 comparisons', () => {
+    const candidates = Array.from({ length: 50_000 }, (_, i) => `${'c'.repeat(180)}${String(i).padStart(10, '0')}`);
+    // Whatever it suggests must be a real candidate within the typo allowance, or nothing.
+    const guess = closestName(`${'c'.repeat(180)}000000001x`, candidates);
+    expect(guess === undefined || candidates.includes(guess)).toBe(true);
+    expect(closestName('trps', ['trips', ...candidates])).toBe('trips');
+  });
+});
