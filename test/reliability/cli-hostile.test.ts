@@ -170,4 +170,12 @@ describe('kinsort fit: the summary silhouette on many rows', () => {
     // The sample is 5/6 of the rows: the two averages agree closely.
     expect(Math.abs(value(sampled.stdout) - value(full.stdout))).toBeLessThan(0.02);
   }, 120_000);
+
+  it('a Ward hierarchy above 10,000 rows states its work up front on standard error, then its progress', () => {
+    const r = kinsort('fit', at('many.csv'), ...USE.map((a) => (a === 'kmeans' ? 'hierarchy' : a)), '--out', at('many-tree.json'));
+    expect(r.status, r.stderr).toBe(0);
+    const lines = r.stderr.trim().split('\n');
+    expect(lines[0]).toBe('kinsort fit: ward linkage on 12,000 rows: about 1.4e8 distance evaluations (4.3e8 multiply-adds); the work grows with the square of the rows');
+    expect(lines.slice(1)).toEqual(Array.from({ length: 10 }, (_, i) => `kinsort fit: agglomerating, ${(i + 1) * 10}% of merges done`));
+  }, 120_000);
 });
