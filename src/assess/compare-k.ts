@@ -146,7 +146,8 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
   };
 }
 
-function silhouetteSample(m: Matrix, limit: number, seed: Seed): { indices: Int32Array; rows: Matrix } | undefined {
+/** A seeded sample of `limit` rows (in row order) for the silhouette; undefined when all rows fit. */
+export function silhouetteSample(m: Matrix, limit: number, seed: Seed): { indices: Int32Array; rows: Matrix } | undefined {
   if (m.rows <= limit) return undefined;
   const random = createRandom(seed).fork('silhouette sample');
   const order = random.shuffle(Int32Array.from({ length: m.rows }, (_, i) => i));

@@ -18,6 +18,7 @@ export function parseCommandArgs(command: string, args: readonly string[], spec:
   // strict: false so that we word the errors ourselves (with a did-you-mean) instead of node.
   const { values, positionals, tokens } = parseArgs({ args: [...args], options, strict: false, allowPositionals: true, tokens: true });
   const names = Object.keys(options);
+  const seen = new Set<string>();
   for (const token of tokens ?? []) {
     if (token.kind !== 'option') continue;
     if (!names.includes(token.name)) {
@@ -27,7 +28,12 @@ export function parseCommandArgs(command: string, args: readonly string[], spec:
         'unknown-option',
       );
     }
-    const want: OptionSpec['type'] = (options as Record<string, OptionSpec>)[token.name].type;
+    // A flag given twice would silently take the last value: say so instead.
+    if (seen.has(token.name)) {
+      throw new KinsortError(`${command}: option --${token.name} is given more than once; give it once.`, 'bad-option');
+    }
+    seen.add(token.name);
+    const want: OptionSpec['type'] = new Map(Object.entries(options as Record<string, OptionSpec>)).get(token.name)!.type;
     if (want === 'string' && token.value === undefined) {
       throw new KinsortError(`${command}: option --${token.name} needs a value, e.g. --${token.name} VALUE.`, 'bad-option');
     }

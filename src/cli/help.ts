@@ -3,11 +3,13 @@ export const MAIN_HELP = `kinsort — segments from a table of entities
 
 Usage:
   kinsort fit DATA.csv --id COL --use A,B,C --method kmeans|kmedoids|hierarchy --k N --out DEF.json
-  kinsort assign DEF.json DATA.csv [--out SCORED.csv]
+  kinsort assign DEF.json DATA.csv [--out SCORED.csv] [--for spreadsheet|database]
   kinsort sql DEF.json --table NAME [--id-column COL] [--out QUERY.sql]
 
 Run "kinsort COMMAND --help" for the options of each command.
-Errors print one line to standard error and exit with status 2.
+Errors print one line to standard error and exit with status 2. Text from the data echoed to
+the terminal (ids, names, paths) has its control characters shown as escapes (\\n, \\e, …).
+Each option may be given once; --out may not name a file the command reads.
 `;
 
 export const FIT_HELP = `kinsort fit DATA.csv --id COL --use A,B,C --method M --k N --out DEF.json [options]
@@ -32,13 +34,16 @@ Options:
   --linkage L         hierarchy: ward (default) | single | complete | average | weighted | centroid | median
   --metric D          euclidean (default) | manhattan | sqeuclidean — k-medoids and hierarchy
   --note TEXT         a note stored in the definition
+  --silhouette S      sample (default): above 10,000 rows the summary silhouette is measured on a
+                      seeded sample of 10,000 rows, as compareK does, and says so | full: all rows
+                      (n² distances: minutes at 200,000 rows)
 
 A hierarchy cut assigns new rows to the nearest segment mean in the prepared space.
 Prints the segment sizes, the within-segment sum of squares (k-means, hierarchy) or the
 total distance to the medoids (k-medoids), and the average silhouette.
 `;
 
-export const ASSIGN_HELP = `kinsort assign DEF.json DATA.csv [--out SCORED.csv]
+export const ASSIGN_HELP = `kinsort assign DEF.json DATA.csv [--out SCORED.csv] [--for spreadsheet|database]
 
 Apply a definition to the rows of a CSV table: the stored preparation, then the nearest segment.
 Writes a CSV with the id column, segment (1-based), distance and far (1 when farther than every
@@ -46,6 +51,12 @@ segment's 99th-percentile training distance); without --out it goes to standard 
 A row that cannot be prepared (a missing value under the stored policy, an unknown binary level,
 text in a numeric column) keeps its line with empty segment, distance and far, and is named by id
 on standard error. Extra columns are ignored (said once).
+
+  --out SCORED.csv    write to a file instead of standard output (not the definition or data file)
+  --for T             spreadsheet (default): an id a spreadsheet would run as a formula (starting
+                      with = + - @, a tab or a carriage return, other than a plain number such as
+                      -1.5) is written with a leading apostrophe, so it shows as text |
+                      database: every id exactly as given, to load and join on the source table
 `;
 
 export const SQL_HELP = `kinsort sql DEF.json --table NAME [--id-column COL] [--out QUERY.sql]

@@ -3,20 +3,24 @@
 import { KinsortError, didYouMean } from '../core/errors';
 import { assignCommand, fitCommand, Io, sqlCommand } from './commands';
 import { MAIN_HELP } from './help';
+import { forTerminal } from '../core/terminal-text';
 
-const COMMANDS: Record<string, (args: string[], io: Io) => number> = {
-  fit: fitCommand,
-  assign: assignCommand,
-  sql: sqlCommand,
-};
+// A Map, so that "constructor", "toString" or "__proto__" are unknown commands like any other
+// word, not properties every plain object inherits.
+const COMMANDS: ReadonlyMap<string, (args: string[], io: Io) => number> = new Map([
+  ['fit', fitCommand],
+  ['assign', assignCommand],
+  ['sql', sqlCommand],
+]);
 
 const processIo: Io = {
   out: (text) => process.stdout.write(text),
   err: (text) => process.stderr.write(text),
 };
 
+/** One line, with any control characters from the user's text (ids, names, paths) escaped. */
 function oneLine(message: string): string {
-  return message.replace(/\s*\n\s*/g, ' ').trim();
+  return forTerminal(message.replace(/\s*\n\s*/g, ' ').trim());
 }
 
 /** Run the command line; returns the exit status (0 ok, 2 on any error). */
@@ -27,9 +31,9 @@ export function run(argv: readonly string[], io: Io = processIo): number {
       io.out(MAIN_HELP);
       return command === undefined ? 2 : 0;
     }
-    const handler = COMMANDS[command];
+    const handler = COMMANDS.get(command);
     if (handler === undefined) {
-      const names = Object.keys(COMMANDS);
+      const names = [...COMMANDS.keys()];
       throw new KinsortError(`unknown command "${command}".${didYouMean(command, names)} Commands: ${names.join(', ')}.`, 'bad-argument');
     }
     return handler(rest, io);

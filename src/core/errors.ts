@@ -48,19 +48,34 @@ export function editDistance(a: string, b: string): number {
   return previous[n];
 }
 
+/**
+ * Names longer than this get no suggestion: the edit distance costs length × length, and a typo
+ * in a 200-character name is not what a suggestion helps with (a 1 MB name took minutes).
+ */
+export const SUGGESTION_MAX_LENGTH = 200;
+
+/** Most character comparisons one suggestion may cost (many long candidates: stop looking). */
+const SUGGESTION_WORK = 20_000_000;
+
 /** The closest candidate to `name`, when it is close enough to be a likely typo. */
 export function closestName(name: string, candidates: readonly string[]): string | undefined {
+  if (name.length > SUGGESTION_MAX_LENGTH) return undefined;
   const lower = name.toLowerCase();
+  const allowed = Math.max(2, Math.floor(name.length / 3));
   let best: string | undefined;
   let bestDistance = Infinity;
+  let work = 0;
   for (const candidate of candidates) {
+    // The distance is at least the difference in length: skip what cannot be close enough.
+    if (Math.abs(candidate.length - name.length) > allowed) continue;
+    work += (name.length + 1) * (candidate.length + 1);
+    if (work > SUGGESTION_WORK) break;
     const d = editDistance(lower, candidate.toLowerCase());
     if (d < bestDistance) {
       bestDistance = d;
       best = candidate;
     }
   }
-  const allowed = Math.max(2, Math.floor(name.length / 3));
   return bestDistance <= allowed ? best : undefined;
 }
 

@@ -5,6 +5,7 @@ import { levelKey } from '../table/cells';
 import type { Cell } from '../table/types';
 import type { PreparedColumn, UnseenLevel } from './types';
 import { levelCodes, levelIndex, numericCell, requireLevel } from './values';
+import { guardPreparedWidth } from './width-guard';
 
 export interface TransformInput {
   columns: readonly PreparedColumn[];
@@ -26,6 +27,7 @@ export function transformRows(input: TransformInput): TransformOutput {
   const { columns, rows, ids } = input;
   const p = columns.reduce((s, c) => s + c.features.length, 0);
   const n = rows.length;
+  guardPreparedWidth(columns, n, 'prepare');
   const data = new Float64Array(n * p);
   const mixed: MixedColumn[] = [];
   const unseen: UnseenLevel[] = [];

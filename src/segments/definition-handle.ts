@@ -1,5 +1,6 @@
 // A loaded definition: assign new rows, write SQL, write the file again.
-import { readFileSync, writeFileSync } from 'fs';
+import { saveText } from '../core/save-file';
+import { readRegularTextFile } from '../table/file-text';
 import { KinsortError } from '../core/errors';
 import { Matrix, toMatrix } from '../core/matrix';
 import { writeDefinitionJson } from './definition-json';
@@ -39,12 +40,8 @@ export function definitionHandle(definition: SegmentDefinition): DefinitionHandl
     toSql: (options) => definitionToSql(definition, options),
     toJSON: () => writeDefinitionJson(definition),
     save(path: string) {
-      if (typeof path !== 'string' || path === '') throw new KinsortError('save: give a file path.', 'bad-argument');
-      try {
-        writeFileSync(path, writeDefinitionJson(definition), 'utf8');
-      } catch (e) {
-        throw new KinsortError(`save: cannot write "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`, 'bad-input');
-      }
+      // The one rule of every save (core/save-file.ts); returns the path as given.
+      saveText(path, writeDefinitionJson(definition), 'the definition');
       return path;
     },
     matchesTraining(ids, rows) {
@@ -62,12 +59,8 @@ export function definitionHandle(definition: SegmentDefinition): DefinitionHandl
 export function loadDefinition(source: string | object): DefinitionHandle {
   if (typeof source === 'string') {
     if (looksLikeJsonText(source) || source.trim() === '') return definitionHandle(readDefinition(source));
-    let text: string;
-    try {
-      text = readFileSync(source, 'utf8');
-    } catch (e) {
-      throw new KinsortError(`loadDefinition: cannot read "${source}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message}).`, 'bad-input');
-    }
+    // A regular file of bounded size only (a FIFO or /dev/zero would never return).
+    const text = readRegularTextFile(source, 'loadDefinition: cannot read');
     return definitionHandle(readDefinition(text, `loadDefinition("${source}")`));
   }
   if (source === null || typeof source !== 'object') {

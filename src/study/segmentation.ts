@@ -1,6 +1,7 @@
 // A fitted segmentation: the assignment together with the ids and the preparation it came from,
 // the analyst's names, and every way to look at it or hand it on. k-means, k-medoids and a cut of
 // a hierarchy all give this one kind of object.
+import { saveText } from '../core/save-file';
 import { KinsortError } from '../core/errors';
 import { checkInteger, checkOptions } from '../core/options';
 import type { Seed } from '../random';
@@ -277,7 +278,9 @@ export class Segmentation {
       markdown,
       html,
       save: (path: string) => {
-        require('fs').writeFileSync(path, path.toLowerCase().endsWith('.md') ? markdown() : html(), 'utf8');
+        // The one rule of every save (core/save-file.ts): folders made, failures name the path.
+        const markdownFile = typeof path === 'string' && path.toLowerCase().endsWith('.md');
+        saveText(path, markdownFile ? markdown() : html(), 'the write-up');
         return path;
       },
     };

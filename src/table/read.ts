@@ -2,7 +2,8 @@
 import { KinsortError, checkChoice } from '../core/errors';
 import { checkOptions } from '../core/options';
 import { DEFAULT_MISSING_MARKERS, normaliseCell } from './cells';
-import { parseCsvText, readCsvText, type RawColumns } from './csv';
+import { parseCsvText, type RawColumns } from './csv';
+import { readRegularTextFile } from './file-text';
 import { convertNumbers, inferType } from './infer';
 import { checkHeader, requireColumn } from './names';
 import { rawColumnsFromShape } from './shapes';
@@ -120,7 +121,14 @@ export function readTable(input: unknown, options?: ReadTableOptions): Table {
 /** Read a CSV file (UTF-8; BOM stripped; `,` `;` or tab detected) into a Table. */
 export function readCsvFile(path: string, options?: ReadTableOptions): Table {
   const opts = checkOptions(options, READ_OPTIONS, 'readCsvFile');
-  return buildTable(readCsvText(path, opts.delimiter), opts);
+  return buildTable(csvFileColumns(path, opts.delimiter), opts);
+}
+
+/** A CSV file's header and cells: a regular file only, of bounded size (file-text.ts). */
+function csvFileColumns(path: unknown, delimiter: string | undefined): RawColumns {
+  if (typeof path !== 'string' || path === '') throw new KinsortError('readCsvFile: give a file path.', 'bad-argument');
+  const text = readRegularTextFile(path, 'Cannot read CSV file');
+  return { ...parseCsvText(text, delimiter), source: `CSV file "${path}"` };
 }
 
 /** The column named `name`, or a clear error with a "did you mean". */

@@ -1,6 +1,5 @@
 // Several views on one offline page (a report): the plotting bundle is inlined once for all.
-import * as fs from 'fs';
-import * as path from 'path';
+import { saveText } from '../core/save-file';
 import { KinsortError } from '../core/errors';
 import { escapeHtml } from './escape';
 import { plottingScript } from '../notebook/plotting';
@@ -29,8 +28,5 @@ export function viewsPage(title: string, views: readonly View[], intro?: string)
 
 /** Write viewsPage() to `file`; returns the absolute path. */
 export function saveViewsPage(file: string, title: string, views: readonly View[], intro?: string): string {
-  const target = path.resolve(file);
-  fs.mkdirSync(path.dirname(target), { recursive: true });
-  fs.writeFileSync(target, viewsPage(title, views, intro));
-  return target;
+  return saveText(file, viewsPage(title, views, intro), 'the page of views');
 }

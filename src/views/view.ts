@@ -2,8 +2,7 @@
 // off) and, when there is one, a plotly figure that replaces the stand-in once the bundle is
 // on the page. The script placed in each fragment is constant code; data travels only as
 // escaped JSON.
-import * as fs from 'fs';
-import * as path from 'path';
+import { saveText } from '../core/save-file';
 import { escapeHtml, scriptJson, slug } from './escape';
 import { VIEW_CSS } from './style';
 import { showFragment, plottingScript, savedFileName } from '../notebook/display';
@@ -82,10 +81,7 @@ export function makeView(parts: ViewParts): View {
     html,
     svg: () => parts.svg ?? parts.still,
     save(file: string): string {
-      const target = path.resolve(file);
-      fs.mkdirSync(path.dirname(target), { recursive: true });
-      fs.writeFileSync(target, html());
-      return target;
+      return saveText(file, html(), `the view "${parts.title}"`);
     },
     show(): void {
       showFragment({

@@ -122,7 +122,9 @@ describe('empty, one row, identical rows, constant columns', () => {
     expect(kmeans(same, { k: 1 }).withinSS).toBe(0);
     const tree = agglomerate(same, { method: 'average' });
     expect(tree.merges.every((m) => m.height === 0)).toBe(true);
-    expect(new Set(tree.cut({ k: 2 })).size).toBe(2);
+    // A cut never splits identical rows (issue 14): k above the distinct rows is refused as well.
+    refusal(() => tree.cut({ k: 2 }), 'height 0', 'at most 1');
+    expect(Array.from(tree.cut({ k: 1 }))).toEqual([0, 0, 0]);
     // Rousseeuw (1987): s(i) = 0 when a(i) = b(i) (here both 0).
     expect(Array.from(silhouette([[1, 1], [1, 1], [1, 1], [1, 1]], [0, 1, 0, 1]).values)).toEqual([0, 0, 0, 0]);
   });

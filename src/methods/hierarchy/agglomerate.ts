@@ -6,7 +6,7 @@
 import { KinsortError, checkChoice } from '../../core/errors';
 import { Matrix, RowsInput, isMatrix, toMatrix } from '../../core/matrix';
 import { checkOptions } from '../../core/options';
-import { ProgressCallback } from '../../core/progress';
+import type { ProgressCallback } from '../../core/progress';
 import { Dissimilarity, guardPairwise, isDissimilarity, pairOf } from '../../measure/condensed';
 import { dissimilarity } from '../../measure/dissimilarity';
 import { MetricName, ROW_METRICS, checkExponent, distanceFunction } from '../../measure/metrics';
@@ -18,6 +18,8 @@ import { singleFromCondensed, singleFromPairs, singleFromRowsEuclidean } from '.
 import { LinkageMethod, PairSource, Tree, buildTree } from './tree';
 import { wardFromVectors } from './ward-vectors';
 import { MergeTick, mergeTicker } from './ticker';
+import { agglomerationWork } from './work-estimate';
+import { report } from '../../core/progress';
 
 export const LINKAGE_METHODS: readonly LinkageMethod[] = ['single', 'complete', 'average', 'weighted', 'centroid', 'median', 'ward'];
 
@@ -61,6 +63,7 @@ export function agglomerate(input: RowsInput | Dissimilarity, options: Agglomera
         'bad-option',
       );
     }
+    announce(opts.progress, input.size, 1, method);
     return fromDissimilarity(input, method, mergeTicker(opts.progress, input.size, method));
   }
   const metric = prefixed(() => checkChoice(opts.metric ?? 'euclidean', ROW_METRICS, 'metric'));
@@ -70,7 +73,13 @@ export function agglomerate(input: RowsInput | Dissimilarity, options: Agglomera
   const rows = toMatrix(input as RowsInput, { what: `${WHERE}: rows`, minRows: 1 });
   if (rows.rows < 2) tooFew(rows.rows);
   if (rows.cols === 0) throw new KinsortError(`${WHERE}: the rows have no columns.`, 'empty');
+  announce(opts.progress, rows.rows, rows.cols, method);
   return fromRows(rows, method, metric, p, mergeTicker(opts.progress, rows.rows, method));
+}
+
+/** The first progress event, before any work: how much work is coming (work-estimate.ts). */
+function announce(progress: ProgressCallback | undefined, n: number, coordinates: number, method: string): void {
+  report(progress, { task: 'agglomerating', done: 0, total: Math.max(1, n - 1), detail: agglomerationWork(n, coordinates, method).summary });
 }
 
 function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: number | undefined, tick: MergeTick | undefined): Tree {

@@ -133,6 +133,25 @@ export function buildTree(
     return assignment;
   };
 
+  // A cut into k undoes the last k-1 merges; undoing one at height 0 would put leaves at
+  // dissimilarity 0 (identical rows) into different segments, which no reading can justify.
+  const refuseSplittingIdentical = (k: number, keep: number): void => {
+    let atZero = 0;
+    let undoneAtZero = false;
+    for (let i = 0; i < merges.length; i++) {
+      if (merges[i].height > 0) continue;
+      atZero++;
+      if (i >= keep) undoneAtZero = true;
+    }
+    if (undoneAtZero) {
+      throw new KinsortError(
+        `cut: k = ${k} would split leaves that join at height 0 (identical rows) into different segments; ` +
+          `the ${n} leaves hold only ${n - atZero} distinct ones, so k can be at most ${n - atZero}.`,
+        'bad-k',
+      );
+    }
+  };
+
   const cut = (spec: CutSpec): Int32Array => {
     checkOptions(spec, ['k', 'height'], 'cut');
     const hasK = spec !== null && typeof spec === 'object' && 'k' in spec && spec.k !== undefined;
@@ -149,6 +168,7 @@ export function buildTree(
         throw new KinsortError(`cut: k must be a whole number from 1 to ${n} (the number of rows); got ${describe(k)}.`, 'bad-k');
       }
       const keep = n - k;
+      refuseSplittingIdentical(k, keep);
       return segmentsFromMerges((i) => i < keep);
     }
     const given = (spec as { height: unknown }).height;

@@ -65,6 +65,7 @@ export function kmedoids(input: RowsInput | Dissimilarity, options: KmedoidsOpti
     }
     diss = input;
     checkCountForDissimilarity(opts.k, diss.size);
+    checkDistinctInDissimilarity(opts.k, diss);
   } else {
     if (!Array.isArray(input) && !isMatrix(input)) {
       throw new KinsortError('kmedoids: give rows (number[][] or a Matrix) or a dissimilarity.', 'bad-input');
@@ -101,6 +102,26 @@ export function kmedoids(input: RowsInput | Dissimilarity, options: KmedoidsOpti
     iterations: run.passes,
     metric: diss.metric,
   };
+}
+
+/**
+ * k at most the number of distinct rows (rows at dissimilarity 0 count once), as k-means and
+ * k-medoids on rows require: otherwise some segments stay empty. Compares each row with one
+ * representative per group found so far and stops at k groups, so the usual case is cheap.
+ */
+function checkDistinctInDissimilarity(k: number, diss: Dissimilarity): void {
+  const n = diss.size;
+  const representatives: number[] = [];
+  for (let i = 0; i < n && representatives.length < k; i++) {
+    if (representatives.every((r) => diss.get(r, i) > 0)) representatives.push(i);
+  }
+  if (representatives.length < k) {
+    throw new KinsortError(
+      `kmedoids: k = ${k} but the ${n} rows hold only ${representatives.length} distinct rows (rows at dissimilarity 0 count once); ` +
+        `k can be at most ${representatives.length} (each segment needs a row of its own).`,
+      'bad-k',
+    );
+  }
 }
 
 function checkCountForDissimilarity(k: unknown, n: number): void {

@@ -89,15 +89,23 @@ describe('hierarchy properties', () => {
     );
   }, PROPERTY_TIMEOUT_MS);
 
-  it('cut({ k }) gives exactly k segments for every k in 1..n, numbered by smallest row, even with ties', () => {
+  it('cut({ k }) gives exactly k segments for every k up to the distinct rows, numbered by smallest row, never splitting identical rows', () => {
     fc.assert(
       fc.property(shape, fc.constantFrom(...LINKAGE_METHODS), ({ seed, n, d }, method) => {
-        const tree = agglomerate(asMeasurements(tiedRows(seed, n, d)), { method });
+        const rows = tiedRows(seed, n, d);
+        const tree = agglomerate(asMeasurements(rows), { method });
+        const distinct = new Set(rows.map((r) => r.join(','))).size;
         for (let k = 1; k <= n; k++) {
+          if (k > distinct) {
+            // Issue 14: identical rows are never split across segments; such a k is refused.
+            expect(() => tree.cut({ k })).toThrow(`at most ${distinct}`);
+            continue;
+          }
           const labels = tree.cut({ k });
           expect(new Set(labels).size).toBe(k);
           // Numbered by first appearance in row order: the canonical form is the labelling itself.
           expect(Array.from(labels)).toEqual(canonical(labels));
+          for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (rows[i].join() === rows[j].join()) expect(labels[i]).toBe(labels[j]);
         }
       }),
       { numRuns: 80 },
