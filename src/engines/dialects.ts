@@ -1,0 +1,186 @@
+// The four dialects kinsort writes scoring SQL for. Each was run for real in the tests
+// (test/engines/): DuckDB (embedded), PostgreSQL 15, SQLite 3 (better-sqlite3) and ClickHouse 18.16
+// (two shards behind a Distributed table).
+import { KinsortError } from '../core/errors';
+import { DecimalMark, DialectName, DIALECT_NAMES, numberGrammar, SqlDialect } from './dialect';
+import { checkSqlText, powerOfTwoDecimal } from './sql-safety';
+
+/** Standard SQL quoting: double quotes around identifiers, single quotes around text, doubled inside. */
+function standardIdentifier(name: string): string {
+  return '"' + checkSqlText(name, 'the name').replace(/"/g, '""') + '"';
+}
+function standardString(text: string): string {
+  return "'" + checkSqlText(text, 'the text').replace(/'/g, "''") + "'";
+}
+
+/** JavaScript's shortest round-trip digits, always with an exponent ("1.5E0", "-3E-7"). */
+function exponentDigits(value: number): string {
+  if (!Number.isFinite(value)) {
+    // Reached from a damaged or overflowing definition (e.g. a farBeyond of 1e308 squared).
+    throw new KinsortError(`SQL: a figure of the definition comes out as ${value}, which SQL cannot hold; check the definition file.`, 'bad-definition');
+  }
+  const text = String(value === 0 ? 0 : value).toUpperCase();
+  return text.includes('E') ? text.replace('E+', 'E') : text + 'E0';
+}
+
+/** In standard SQL a literal with an exponent is approximate (a double), never an exact decimal. */
+function standardDouble(value: number): string {
+  const t = exponentDigits(value);
+  return value < 0 ? `(${t})` : t;
+}
+
+/** The text with its decimal comma (if that is the stored mark) written as a point, for a cast. */
+const dotted = (t: string, mark: DecimalMark) => (mark === ',' ? `replace(${t}, ',', '.')` : t);
+
+const digitsOnly = (x: string) => `rtrim(${x}, '0123456789') = ''`;
+
+/** A chain of two-argument (or n-argument, up to `width`) minima: text linear in the count. */
+function leastTree(exprs: readonly string[], width: number, fn: string): string {
+  let level = [...exprs];
+  while (level.length > 1) {
+    const next: string[] = [];
+    for (let i = 0; i < level.length; i += width) {
+      const group = level.slice(i, i + width);
+      next.push(group.length === 1 ? group[0] : `${fn}(${group.join(', ')})`);
+    }
+    level = next;
+  }
+  return level[0];
+}
+
+const duckdb: SqlDialect = {
+  name: 'duckdb',
+  title: 'DuckDB',
+  withClause: true,
+  quoteIdentifier: standardIdentifier,
+  quoteString: standardString,
+  doubleLiteral: standardDouble,
+  asText: (e) => `CAST(${e} AS VARCHAR)`,
+  trimSpaces: (e) => `trim(${e}, ' ')`,
+  // TRY_CAST: DuckDB may evaluate a CASE branch for rows the WHEN excludes; it never raises.
+  numberFromText: (t, mark) => {
+    const v = `TRY_CAST(${dotted(t, mark)} AS DOUBLE)`;
+    return `CASE WHEN regexp_full_match(${t}, ${standardString(numberGrammar(mark))}) AND isfinite(${v}) THEN ${v} END`;
+  },
+  least: (exprs) => leastTree(exprs, 100, 'LEAST'),
+  lowerAscii: (e) => `lower(${e})`,
+  caveats: [],
+};
+
+// PostgreSQL raises an error (for the whole query) on a double beyond the range, in either
+// direction, where JavaScript gives Infinity or 0. The text is first read as an exact NUMERIC and
+// compared with the exact rounding boundaries, so only in-range text reaches the double cast.
+const OVERFLOW_AT = (2n ** 1024n - 2n ** 970n).toString(); // halfway between the largest double and 2^1024
+const UNDERFLOW_AT = powerOfTwoDecimal(-1075); // halfway between 0 and the least subnormal
+const pgDouble = (v: number) => `'${exponentDigits(v)}'::float8`;
+
+const postgres: SqlDialect = {
+  name: 'postgres',
+  title: 'PostgreSQL',
+  withClause: true,
+  quoteIdentifier: standardIdentifier,
+  // With a backslash inside, an E'' literal: its meaning does not depend on standard_conforming_strings.
+  quoteString: (text) =>
+    /\\/.test(checkSqlText(text, 'the text')) ? "E'" + text.replace(/\\/g, '\\\\').replace(/'/g, "''") + "'" : standardString(text),
+  // A bare 1.5E0 is NUMERIC in PostgreSQL (exact decimal arithmetic): every figure is typed double.
+  doubleLiteral: pgDouble,
+  asText: (e) => `CAST(${e} AS TEXT)`,
+  trimSpaces: (e) => `btrim(${e}, ' ')`,
+  numberFromText: (text, mark) => {
+    const t = dotted(text, mark);
+    const exact = `abs(CAST(${t} AS NUMERIC))`;
+    return [
+      `CASE WHEN ${text} !~ ${standardString(`^${numberGrammar(mark)}$`)} THEN NULL`,
+      // An exponent of five digits or more (beyond NUMERIC's range): 0 if the digits are all zero or it is negative.
+      `WHEN ${t} ~ '[eE][+-]?0*[1-9][0-9]{4,}$' THEN CASE WHEN ${t} ~ '^-?[0.]*[eE]' OR ${t} ~ '[eE]-' THEN ${pgDouble(0)} END`,
+      `WHEN ${exact} >= ${OVERFLOW_AT} THEN NULL`,
+      `WHEN ${exact} <= ${UNDERFLOW_AT} THEN ${pgDouble(0)}`,
+      `ELSE CAST(${t} AS DOUBLE PRECISION) END`,
+    ].join(' ');
+  },
+  least: (exprs) => leastTree(exprs, 100, 'LEAST'),
+  lowerAscii: (e) => `lower(${e})`,
+  caveats: [],
+};
+
+// SQLite has no regular expressions without a loaded extension: the grammar is checked by parts.
+function sqliteNumber(text: string, mark: DecimalMark): string {
+  // With a decimal comma, a '.' is not allowed and the ',' is checked (and read) as the '.'.
+  const t = dotted(text, mark);
+  const m = `substr(${t}, 1 + (substr(${t}, 1, 1) = '-'))`; // without one leading minus
+  const p = `instr(lower(${m}) || 'e', 'e')`; // position of the exponent mark (or one past the end)
+  const mant = `substr(${m}, 1, ${p} - 1)`;
+  const exp = `substr(${m}, ${p} + 1)`;
+  const q = `instr(${mant} || '.', '.')`;
+  const int = `substr(${mant}, 1, ${q} - 1)`;
+  const frac = `substr(${mant}, ${q} + 1)`;
+  const expDigits = `substr(${exp}, 1 + (substr(${exp}, 1, 1) IN ('+', '-')))`;
+  const valid = [
+    `(${int} = '0' OR (substr(${int}, 1, 1) BETWEEN '1' AND '9' AND ${digitsOnly(int)}))`,
+    `(${q} > length(${mant}) OR (${frac} <> '' AND ${digitsOnly(frac)}))`,
+    `(${p} > length(${m}) OR (${expDigits} <> '' AND ${digitsOnly(expDigits)}))`,
+  ].join(' AND ');
+  const v = `CAST(${t} AS REAL)`;
+  const noDot = mark === ',' ? `instr(${text}, '.') = 0 AND ` : '';
+  return `CASE WHEN ${noDot}${valid} AND abs(${v}) <= 1.7976931348623157E308 THEN ${v} END`;
+}
+
+const sqlite: SqlDialect = {
+  name: 'sqlite',
+  title: 'SQLite',
+  withClause: true,
+  quoteIdentifier: standardIdentifier,
+  quoteString: standardString,
+  doubleLiteral: standardDouble,
+  // A REAL cast to text keeps 15 digits; printf with 17 significant digits reads back exactly.
+  asText: (e) => `CASE WHEN typeof(${e}) = 'real' THEN printf('%!.17g', ${e}) ELSE CAST(${e} AS TEXT) END`,
+  trimSpaces: (e) => `trim(${e}, ' ')`,
+  numberFromText: sqliteNumber,
+  // The many-argument scalar min; SQLite caps a call's arguments, hence groups of 100.
+  least: (exprs) => leastTree(exprs, 100, 'min'),
+  lowerAscii: (e) => `lower(${e})`,
+  caveats: [],
+};
+
+function clickhouseString(text: string): string {
+  // ClickHouse reads backslash escapes inside string literals: escape the backslash itself too.
+  return "'" + checkSqlText(text, 'the text').replace(/\\/g, '\\\\').replace(/'/g, "\\'") + "'";
+}
+
+const clickhouse: SqlDialect = {
+  name: 'clickhouse',
+  title: 'ClickHouse',
+  withClause: false,
+  quoteIdentifier: (name) => '`' + checkSqlText(name, 'the name').replace(/\\/g, '\\\\').replace(/`/g, '\\`') + '`',
+  quoteString: clickhouseString,
+  doubleLiteral: (value) => {
+    // ClickHouse 18 cannot parse a subnormal literal: write it as an exact product of two normal ones.
+    if (value !== 0 && Math.abs(value) < 2.2250738585072014e-308) {
+      return `(${standardDouble(value * 2 ** 600)} * ${standardDouble(2 ** -600)})`;
+    }
+    return standardDouble(value);
+  },
+  asText: (e) => `toString(${e})`,
+  trimSpaces: (e) => `replaceRegexpAll(${e}, '^ +| +$', '')`,
+  numberFromText: (t, mark) => {
+    const v = `toFloat64OrNull(${mark === ',' ? `replaceAll(${t}, ',', '.')` : t})`;
+    return `CASE WHEN match(${t}, ${clickhouseString(`^${numberGrammar(mark)}$`)}) AND isFinite(${v}) THEN ${v} END`;
+  },
+  // Two-argument least in a balanced tree: linear text, logarithmic depth.
+  least: (exprs) => leastTree(exprs, 2, 'least'),
+  lowerAscii: (e) => `lower(${e})`,
+  caveats: [
+    'ClickHouse 18 reads a subnormal number (below 2.2e-308 in size) in text as 0, where JavaScript keeps it.',
+    'ClickHouse 18 prints a Float64 column as text with up to one unit in the last place of error; keep raw cells in String columns for exact agreement.',
+  ],
+};
+
+const DIALECTS: Record<DialectName, SqlDialect> = { duckdb, postgres, sqlite, clickhouse };
+
+export function dialectNamed(name: unknown): SqlDialect {
+  if (typeof name === 'string' && Object.prototype.hasOwnProperty.call(DIALECTS, name)) return DIALECTS[name as DialectName];
+  throw new KinsortError(
+    `SQL: unknown dialect ${JSON.stringify(String(name)).slice(0, 60)}; kinsort writes SQL for ${DIALECT_NAMES.join(', ')}.`,
+    'bad-option',
+  );
+}
