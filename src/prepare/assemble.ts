@@ -1,5 +1,6 @@
 // Shared last step of fitting and re-applying: run the transform and build PreparedData.
 import { createMatrix } from '../core/matrix';
+import { cellNumber, type DecimalMark } from '../table/cells';
 import type { Cell, Table } from '../table/types';
 import { transformRows } from './transform';
 import type { Preparation, PreparationReport, PreparedData } from './types';
@@ -25,14 +26,19 @@ export function assemble(input: AssembleInput): PreparedData {
     rows: kept,
     ids: input.ids,
     where: input.where,
+    decimalMark: preparation.decimalMark,
   });
   const ids = pick(input.ids, kept);
   const featureNames = [...preparation.featureNames];
   const matrix = createMatrix(kept.length, featureNames.length, data, { rowLabels: ids, colNames: featureNames });
-  const profile: Record<string, Cell[]> = {};
+  // Keys come from the data: a null-prototype object, so a column named "__proto__" is a column.
+  const profile: Record<string, Cell[]> = Object.create(null);
+  const specs = new Map(preparation.columns.map((c) => [c.name, c]));
   for (const name of input.profileColumns) {
-    const values = table.columns.find((c) => c.name === name)!.values;
-    profile[name] = pick(values, kept);
+    const column = table.columns.find((c) => c.name === name)!;
+    const values = pick(column.values, kept);
+    const numeric = (specs.get(name)?.type ?? column.declared ?? column.inferred) === 'numeric';
+    profile[name] = numeric ? asNumbers(values, preparation.decimalMark) : values;
   }
   const report: PreparationReport = { ...input.report, keptRows: kept.length, unseenLevels: unseen };
   return {
@@ -45,6 +51,22 @@ export function assemble(input: AssembleInput): PreparedData {
     mixed: { kind: 'mixed', rows: kept.length, columns: mixed, rowLabels: ids },
     profile: { columns: profile },
   };
+}
+
+/** A numeric column's cells as numbers for the profile, when every present cell is one; else as given. */
+function asNumbers(values: Cell[], decimalMark: DecimalMark): Cell[] {
+  const out = new Array<Cell>(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (v === null) {
+      out[i] = null;
+      continue;
+    }
+    const n = cellNumber(v, decimalMark);
+    if (n === undefined || !Number.isFinite(n)) return values;
+    out[i] = n;
+  }
+  return out;
 }
 
 /** values[rows[r]] for each r (a plain loop: Array.from with a map function is slow on large inputs). */
