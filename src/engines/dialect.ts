@@ -43,6 +43,19 @@ export interface SqlDialect {
   least(exprs: readonly string[]): string;
   /** ASCII lower case of a text (for `true`/`false` in any letter case). */
   lowerAscii(expr: string): string;
+  /**
+   * a − c, a / c, a × c for a double expression and a stored figure c. PostgreSQL stops the whole
+   * query when a double operation overflows (JavaScript gives ±Infinity): there each is guarded
+   * to give ±Infinity instead.
+   */
+  sub(a: string, c: number): string;
+  div(a: string, c: number): string;
+  mul(a: string, c: number): string;
+  /**
+   * Beyond this size a prepared feature makes the row's distances unsafe to compute (PostgreSQL:
+   * overflow stops the query); such a row gets segment NULL. Infinity where no bound is needed.
+   */
+  readonly featureBound: number;
   /** What this dialect cannot do exactly, stated once in the SQL header and in the README. */
   readonly caveats: readonly string[];
 }

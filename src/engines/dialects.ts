@@ -48,6 +48,52 @@ function leastTree(exprs: readonly string[], width: number, fn: string): string 
   return level[0];
 }
 
+const plainArithmetic = {
+  sub: (a: string, c: number) => `(${a} - ${standardDouble(c)})`,
+  div: (a: string, c: number) => `${a} / ${standardDouble(c)}`,
+  mul: (a: string, c: number) => `(${a}) * ${standardDouble(c)}`,
+  featureBound: Infinity,
+};
+
+/**
+ * The least double x ≥ 0 for which `op(x)` (or, with `negative`, `op(−x)`) is not finite, or
+ * undefined when there is none: a binary search over the ordered bit patterns of the doubles.
+ */
+export function overflowFrom(op: (x: number) => number, negative = false): number | undefined {
+  const bits = new BigUint64Array(1);
+  const value = new Float64Array(bits.buffer);
+  const at = (i: bigint) => ((bits[0] = i), negative ? -value[0] : value[0]);
+  let lo = 0n; // finite
+  let hi = 0x7ff0000000000000n; // Infinity
+  if (Number.isFinite(op(at(hi - 1n)))) return undefined;
+  while (hi - lo > 1n) {
+    const mid = (lo + hi) / 2n;
+    if (Number.isFinite(op(at(mid)))) lo = mid;
+    else hi = mid;
+  }
+  bits[0] = hi;
+  return value[0];
+}
+
+/** a op c, or ±Infinity (as JavaScript) where a op c overflows: PostgreSQL would stop the query. */
+function pgGuarded(a: string, c: number, op: (x: number) => number, sql: string): string {
+  const up = overflowFrom(op);
+  const down = overflowFrom(op, true);
+  const whens: string[] = [];
+  if (up !== undefined) whens.push(`WHEN ${a} >= ${pgDouble(up)} THEN '${op(up) > 0 ? '' : '-'}Infinity'::float8`);
+  if (down !== undefined) whens.push(`WHEN ${a} <= ${pgDouble(-down)} THEN '${op(-down) > 0 ? '' : '-'}Infinity'::float8`);
+  return whens.length === 0 ? `(${sql})` : `(CASE ${whens.join(' ')} ELSE ${sql} END)`;
+}
+
+const pgArithmetic = {
+  sub: (a: string, c: number) => pgGuarded(a, c, (x) => x - c, `${a} - ${pgDouble(c)}`),
+  div: (a: string, c: number) => pgGuarded(a, c, (x) => x / c, `${a} / ${pgDouble(c)}`),
+  mul: (a: string, c: number) => pgGuarded(a, c, (x) => x * c, `${a} * ${pgDouble(c)}`),
+  // Squares of differences of features and centres both within 1e150 stay below 1e301 each, and
+  // a sum of up to 10^7 of them within the double range.
+  featureBound: 1e150,
+};
+
 const duckdb: SqlDialect = {
   name: 'duckdb',
   title: 'DuckDB',
@@ -64,6 +110,7 @@ const duckdb: SqlDialect = {
   },
   least: (exprs) => leastTree(exprs, 100, 'LEAST'),
   lowerAscii: (e) => `lower(${e})`,
+  ...plainArithmetic,
   caveats: [],
 };
 
@@ -72,6 +119,8 @@ const duckdb: SqlDialect = {
 // compared with the exact rounding boundaries, so only in-range text reaches the double cast.
 const OVERFLOW_AT = (2n ** 1024n - 2n ** 970n).toString(); // halfway between the largest double and 2^1024
 const UNDERFLOW_AT = powerOfTwoDecimal(-1075); // halfway between 0 and the least subnormal
+/** The significant digits of that halfway point (no trailing zeros). */
+const OVERFLOW_DIGITS = OVERFLOW_AT.replace(/0+$/, '');
 const pgDouble = (v: number) => `'${exponentDigits(v)}'::float8`;
 
 const postgres: SqlDialect = {
@@ -100,7 +149,10 @@ const postgres: SqlDialect = {
   },
   least: (exprs) => leastTree(exprs, 100, 'LEAST'),
   lowerAscii: (e) => `lower(${e})`,
-  caveats: [],
+  ...pgArithmetic,
+  caveats: [
+    'PostgreSQL stops a query when double arithmetic overflows: a row with a prepared feature beyond 1e150 in size (a distance beyond about 1e150) gets segment NULL here, where assign gives it a segment at that distance.',
+  ],
 };
 
 // SQLite has no regular expressions without a loaded extension: the grammar is checked by parts.
@@ -139,6 +191,7 @@ const sqlite: SqlDialect = {
   // The many-argument scalar min; SQLite caps a call's arguments, hence groups of 100.
   least: (exprs) => leastTree(exprs, 100, 'min'),
   lowerAscii: (e) => `lower(${e})`,
+  ...plainArithmetic,
   caveats: [],
 };
 
@@ -164,11 +217,17 @@ const clickhouse: SqlDialect = {
   trimSpaces: (e) => `replaceRegexpAll(${e}, '^ +| +$', '')`,
   numberFromText: (t, mark) => {
     const v = `toFloat64OrNull(${mark === ',' ? `replaceAll(${t}, ',', '.')` : t})`;
-    return `CASE WHEN match(${t}, ${clickhouseString(`^${numberGrammar(mark)}$`)}) AND isFinite(${v}) THEN ${v} END`;
+    // ClickHouse 18 reads text just beyond the largest double as that double; JavaScript (correctly
+    // rounded) gives Infinity from the halfway point on: compare the significant digits with it.
+    const digits = `replaceRegexpAll(replaceRegexpAll(replaceRegexpOne(${t}, '[eE].*$', ''), '[-.,]', ''), '^0+|0+$', '')`;
+    const beyondHalfway = `(abs(${v}) = 1.7976931348623157E308 AND ${digits} >= '${OVERFLOW_DIGITS}')`;
+    // A zero with a huge exponent ("0e99999") reads as NaN there: every zero is 0.
+    return `CASE WHEN NOT match(${t}, ${clickhouseString(`^${numberGrammar(mark)}$`)}) THEN NULL WHEN ${digits} = '' THEN 0E0 WHEN isFinite(${v}) AND NOT ${beyondHalfway} THEN ${v} END`;
   },
   // Two-argument least in a balanced tree: linear text, logarithmic depth.
   least: (exprs) => leastTree(exprs, 2, 'least'),
   lowerAscii: (e) => `lower(${e})`,
+  ...plainArithmetic,
   caveats: [
     'ClickHouse 18 reads a subnormal number (below 2.2e-308 in size) in text as 0, where JavaScript keeps it.',
     'ClickHouse 18 prints a Float64 column as text with up to one unit in the last place of error; keep raw cells in String columns for exact agreement.',

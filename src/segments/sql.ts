@@ -90,9 +90,9 @@ function logOnePlus(v: string, u: string, d: SqlDialect): string {
 /** (v − centre) / spread × weight, in the same order of operations as the JavaScript. */
 function scaled(value: string, col: PreparedColumn, d: SqlDialect): string {
   let e = value;
-  if (col.centre !== 0) e = `(${e} - ${d.doubleLiteral(col.centre)})`;
-  if (col.spread !== 1) e = `${e} / ${d.doubleLiteral(col.spread)}`;
-  if (col.weight !== 1) e = `(${e}) * ${d.doubleLiteral(col.weight)}`;
+  if (col.centre !== 0) e = d.sub(e, col.centre);
+  if (col.spread !== 1) e = d.div(e, col.spread);
+  if (col.weight !== 1) e = d.mul(e, col.weight);
   return e;
 }
 
@@ -206,6 +206,16 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const features: Layer = { name: `${PREFIX}features`, columns: [id, ...featureSql.map((e, j) => `${e} AS ${f(j)}`)] };
   // 5. Distance to every centre: squared for Euclidean (the same order of additions as assign).
   const euclidean = definition.metric === 'euclidean';
+  const bounded = Number.isFinite(d.featureBound);
+  if (bounded && definition.segments.some((s) => s.center.some((x) => Math.abs(x) > d.featureBound))) {
+    throw new KinsortError(`toSql: a centre figure is beyond ${d.featureBound} in size, which ${d.title} cannot score without overflow; check the definition.`, 'not-supported');
+  }
+  const big = q(`${PREFIX}beyond`);
+  // Rows with a feature beyond the dialect's bound (PostgreSQL) get NULL distances (see caveats).
+  const guard = (): Layer => ({
+    name: `${PREFIX}guard`,
+    columns: [id, ...featureSql.map((_, j) => f(j)), `CASE WHEN ${featureSql.map((_, j) => `abs(${f(j)}) > ${d.doubleLiteral(d.featureBound)}`).join(' OR ')} THEN 1 ELSE 0 END AS ${big}`],
+  });
   const distances: Layer = {
     name: `${PREFIX}distances`,
     columns: [
@@ -215,7 +225,8 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
           const diff = `(${f(j)} - ${d.doubleLiteral(x)})`;
           return definition.metric === 'manhattan' ? `abs${diff}` : `${diff} * ${diff}`;
         });
-        return `${terms.join(' + ')} AS ${dist(c)}`;
+        const sum = terms.join(' + ');
+        return `${bounded ? `CASE WHEN ${big} = 0 THEN ${sum} END` : sum} AS ${dist(c)}`;
       }),
     ],
   };
@@ -242,7 +253,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far.`,
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
-  return header.join('\n') + '\n' + render([cells, trimmed, values, logs, features, distances, least], final, from, d) + '\n';
+  return header.join('\n') + '\n' + render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d) + '\n';
 }
 
 /** The layers as WITH clauses, or (ClickHouse 18) as nested SELECTs. */
