@@ -26,6 +26,13 @@ export interface SqlDialect {
   readonly title: string;
   /** Whether `WITH name AS (…)` may be used (ClickHouse 18 has none: nested SELECTs instead). */
   readonly withClause: boolean;
+  /**
+   * How each layer is kept from being merged into the next: an engine that inlines a layer
+   * substitutes its expressions at every use and computes them again (the k distances read every
+   * feature 2k times). 'offset': `OFFSET 0` (PostgreSQL does not pull such a subquery up);
+   * 'materialized': `AS MATERIALIZED` (SQLite); 'none'.
+   */
+  readonly layerFence: 'offset' | 'materialized' | 'none';
   quoteIdentifier(name: string): string;
   quoteString(text: string): string;
   /** A double-precision literal that reads back to exactly `value` (finite only). */
@@ -45,12 +52,14 @@ export interface SqlDialect {
   lowerAscii(expr: string): string;
   /**
    * a − c, a / c, a × c for a double expression and a stored figure c. PostgreSQL stops the whole
-   * query when a double operation overflows (JavaScript gives ±Infinity): there each is guarded
-   * to give ±Infinity instead.
+   * query when a double operation overflows (JavaScript gives ±Infinity) or a product or quotient
+   * underflows to 0: there each is guarded to give what JavaScript gives.
    */
   sub(a: string, c: number): string;
   div(a: string, c: number): string;
   mul(a: string, c: number): string;
+  /** diff × diff (a parenthesised expression); PostgreSQL also stops on underflow to 0. */
+  square(diff: string): string;
   /**
    * Beyond this size a prepared feature makes the row's distances unsafe to compute (PostgreSQL:
    * overflow stops the query); such a row gets segment NULL. Infinity where no bound is needed.

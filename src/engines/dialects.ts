@@ -48,47 +48,67 @@ function leastTree(exprs: readonly string[], width: number, fn: string): string 
   return level[0];
 }
 
-const plainArithmetic = {
-  sub: (a: string, c: number) => `(${a} - ${standardDouble(c)})`,
-  div: (a: string, c: number) => `${a} / ${standardDouble(c)}`,
-  mul: (a: string, c: number) => `(${a}) * ${standardDouble(c)}`,
+const plainArithmetic = (literal: (v: number) => string) => ({
+  sub: (a: string, c: number) => `(${a} - ${literal(c)})`,
+  div: (a: string, c: number) => `${a} / ${literal(c)}`,
+  mul: (a: string, c: number) => `(${a}) * ${literal(c)}`,
+  square: (diff: string) => `${diff} * ${diff}`,
   featureBound: Infinity,
-};
+});
 
 /**
- * The least double x ≥ 0 for which `op(x)` (or, with `negative`, `op(−x)`) is not finite, or
- * undefined when there is none: a binary search over the ordered bit patterns of the doubles.
+ * The least double x ≥ 0 (or, with `negative`, the least −x) at which `changes(x)` becomes true,
+ * or undefined when it never does: a binary search over the ordered bit patterns of the doubles
+ * (`changes` must be false at 0 and, once true, stay true as x grows).
  */
-export function overflowFrom(op: (x: number) => number, negative = false): number | undefined {
+function firstDouble(changes: (x: number) => boolean, negative = false): number | undefined {
   const bits = new BigUint64Array(1);
   const value = new Float64Array(bits.buffer);
   const at = (i: bigint) => ((bits[0] = i), negative ? -value[0] : value[0]);
-  let lo = 0n; // finite
+  let lo = 0n;
   let hi = 0x7ff0000000000000n; // Infinity
-  if (Number.isFinite(op(at(hi - 1n)))) return undefined;
+  if (!changes(at(hi - 1n))) return undefined;
   while (hi - lo > 1n) {
     const mid = (lo + hi) / 2n;
-    if (Number.isFinite(op(at(mid)))) lo = mid;
-    else hi = mid;
+    if (changes(at(mid))) hi = mid;
+    else lo = mid;
   }
-  bits[0] = hi;
-  return value[0];
+  return Math.abs(at(hi));
 }
 
-/** a op c, or ±Infinity (as JavaScript) where a op c overflows: PostgreSQL would stop the query. */
-function pgGuarded(a: string, c: number, op: (x: number) => number, sql: string): string {
+/** The least |x| at which `op(x)` overflows to ±Infinity (x ≥ 0, or x ≤ 0 with `negative`). */
+export function overflowFrom(op: (x: number) => number, negative = false): number | undefined {
+  return firstDouble((x) => !Number.isFinite(op(x)), negative);
+}
+
+/** The least |x| > 0 at which `op(x)` is not 0 (below it, the result underflows to 0). */
+export function underflowBelow(op: (x: number) => number): number | undefined {
+  return firstDouble((x) => op(x) !== 0);
+}
+
+/**
+ * a op c as JavaScript computes it, where PostgreSQL would stop the query: ±Infinity where the
+ * result overflows and, for × and /, 0 where a non-zero result underflows to zero.
+ */
+function pgGuarded(a: string, op: (x: number) => number, sql: string, underflows: boolean): string {
   const up = overflowFrom(op);
   const down = overflowFrom(op, true);
   const whens: string[] = [];
   if (up !== undefined) whens.push(`WHEN ${a} >= ${pgDouble(up)} THEN '${op(up) > 0 ? '' : '-'}Infinity'::float8`);
   if (down !== undefined) whens.push(`WHEN ${a} <= ${pgDouble(-down)} THEN '${op(-down) > 0 ? '' : '-'}Infinity'::float8`);
+  const tiny = underflows ? underflowBelow(op) : undefined;
+  if (tiny !== undefined && tiny > 5e-324) whens.push(`WHEN abs(${a}) < ${pgDouble(tiny)} THEN ${pgDouble(0)}`);
   return whens.length === 0 ? `(${sql})` : `(CASE ${whens.join(' ')} ELSE ${sql} END)`;
 }
 
+/** The least |x| whose square is not 0 (smaller squares underflow; PostgreSQL would stop). */
+const SQUARE_NONZERO = underflowBelow((x) => x * x)!;
+
 const pgArithmetic = {
-  sub: (a: string, c: number) => pgGuarded(a, c, (x) => x - c, `${a} - ${pgDouble(c)}`),
-  div: (a: string, c: number) => pgGuarded(a, c, (x) => x / c, `${a} / ${pgDouble(c)}`),
-  mul: (a: string, c: number) => pgGuarded(a, c, (x) => x * c, `${a} * ${pgDouble(c)}`),
+  sub: (a: string, c: number) => pgGuarded(a, (x) => x - c, `${a} - ${pgDouble(c)}`, false),
+  div: (a: string, c: number) => pgGuarded(a, (x) => x / c, `${a} / ${pgDouble(c)}`, true),
+  mul: (a: string, c: number) => pgGuarded(a, (x) => x * c, `${a} * ${pgDouble(c)}`, true),
+  square: (diff: string) => `CASE WHEN abs${diff} < ${pgDouble(SQUARE_NONZERO)} THEN ${pgDouble(0)} ELSE ${diff} * ${diff} END`,
   // Squares of differences of features and centres both within 1e150 stay below 1e301 each, and
   // a sum of up to 10^7 of them within the double range.
   featureBound: 1e150,
@@ -98,6 +118,7 @@ const duckdb: SqlDialect = {
   name: 'duckdb',
   title: 'DuckDB',
   withClause: true,
+  layerFence: 'none',
   quoteIdentifier: standardIdentifier,
   quoteString: standardString,
   doubleLiteral: standardDouble,
@@ -110,7 +131,7 @@ const duckdb: SqlDialect = {
   },
   least: (exprs) => leastTree(exprs, 100, 'LEAST'),
   lowerAscii: (e) => `lower(${e})`,
-  ...plainArithmetic,
+  ...plainArithmetic(standardDouble),
   caveats: [],
 };
 
@@ -127,6 +148,7 @@ const postgres: SqlDialect = {
   name: 'postgres',
   title: 'PostgreSQL',
   withClause: true,
+  layerFence: 'offset',
   quoteIdentifier: standardIdentifier,
   // With a backslash inside, an E'' literal: its meaning does not depend on standard_conforming_strings.
   quoteString: (text) =>
@@ -181,6 +203,7 @@ const sqlite: SqlDialect = {
   name: 'sqlite',
   title: 'SQLite',
   withClause: true,
+  layerFence: 'materialized',
   quoteIdentifier: standardIdentifier,
   quoteString: standardString,
   doubleLiteral: standardDouble,
@@ -191,7 +214,7 @@ const sqlite: SqlDialect = {
   // The many-argument scalar min; SQLite caps a call's arguments, hence groups of 100.
   least: (exprs) => leastTree(exprs, 100, 'min'),
   lowerAscii: (e) => `lower(${e})`,
-  ...plainArithmetic,
+  ...plainArithmetic(standardDouble),
   caveats: [],
 };
 
@@ -200,19 +223,22 @@ function clickhouseString(text: string): string {
   return "'" + checkSqlText(text, 'the text').replace(/\\/g, '\\\\').replace(/'/g, "\\'") + "'";
 }
 
+/** ClickHouse 18 cannot parse a subnormal literal: it is written as an exact product of two normal ones. */
+function clickhouseDouble(value: number): string {
+  if (value !== 0 && Math.abs(value) < 2.2250738585072014e-308) {
+    return `(${standardDouble(value * 2 ** 600)} * ${standardDouble(2 ** -600)})`;
+  }
+  return standardDouble(value);
+}
+
 const clickhouse: SqlDialect = {
   name: 'clickhouse',
   title: 'ClickHouse',
   withClause: false,
+  layerFence: 'none',
   quoteIdentifier: (name) => '`' + checkSqlText(name, 'the name').replace(/\\/g, '\\\\').replace(/`/g, '\\`') + '`',
   quoteString: clickhouseString,
-  doubleLiteral: (value) => {
-    // ClickHouse 18 cannot parse a subnormal literal: write it as an exact product of two normal ones.
-    if (value !== 0 && Math.abs(value) < 2.2250738585072014e-308) {
-      return `(${standardDouble(value * 2 ** 600)} * ${standardDouble(2 ** -600)})`;
-    }
-    return standardDouble(value);
-  },
+  doubleLiteral: clickhouseDouble,
   asText: (e) => `toString(${e})`,
   trimSpaces: (e) => `replaceRegexpAll(${e}, '^ +| +$', '')`,
   numberFromText: (t, mark) => {
@@ -227,7 +253,7 @@ const clickhouse: SqlDialect = {
   // Two-argument least in a balanced tree: linear text, logarithmic depth.
   least: (exprs) => leastTree(exprs, 2, 'least'),
   lowerAscii: (e) => `lower(${e})`,
-  ...plainArithmetic,
+  ...plainArithmetic(clickhouseDouble),
   caveats: [
     'ClickHouse 18 reads a subnormal number (below 2.2e-308 in size) in text as 0, where JavaScript keeps it.',
     'ClickHouse 18 prints a Float64 column as text with up to one unit in the last place of error; keep raw cells in String columns for exact agreement.',

@@ -223,7 +223,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       ...definition.segments.map((s, c) => {
         const terms = s.center.map((x, j) => {
           const diff = `(${f(j)} - ${d.doubleLiteral(x)})`;
-          return definition.metric === 'manhattan' ? `abs${diff}` : `${diff} * ${diff}`;
+          return definition.metric === 'manhattan' ? `abs${diff}` : d.square(diff);
         });
         const sum = terms.join(' + ');
         return `${bounded ? `CASE WHEN ${big} = 0 THEN ${sum} END` : sum} AS ${dist(c)}`;
@@ -258,12 +258,14 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
 
 /** The layers as WITH clauses, or (ClickHouse 18) as nested SELECTs. */
 function render(layers: Layer[], final: Layer, from: string, d: SqlDialect): string {
-  const select = (l: Layer, source: string) => `SELECT\n  ${l.columns.join(',\n  ')}\nFROM ${source}`;
+  const fence = d.layerFence === 'offset' ? '\nOFFSET 0' : '';
+  const select = (l: Layer, source: string, last = false) => `SELECT\n  ${l.columns.join(',\n  ')}\nFROM ${source}${last ? '' : fence}`;
   if (d.withClause) {
-    const parts = layers.map((l, i) => `${d.quoteIdentifier(l.name)} AS (\n${select(l, i === 0 ? from : d.quoteIdentifier(layers[i - 1].name))}\n)`);
-    return `WITH ${parts.join(',\n')}\n${select(final, d.quoteIdentifier(layers[layers.length - 1].name))}`;
+    const as = d.layerFence === 'materialized' ? 'AS MATERIALIZED' : 'AS';
+    const parts = layers.map((l, i) => `${d.quoteIdentifier(l.name)} ${as} (\n${select(l, i === 0 ? from : d.quoteIdentifier(layers[i - 1].name))}\n)`);
+    return `WITH ${parts.join(',\n')}\n${select(final, d.quoteIdentifier(layers[layers.length - 1].name), true)}`;
   }
   let source = from;
   for (const l of layers) source = `(\n${select(l, source)}\n) AS ${d.quoteIdentifier(l.name)}`;
-  return select(final, source);
+  return select(final, source, true);
 }

@@ -26,8 +26,11 @@ export async function expectSameEverywhere(
   const outcome = handle.assign(asRecords(columns, rows));
   const idColumn = handle.definition.preparation.idColumn as string;
   for (const engine of engines) {
+    const t0 = Date.now();
     await engine.loadText(table, columns, rows);
+    const t1 = Date.now();
     const sqlRows = await engine.query(handle.toSql({ table, engine }));
+    if (process.env.KINSORT_TIMING) console.log(engine.dialect, 'load', t1 - t0, 'query', Date.now() - t1);
     expect(sqlRows, engine.dialect).toHaveLength(rows.length);
     const byId = new Map(sqlRows.map((r) => [String(r[idColumn]), r]));
     for (const row of outcome.rows) {
