@@ -26,11 +26,8 @@ export async function expectSameEverywhere(
   const outcome = handle.assign(asRecords(columns, rows));
   const idColumn = handle.definition.preparation.idColumn as string;
   for (const engine of engines) {
-    const t0 = Date.now();
     await engine.loadText(table, columns, rows);
-    const t1 = Date.now();
     const sqlRows = await engine.query(handle.toSql({ table, engine }));
-    if (process.env.KINSORT_TIMING) console.log(engine.dialect, 'load', t1 - t0, 'query', Date.now() - t1);
     expect(sqlRows, engine.dialect).toHaveLength(rows.length);
     const byId = new Map(sqlRows.map((r) => [String(r[idColumn]), r]));
     for (const row of outcome.rows) {
@@ -50,7 +47,11 @@ export async function expectSameEverywhere(
       } else {
         const distance = Number(s!.distance);
         expect(closeEnough(distance, row.distance), `distance ${distance} vs ${row.distance}, ${where}`).toBe(true);
-        expect(Number(s!.far) === 1, `far, ${where}`).toBe(row.far);
+        // `far` compares a distance with a stored threshold; a row exactly at a threshold (the one
+        // row of a one-row segment is at its own) may fall either side by one unit in the last
+        // place (log1p and ln are not correctly rounded everywhere), so it is not compared there.
+        const atThreshold = handle.definition.segments.some((seg) => closeEnough(row.distance!, seg.farBeyond));
+        if (!atThreshold) expect(Number(s!.far) === 1, `far, ${where}`).toBe(row.far);
       }
     }
   }
