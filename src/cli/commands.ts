@@ -8,6 +8,7 @@ import { LINKAGE_METHODS } from '../methods/hierarchy';
 import { study } from '../study/study';
 import { loadDefinition } from '../segments/definition-handle';
 import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
+import { DIALECT_NAMES } from '../engines/dialect';
 import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';
 import { scoredCsv } from './csv-out';
 import { ASSIGN_HELP, FIT_HELP, SQL_HELP } from './help';
@@ -148,12 +149,14 @@ export function assignCommand(args: string[], io: Io): number {
 export function sqlCommand(args: string[], io: Io): number {
   const c = 'sql';
   const { values, positionals } = parseCommandArgs(c, args, {
-    table: { type: 'string' }, 'id-column': { type: 'string' }, out: { type: 'string' },
+    table: { type: 'string' }, 'id-column': { type: 'string' }, dialect: { type: 'string' }, out: { type: 'string' },
   });
   if (values.help) return io.out(SQL_HELP), 0;
   const [defPath] = exactPositionals(positionals, ['DEF.json'], c);
   const table = requireString(values, 'table', c);
-  const sql = loadDefinition(defPath).toSql({ table, idColumn: optionalString(values, 'id-column') });
+  const given = optionalString(values, 'dialect');
+  const dialect = given === undefined ? 'duckdb' : flagChoice(c, 'dialect', given, DIALECT_NAMES, 'SQL dialect');
+  const sql = loadDefinition(defPath).toSql({ table, dialect, idColumn: optionalString(values, 'id-column') });
   const out = optionalString(values, 'out');
   if (out === undefined) io.out(sql);
   else {
