@@ -6,7 +6,7 @@ import { mkdtempSync, writeFileSync } from 'fs';
 import { tmpdir } from 'os';
 import { join } from 'path';
 import { describe, expect, it } from 'vitest';
-import { loadDefinition, prepareTable, readCsvFile, readTable, study } from '../../src';
+import { applyPreparation, loadDefinition, prepareTable, readCsvFile, readTable, study } from '../../src';
 import { refusal } from '../reliability/helpers';
 import { riders, toCsv } from './definition-data';
 
@@ -145,6 +145,13 @@ describe('true/false in any letter case', () => {
   });
 });
 
+describe('an old preparation (version 1, no schema) is refused when re-applied', () => {
+  it('names the version and says to fit again', () => {
+    const p = prepareTable('id,x\na,1\nb,2\n', { id: 'id' }).preparation;
+    refusal(() => applyPreparation({ ...p, version: 1 } as never, 'id,x\nc,3\n'), 'version 1', 'Fit the preparation again');
+  });
+});
+
 describe('a definition reproduces its training rows, or says how far it does not', () => {
   const records = riders(400, 21);
   const csv = toCsv(records);
@@ -174,6 +181,8 @@ describe('a definition reproduces its training rows, or says how far it does not
     expect(cut.describeMethod()).toContain(`gives ${agreement.reproduced} of the 400 training rows their segment`);
     const profiles = cut.profiles();
     expect(profiles.reduce((s, p) => s + p.rule!.reproduced, 0)).toBe(agreement.reproduced);
+    expect(cut.cards().html()).toMatch(/Scoring rule<\/b>: the nearest-centre rule keeps \d+ of its \d+ members here/);
+    expect(cut.writeUp().markdown()).toContain(`gives ${agreement.reproduced} of the 400 training rows their segment`);
 
     const relabelled = cut.relabelByRule();
     expect(relabelled.labels).toBe('rule');
@@ -182,6 +191,7 @@ describe('a definition reproduces its training rows, or says how far it does not
     expect(def2.definition.training).toMatchObject({ reproducedRows: 400, labels: 'rule' });
     expect(def2.assign(csv).rows.map((r) => r.segment)).toEqual(Array.from(relabelled.assignment, (a) => a + 1));
     expect(def2.definition.segments.map((s) => s.size)).toEqual(relabelled.sizes);
+    expect(relabelled.writeUp().markdown()).toContain('Segments relabelled by the nearest-centre rule');
   });
 
   it('k-medoids records its figure too', () => {
