@@ -129,7 +129,9 @@ export function assignCommand(args: string[], io: Io): number {
   if (values.help) return io.out(ASSIGN_HELP), 0;
   const [defPath, dataPath] = exactPositionals(positionals, ['DEF.json', 'DATA.csv'], c);
   const handle = loadDefinition(defPath);
-  const outcome = handle.assign(readCsvFile(dataPath));
+  // Read the file under the definition's stored schema (missing markers, decimal mark), never the defaults.
+  const prep = handle.definition.preparation as { missingMarkers?: string[]; decimalMark?: '.' | ',' };
+  const outcome = handle.assign(readCsvFile(dataPath, { missingMarkers: prep.missingMarkers, decimalMark: prep.decimalMark }));
   const idColumn = (handle.definition.preparation.idColumn as string | null) ?? 'row';
   const csv = scoredCsv(idColumn, outcome);
   const out = optionalString(values, 'out');

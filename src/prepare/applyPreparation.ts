@@ -6,6 +6,7 @@ import { isTable, type Cell, type Table } from '../table/types';
 import { assemble } from './assemble';
 import { readIds, rowText } from './ids';
 import { applyMissingPolicy } from './missing';
+import { parseNumericColumn } from './values';
 import { PREPARATION_VERSION, type Preparation, type PreparedData } from './types';
 import { TEXT_RULE } from '../table/cells';
 
@@ -105,7 +106,12 @@ export function applyPreparation(
 
   const ids = readIds(table, idColumn, 'applyPreparation');
   const where = (row: number) => rowText(row, ids, idColumn !== null);
-  const raw = new Map<string, readonly Cell[]>(needed.map((n) => [n, table.columns.find((c) => c.name === n)!.values]));
+  const raw = new Map<string, readonly Cell[]>(
+    preparation.columns.map((spec) => {
+      const values = table.columns.find((c) => c.name === spec.name)!.values;
+      return [spec.name, spec.type === 'numeric' ? parseNumericColumn(values, spec.name, where, preparation.decimalMark) : values];
+    }),
+  );
   const outcome = applyMissingPolicy({
     policy: preparation.missing,
     names: needed,
@@ -135,6 +141,7 @@ export function applyPreparation(
     kept: outcome.kept,
     where,
     profileColumns: [...keepPresent, ...usedPresent],
+    parsed: raw,
     report: {
       inputRows: table.rowCount,
       dropped: outcome.dropped,

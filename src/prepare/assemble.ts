@@ -15,6 +15,8 @@ export interface AssembleInput {
   where: (row: number) => string;
   /** Columns whose raw values go into the profile (keep + used), those present in the table. */
   profileColumns: readonly string[];
+  /** Used columns already parsed (numeric ones as numbers, missing still null), reused for the profile. */
+  parsed?: ReadonlyMap<string, readonly Cell[]>;
   report: Omit<PreparationReport, 'keptRows' | 'unseenLevels'>;
 }
 
@@ -36,9 +38,10 @@ export function assemble(input: AssembleInput): PreparedData {
   const specs = new Map(preparation.columns.map((c) => [c.name, c]));
   for (const name of input.profileColumns) {
     const column = table.columns.find((c) => c.name === name)!;
-    const values = pick(column.values, kept);
     const numeric = (specs.get(name)?.type ?? column.declared ?? column.inferred) === 'numeric';
-    profile[name] = numeric ? asNumbers(values, preparation.decimalMark) : values;
+    const parsed = numeric ? input.parsed?.get(name) : undefined;
+    const values = pick(parsed ?? column.values, kept);
+    profile[name] = numeric && parsed === undefined ? asNumbers(values, preparation.decimalMark) : values;
   }
   const report: PreparationReport = { ...input.report, keptRows: kept.length, unseenLevels: unseen };
   return {

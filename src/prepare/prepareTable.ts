@@ -9,6 +9,7 @@ import { assemble } from './assemble';
 import { fillValue, fitColumn } from './fit';
 import { readIds, rowText } from './ids';
 import { applyMissingPolicy } from './missing';
+import { parseNumericColumn } from './values';
 import { resolveRoles } from './roles';
 import {
   MISSING_POLICIES,
@@ -68,7 +69,13 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
 
   const ids = readIds(table, roles.idColumn, 'prepareTable');
   const where = (row: number) => rowText(row, ids, roles.idColumn !== null);
-  const raw = new Map<string, readonly Cell[]>(usedNames.map((n) => [n, table.columns.find((c) => c.name === n)!.values]));
+  // Numeric columns are parsed once here (under the text rule), not again in every later step.
+  const raw = new Map<string, readonly Cell[]>(
+    roles.use.map((u) => {
+      const values = table.columns.find((c) => c.name === u.name)!.values;
+      return [u.name, u.type === 'numeric' ? parseNumericColumn(values, u.name, where, decimalMark) : values];
+    }),
+  );
   const outcome = applyMissingPolicy({
     policy,
     names: usedNames,
@@ -137,6 +144,7 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
     kept: outcome.kept,
     where,
     profileColumns: [...roles.keep, ...usedNames],
+    parsed: raw,
     report: {
       inputRows: table.rowCount,
       dropped: outcome.dropped,

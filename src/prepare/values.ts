@@ -42,6 +42,29 @@ export function numericCell(
   return Math.log1p(v);
 }
 
+/**
+ * A numeric column's cells with every present text parsed once under the text rule (numbers stay
+ * numbers, null stays missing); a text that is not a number is refused naming the row and column.
+ */
+export function parseNumericColumn(
+  cells: readonly Cell[],
+  column: string,
+  where: (row: number) => string,
+  decimalMark: DecimalMark,
+): Cell[] {
+  const out = new Array<Cell>(cells.length);
+  for (let i = 0; i < cells.length; i++) {
+    const c = cells[i];
+    if (c === null || typeof c === 'number') {
+      out[i] = c;
+      continue;
+    }
+    const v = cellNumber(c, decimalMark);
+    out[i] = v === undefined ? numericCell(c, column, false, where, i, decimalMark) : v;
+  }
+  return out;
+}
+
 /** Level → code lookup, built once per column. */
 export interface LevelCodes {
   readonly levels: readonly string[];

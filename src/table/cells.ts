@@ -80,7 +80,7 @@ const TRUE_FALSE = /^(true|false)$/i; // no `u` flag: only ASCII letters match c
 
 /** "true"/"false" in any ASCII letter case. */
 export function isTrueFalse(text: string): boolean {
-  return TRUE_FALSE.test(text);
+  return (text.length === 4 || text.length === 5) && TRUE_FALSE.test(text);
 }
 
 /**

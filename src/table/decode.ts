@@ -74,11 +74,9 @@ export function decodeCsvBytes(bytes: Uint8Array, source: string, encoding?: str
     // fall through: name the first byte that breaks it
   }
   const bad = Math.max(0, firstBadUtf8(bytes));
-  {
-    throw new KinsortError(
-      `${source} is not valid UTF-8: byte ${bad + 1} (0x${bytes[bad].toString(16).padStart(2, '0')}, line ${lineAt(bytes, bad)}) cannot start or continue a UTF-8 character. ` +
-        `It is probably Latin-1 or Windows-1252 text; name the encoding to read it ({ encoding: 'windows-1252' }, --encoding windows-1252), or save the file as UTF-8.`,
-      'bad-input',
-    );
-  }
+  throw new KinsortError(
+    `${source} is not valid UTF-8: byte ${bad + 1} (0x${bytes[bad].toString(16).padStart(2, '0')}, line ${lineAt(bytes, bad)}) cannot start or continue a UTF-8 character. ` +
+      `It is probably Latin-1 or Windows-1252 text; name the encoding to read it ({ encoding: 'windows-1252' }), or save the file as UTF-8.`,
+    'bad-input',
+  );
 }
