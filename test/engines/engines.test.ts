@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { kmeans } from '../../src/methods/partition';
 import { prepareTable, type PrepareOptions } from '../../src/prepare';
 import { buildDefinition, loadDefinition, type DefinitionHandle } from '../../src/segments/definition-exports';
+import { definitionToSql } from '../../src/segments/sql';
 import { serverAvailable, useServer } from '../servers/servers';
 import { clickhouseTestEngine, duckdbTestEngine, postgresTestEngine, sqliteTestEngine, type TestEngine } from './adapters';
 import { asRecords, expectSameEverywhere, type TextRows } from './score-everywhere';
@@ -197,4 +198,50 @@ describe('differential: random adversarial tables, assign against SQL on every e
     );
     expect(fitted).toBeGreaterThanOrEqual(Math.floor(Number(process.env.KINSORT_DIFF_RUNS ?? 24) / 3));
   }, 120_000);
+});
+
+describe('hostile text from a definition or a table name never runs as SQL (issue 14), on every engine', () => {
+  const HOSTILE_COLUMNS = ['rider id', 'trips"; DROP TABLE x; --', 'zone`) --\\', 'pay\\'];
+  const hostileRows = (n: number, prefix: string) =>
+    Array.from({ length: n }, (_, i) => [
+      `${prefix}${i}'); DROP TABLE x; --`,
+      String((i * 37) % 11),
+      ["x\\' OR 1=1 --", "o'brien", 'back\\slash', '\\'][i % 4],
+      ['yes', 'no'][i % 2],
+    ]);
+  const hostileOptions: PrepareOptions = {
+    id: 'rider id',
+    use: HOSTILE_COLUMNS.slice(1),
+    types: { [HOSTILE_COLUMNS[1]]: 'numeric', [HOSTILE_COLUMNS[2]]: 'categorical', [HOSTILE_COLUMNS[3]]: 'binary' },
+  };
+
+  it('quoted column names and level texts with quotes, backslashes and comment marks match exactly', async () => {
+    const handle = fit(HOSTILE_COLUMNS, hostileRows(24, 't'), hostileOptions, 2);
+    await expectSameEverywhere(handle, engines, 'hostile', HOSTILE_COLUMNS, [...hostileRows(24, 'n'), ['unseen', '3', "x\\' OR 1=1 -- ", 'no']]);
+  });
+
+  it('a writtenBy with a newline and a statement stays a comment; a hostile table name is one identifier', async () => {
+    const built = fit(COLUMNS, training(30), OPTIONS, 2).definition;
+    const tampered = { ...built, writtenBy: 'kinsort 0.1.0\nCREATE TABLE pwned AS SELECT 42 AS x; --' };
+    for (const engine of engines) {
+      await engine.loadText('riders', COLUMNS, training(30));
+      const rows = await engine.query(definitionToSql(tampered, { table: 'riders', engine }));
+      expect(rows, engine.dialect).toHaveLength(30);
+      await expect(engine.query('SELECT * FROM pwned'), engine.dialect).rejects.toThrow();
+      await expect(engine.query(definitionToSql(built, { table: 'main.riders) SELECT 1; DROP TABLE riders; --', engine })), engine.dialect).rejects.toThrow();
+      const still = await engine.query('SELECT count(*) AS n FROM riders');
+      expect(Number(still[0].n), engine.dialect).toBe(30);
+    }
+  });
+
+  it.skipIf(!pg)('PostgreSQL with standard_conforming_strings off reads the same backslash levels', async () => {
+    const engine = engines.find((e) => e.dialect === 'postgres')!;
+    const handle = fit(HOSTILE_COLUMNS, hostileRows(24, 't'), hostileOptions, 2);
+    await engine.query('SET standard_conforming_strings = off');
+    try {
+      await expectSameEverywhere(handle, [engine], 'hostile_escapes', HOSTILE_COLUMNS, hostileRows(24, 'n'));
+    } finally {
+      await engine.query('SET standard_conforming_strings = on');
+    }
+  });
 });
