@@ -12,7 +12,9 @@ import type { PrepareOptions } from '../../src/prepare';
 import { kmeans, kmedoids } from '../../src/methods/partition';
 import { buildDefinition, loadDefinition } from '../../src/segments/definition-exports';
 import type { DefinitionHandle } from '../../src/segments/definition-exports';
-import { doubleLiteral, quoteIdentifier, quoteString } from '../../src/segments/sql-text';
+import { dialectNamed } from '../../src/engines/dialects';
+
+const { doubleLiteral, quoteIdentifier, quoteString } = dialectNamed('duckdb');
 import { riders, toCsv, type RiderRecord } from './definition-data';
 
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-sql-'));
