@@ -5,7 +5,7 @@
 // is kinsort-text-1 (docs/stored-schema.md). Tables hold every cell as text, as loaded from CSV.
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { kmeans } from '../../src/methods/partition';
+import { kmeans, kmedoids } from '../../src/methods/partition';
 import { prepareTable, type PrepareOptions } from '../../src/prepare';
 import { buildDefinition, loadDefinition, type DefinitionHandle } from '../../src/segments/definition-exports';
 import { definitionToSql } from '../../src/segments/sql';
@@ -103,6 +103,43 @@ describe(`scoring SQL on ${['DuckDB', 'SQLite', pg && 'PostgreSQL 15', ch && 'Cl
   it('median fills and robust scaling; a decimal comma is text unless the definition stores that mark', async () => {
     const handle = fit(COLUMNS, training(40), { ...OPTIONS, missing: 'median', scale: 'robust' }, 4, 9);
     await expectSameEverywhere(handle, engines, 'riders_median', COLUMNS, [...AWKWARD, ['n-comma', '1,5', '1', '01', 'true']]);
+  });
+});
+
+describe('other metrics, ordinal levels and a stored decimal comma, on every engine', () => {
+  it('manhattan and squared Euclidean k-medoids with an ordinal column', async () => {
+    const columns = [...COLUMNS, 'band'];
+    const bands = ['low', 'mid', 'high', ' mid'];
+    const train = training(40).map((r, i) => [...r, bands[i % 3]]);
+    const fresh = AWKWARD.map((r, i) => [...r, bands[i % 4]]); // ' mid' is not a level: refused
+    for (const metric of ['manhattan', 'sqeuclidean'] as const) {
+      const prepared = prepareTable(asRecords(columns, train), { ...OPTIONS, use: [...OPTIONS.use!, 'band'], ordinalLevels: { band: ['low', 'mid', 'high'] } });
+      const result = kmedoids(prepared.matrix, { k: 3, metric });
+      const handle = loadDefinition(
+        buildDefinition({
+          preparation: prepared.preparation,
+          method: { name: 'kmedoids', options: { k: 3, metric } },
+          medoids: result.medoids,
+          training: { ids: prepared.ids, matrix: prepared.matrix, assignment: result.assignment },
+        }),
+      );
+      expect(handle.definition.metric).toBe(metric);
+      await expectSameEverywhere(handle, engines, `medoids_${metric}`, columns, fresh);
+    }
+  });
+
+  it('a definition that stores the decimal comma reads 2,25 as a number and 1.5 as text', async () => {
+    const train = training(30).map((r, i) => [r[0], `${i % 7},${(i * 3) % 10}5`, `${(i * 13) % 40},5`, r[3], r[4]]);
+    const handle = fit(COLUMNS, train, { ...OPTIONS, decimalMark: ',' }, 2);
+    const fresh = [
+      ['c1', '2,25', '1', '01', 'true'],
+      ['c2', '1.5', '1', '01', 'true'],
+      ['c3', ' -0,5e1 ', '1', '01', 'true'],
+      ['c4', '1,234,5', '1', '01', 'true'],
+      ['c5', ',5', '1', '01', 'true'],
+    ];
+    await expectSameEverywhere(handle, engines, 'comma', COLUMNS, fresh);
+    expect(handle.assign(asRecords(COLUMNS, fresh)).report.refused.map((r) => r.id)).toEqual(['c2', 'c4', 'c5']);
   });
 });
 
