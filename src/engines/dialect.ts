@@ -37,8 +37,11 @@ export interface SqlDialect {
   quoteString(text: string): string;
   /** A double-precision literal that reads back to exactly `value` (finite only). */
   doubleLiteral(value: number): string;
-  /** The cell as text (NULL stays NULL); for a number column, a text that reads back to the same double. */
-  asText(expr: string): string;
+  /**
+   * The cell as text (NULL stays NULL); for a number column, a text that reads back to the same
+   * double. `column` names the column in an error raised where the text is known to be lost.
+   */
+  asText(expr: string, column: string): string;
   /** `expr` without leading and trailing U+0020 spaces (no other whitespace). */
   trimSpaces(expr: string): string;
   /**

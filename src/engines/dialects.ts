@@ -122,7 +122,12 @@ const duckdb: SqlDialect = {
   quoteIdentifier: standardIdentifier,
   quoteString: standardString,
   doubleLiteral: standardDouble,
-  asText: (e) => `CAST(${e} AS VARCHAR)`,
+  // DuckDB's CSV reader types yes/no, t/f and true/false columns BOOLEAN: their text is lost, so
+  // such a column stops the query with the reason instead of scoring every row NULL.
+  asText: (e, column) =>
+    `CASE WHEN typeof(${e}) = 'BOOLEAN' THEN error(${standardString(
+      `kinsort: column ${JSON.stringify(column)} is BOOLEAN in DuckDB, so the text of its cells is lost; read it as text, e.g. read_csv(..., all_varchar = true)`,
+    )}) ELSE CAST(${e} AS VARCHAR) END`,
   trimSpaces: (e) => `trim(${e}, ' ')`,
   // TRY_CAST: DuckDB may evaluate a CASE branch for rows the WHEN excludes; it never raises.
   numberFromText: (t, mark) => {

@@ -154,7 +154,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   // 1. Each used cell as text, and the same text without leading/trailing ASCII spaces.
   const cells: Layer = {
     name: `${PREFIX}cells`,
-    columns: [id, ...cols.flatMap((c, j) => [`${d.asText(q(c.name))} AS ${r(j)}`])],
+    columns: [id, ...cols.map((c, j) => `${d.asText(q(c.name), c.name)} AS ${r(j)}`)],
   };
   const trimmed: Layer = {
     name: `${PREFIX}trimmed`,

@@ -235,3 +235,16 @@ describe('SQL text', () => {
     expect(noId.toSql({ table: 'riders', idColumn: 'rider' })).toContain('"rider"');
   });
 });
+
+describe('a column DuckDB typed BOOLEAN', () => {
+  it('stops the query naming the column and the fix, rather than scoring every row NULL', async () => {
+    const records = riders(40, 111);
+    const handle = fit(records, MIXED, 2);
+    const csv = join(dir, 'typed.csv');
+    writeFileSync(csv, toCsv(records));
+    // Without all_varchar DuckDB reads the yes/no column "autopay" as BOOLEAN.
+    await query(`CREATE OR REPLACE VIEW typed AS SELECT * FROM read_csv(${quoteString(csv)}, header = true)`);
+    expect((await query(`SELECT typeof(autopay) AS t FROM typed LIMIT 1`))[0].t).toBe('BOOLEAN');
+    await expect(query(handle.toSql({ table: 'typed' }))).rejects.toThrow(/column "autopay" is BOOLEAN in DuckDB.*all_varchar = true/);
+  });
+});
