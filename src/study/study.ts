@@ -147,7 +147,7 @@ export class PreparedStudy {
     const notes: string[] = [];
     if (settled.moved > 0 || !settled.fixedPoint) {
       notes.push(
-        `k-means ${fit.converged ? 'converged within its tolerance' : `stopped at maxIterations (${fit.iterations})`} before its ` +
+        `k-means ${fit.converged ? 'converged within its tolerance' : `stopped at maxIterations (${options.maxIterations ?? fit.iterations})`} before its ` +
           `centres and segments fully agreed; ${settled.steps} more Lloyd step(s) moved ${settled.moved} row(s)` +
           (settled.fixedPoint ? ', so the nearest-centre rule now gives every training row its segment.' : ', and it is still not a fixed point (see ruleAgreement()).'),
       );
