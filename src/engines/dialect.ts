@@ -51,6 +51,8 @@ export interface SqlDialect {
   numberFromText(t: string, mark: DecimalMark): string;
   /** The least of several doubles, none NULL (the caller tests for missing rows first). */
   least(exprs: readonly string[]): string;
+  /** The 1-based position of the first of `exprs` equal to `value` (NULL when `value` is NULL). */
+  firstEqual(exprs: readonly string[], value: string): string;
   /** ASCII lower case of a text (for `true`/`false` in any letter case). */
   lowerAscii(expr: string): string;
   /**

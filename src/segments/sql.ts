@@ -41,6 +41,9 @@ export const SQL_MAX_SEGMENTS = 1000;
 /** The most centre figures (k × features) in one statement: about 10 MB of SQL text. */
 export const SQL_MAX_FIGURES = 400_000;
 
+/** SQLite: the distance is a chain of one addition per feature, within its depth limit of 1000. */
+export const SQLITE_MAX_FEATURES = 900;
+
 const PREFIX = 'kinsort_';
 const OUTPUT_NAMES = ['segment', 'distance', 'far'];
 
@@ -126,6 +129,10 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       `toSql: ${k} segments × ${dims} features is beyond what kinsort writes as one statement (at most ${SQL_MAX_SEGMENTS} segments and ${SQL_MAX_FIGURES.toLocaleString('en-US')} centre figures).`,
       'too-large',
     );
+  }
+  if (d.name === 'sqlite' && dims > SQLITE_MAX_FEATURES) {
+    // The distance adds its terms one after another, in assign's order; SQLite caps an expression's depth at 1000.
+    throw new KinsortError(`toSql: ${dims} features is beyond what SQLite's expression depth limit (1000) allows in one distance (at most ${SQLITE_MAX_FEATURES}).`, 'too-large');
   }
   if (d.name === 'duckdb' || d.name === 'sqlite') {
     // Identifiers are case-insensitive there even when quoted: "X" and "x" would be one column.
@@ -243,9 +250,10 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     name: '',
     columns: [
       id,
-      `CASE WHEN ${nearest} IS NULL THEN NULL ${definition.segments.map((_, c) => `WHEN ${dist(c)} = ${nearest} THEN ${c + 1}`).join(' ')} END AS ${q('segment')}`,
+      `${d.firstEqual(definition.segments.map((_, c) => dist(c)), nearest)} AS ${q('segment')}`,
       `${euclidean ? `sqrt(${nearest})` : nearest} AS ${q('distance')}`,
-      `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${definition.segments.map((_, c) => `${dist(c)} > ${limit(c)}`).join(' AND ')} THEN 1 ELSE 0 END AS ${q('far')}`,
+      // Beyond every threshold: the least of d − t is above 0 (exact: the sign of a difference of doubles never rounds away).
+      `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${d.least(definition.segments.map((_, c) => `${dist(c)} - ${limit(c)}`))} > ${d.doubleLiteral(0)} THEN 1 ELSE 0 END AS ${q('far')}`,
     ],
   };
   const header = [

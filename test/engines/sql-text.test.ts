@@ -102,6 +102,11 @@ describe('size', () => {
     const many = { ...def, segments: Array.from({ length: SQL_MAX_SEGMENTS + 1 }, (_, i) => ({ ...def.segments[0], number: i + 1 })) };
     expect(() => definitionToSql(many, { table: 't' })).toThrow(/1001 segments.*at most 1000 segments/);
   });
+  it('SQLite: more features than its expression depth allows in one distance are refused, naming the limit', () => {
+    const def = definitionOf(2);
+    const wide = { ...def, features: Array.from({ length: 901 }, (_, i) => `f${i}`) };
+    expect(() => definitionToSql(wide, { table: 't', dialect: 'sqlite' })).toThrow(/901 features .*depth limit \(1000\).*at most 900/);
+  });
   it('a loaded definition writes the same SQL for the same dialect (deterministic)', () => {
     const handle = loadDefinition(definitionOf(3));
     for (const dialect of DIALECT_NAMES) expect(handle.toSql({ table: 't', dialect })).toBe(handle.toSql({ table: 't', dialect }));
