@@ -70,6 +70,8 @@ export interface SqlDialect {
    * overflow stops the query); such a row gets segment NULL. Infinity where no bound is needed.
    */
   readonly featureBound: number;
+  /** The engine's default cap on a statement's text, in UTF-8 bytes (undefined: none that matters). */
+  readonly maxQueryBytes?: number;
   /** What this dialect cannot do exactly, stated once in the SQL header and in the README. */
   readonly caveats: readonly string[];
 }

@@ -248,6 +248,8 @@ const clickhouse: SqlDialect = {
   name: 'clickhouse',
   title: 'ClickHouse',
   withClause: false,
+  // max_query_size: ClickHouse parses at most this much of a statement unless the setting is raised.
+  maxQueryBytes: 262_144,
   layerFence: 'none',
   quoteIdentifier: (name) => '`' + checkSqlText(name, 'the name').replace(/\\/g, '\\\\').replace(/`/g, '\\`') + '`',
   quoteString: clickhouseString,

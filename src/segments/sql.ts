@@ -34,6 +34,11 @@ export interface SqlOptions {
   dialect?: DialectName;
   /** An engine `{ dialect, query }`: its dialect is used. */
   engine?: Pick<SqlEngine, 'dialect'>;
+  /**
+   * The engine's cap on a statement's text in bytes, when you have raised it (ClickHouse:
+   * `max_query_size`, 262,144 by default). Longer SQL is refused with the reason.
+   */
+  maxQueryBytes?: number;
 }
 
 /** The most segments a definition may turn into SQL (the text holds k × features figures). */
@@ -100,7 +105,7 @@ function scaled(value: string, col: PreparedColumn, d: SqlDialect): string {
 }
 
 export function definitionToSql(definition: SegmentDefinition, options: SqlOptions): string {
-  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine'], 'toSql');
+  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes'], 'toSql');
   if (opts.table === undefined || opts.table === null) {
     throw new KinsortError('toSql: give the table to score, e.g. toSql({ table: "riders", dialect: "duckdb" }).', 'bad-argument');
   }
@@ -261,7 +266,20 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far.`,
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
-  return header.join('\n') + '\n' + render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d) + '\n';
+  const sql = header.join('\n') + '\n' + render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d) + '\n';
+  const cap = opts.maxQueryBytes ?? d.maxQueryBytes;
+  if (cap !== undefined) {
+    if (typeof cap !== 'number' || !(cap > 0)) throw new KinsortError('toSql: maxQueryBytes must be a positive number of bytes.', 'bad-option');
+    const bytes = Buffer.byteLength(sql, 'utf8');
+    if (bytes > cap) {
+      throw new KinsortError(
+        `toSql: the SQL for ${k} segments is ${bytes.toLocaleString('en-US')} bytes, beyond ${d.title}'s cap on a statement (${cap.toLocaleString('en-US')} bytes` +
+          `${d.name === 'clickhouse' ? ', max_query_size' : ''}). Raise the engine's setting and pass maxQueryBytes, or score with fewer segments.`,
+        'too-large',
+      );
+    }
+  }
+  return sql;
 }
 
 /** The layers as WITH clauses, or (ClickHouse 18) as nested SELECTs. */

@@ -107,6 +107,11 @@ describe('size', () => {
     const wide = { ...def, features: Array.from({ length: 901 }, (_, i) => `f${i}`) };
     expect(() => definitionToSql(wide, { table: 't', dialect: 'sqlite' })).toThrow(/901 features .*depth limit \(1000\).*at most 900/);
   });
+  it('ClickHouse: SQL beyond max_query_size (262,144 bytes by default) is refused unless a raised cap is given', () => {
+    const def = definitionOf(1000, 3000);
+    expect(() => definitionToSql(def, { table: 't', dialect: 'clickhouse' })).toThrow(/bytes, beyond ClickHouse's cap on a statement \(262,144 bytes, max_query_size\)/);
+    expect(definitionToSql(def, { table: 't', dialect: 'clickhouse', maxQueryBytes: 10_000_000 }).length).toBeGreaterThan(262_144);
+  });
   it('a loaded definition writes the same SQL for the same dialect (deterministic)', () => {
     const handle = loadDefinition(definitionOf(3));
     for (const dialect of DIALECT_NAMES) expect(handle.toSql({ table: 't', dialect })).toBe(handle.toSql({ table: 't', dialect }));
