@@ -14,6 +14,7 @@ export * from './methods/hierarchy';
 export * from './methods/project';
 export * from './assess';
 export * from './segments';
+export * from './engines';
 export * from './views';
 export * from './notebook';
 export * from './study';

@@ -15,6 +15,7 @@ import type { Segmentation } from '../study/segmentation';
 import type { ProgressCallback } from '../core/progress';
 import { loadDefinition } from '../segments/definition-handle';
 import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
+import { DIALECT_NAMES } from '../engines/dialect';
 import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';
 import { CSV_TARGETS, scoredCsv } from './csv-out';
 import { ASSIGN_HELP, FIT_HELP, SQL_HELP } from './help';
@@ -202,7 +203,9 @@ export function assignCommand(args: string[], io: Io): number {
   const target = values.for === undefined ? 'spreadsheet' : flagChoice(c, 'for', values.for, CSV_TARGETS, 'output target');
   if (out !== undefined) refuseOverwritingInput(c, out, [['definition file', defPath], ['data file', dataPath]]);
   const handle = loadDefinition(defPath);
-  const outcome = handle.assign(readCsvFile(dataPath));
+  // Read the file under the definition's stored schema (missing markers, decimal mark), never the defaults.
+  const prep = handle.definition.preparation as { missingMarkers?: string[]; decimalMark?: '.' | ',' };
+  const outcome = handle.assign(readCsvFile(dataPath, { missingMarkers: prep.missingMarkers, decimalMark: prep.decimalMark }));
   const idColumn = (handle.definition.preparation.idColumn as string | null) ?? 'row';
   const csv = scoredCsv(idColumn, outcome, target);
   // Without --out the CSV owns standard output; the summary goes to standard error.
@@ -221,12 +224,14 @@ export function assignCommand(args: string[], io: Io): number {
 export function sqlCommand(args: string[], io: Io): number {
   const c = 'sql';
   const { values, positionals } = parseCommandArgs(c, args, {
-    table: { type: 'string' }, 'id-column': { type: 'string' }, out: { type: 'string' },
+    table: { type: 'string' }, 'id-column': { type: 'string' }, dialect: { type: 'string' }, out: { type: 'string' },
   });
   if (values.help) return io.out(SQL_HELP), 0;
   const [defPath] = exactPositionals(positionals, ['DEF.json'], c);
   const table = requireString(values, 'table', c);
-  const sql = loadDefinition(defPath).toSql({ table, idColumn: optionalString(values, 'id-column') });
+  const given = optionalString(values, 'dialect');
+  const dialect = given === undefined ? 'duckdb' : flagChoice(c, 'dialect', given, DIALECT_NAMES, 'SQL dialect');
+  const sql = loadDefinition(defPath).toSql({ table, dialect, idColumn: optionalString(values, 'id-column') });
   const out = optionalString(values, 'out');
   if (out === undefined) io.out(sql);
   else {

@@ -4,7 +4,7 @@ export const MAIN_HELP = `kinsort — segments from a table of entities
 Usage:
   kinsort fit DATA.csv --id COL --use A,B,C --method kmeans|kmedoids|hierarchy --k N --out DEF.json
   kinsort assign DEF.json DATA.csv [--out SCORED.csv] [--for spreadsheet|database]
-  kinsort sql DEF.json --table NAME [--id-column COL] [--out QUERY.sql]
+  kinsort sql DEF.json --table NAME [--dialect duckdb|postgres|sqlite|clickhouse] [--id-column COL] [--out QUERY.sql]
 
 Run "kinsort COMMAND --help" for the options of each command.
 Errors print one line to standard error and exit with status 2. Text from the data echoed to
@@ -59,14 +59,20 @@ on standard error. Extra columns are ignored (said once).
                       database: every id exactly as given, to load and join on the source table
 `;
 
-export const SQL_HELP = `kinsort sql DEF.json --table NAME [--id-column COL] [--out QUERY.sql]
+export const SQL_HELP = `kinsort sql DEF.json --table NAME [--dialect duckdb|postgres|sqlite|clickhouse] [--id-column COL] [--out QUERY.sql]
 
-Write one portable SQL SELECT that computes the stored preparation and nearest segment where the
-data lives. Returns the id column, segment, distance and far. Only portable SQL is used, so the
-same text runs on an embedded engine and on a distributed SQL engine. Rows with a missing value
-that the stored policy does not fill get segment NULL.
+Write one SQL SELECT that scores every row of a table where the data lives: the stored text rule
+(missing markers, ASCII-space trimming, the number grammar, exact level text), the stored
+preparation and the nearest segment, giving the same segment as "kinsort assign" on the same
+cells. Returns the id column, segment, distance and far. A row that assign refuses (a missing
+value the stored policy does not fill, text in a numeric column, an unknown binary or ordinal
+level) gets segment NULL. Read cells as text (for example DuckDB's read_csv(..., all_varchar =
+true)): a value the database already converted (leading zeros dropped) cannot be recovered.
 
-  --table NAME        table or view to score (a qualified name such as schema.table is written as given)
+  --table NAME        table or view to score; schema.table is split at the dot and each part quoted;
+                      quotes and control characters are refused
+  --dialect NAME      duckdb (default), postgres, sqlite or clickhouse (18.16 and later: nested
+                      SELECTs, no WITH)
   --id-column COL     id column, when it differs from the training table's
   --out QUERY.sql     write to a file instead of standard output
 `;

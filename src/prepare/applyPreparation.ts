@@ -6,7 +6,9 @@ import { isTable, type Cell, type Table } from '../table/types';
 import { assemble } from './assemble';
 import { readIds, rowText } from './ids';
 import { applyMissingPolicy } from './missing';
-import type { Preparation, PreparedData } from './types';
+import { parseNumericColumn } from './values';
+import { PREPARATION_VERSION, type Preparation, type PreparedData } from './types';
+import { TEXT_RULE } from '../table/cells';
 
 export interface ApplyPreparationOptions {
   /** Id column of the new rows when it differs from training; null for "1".."n". */
@@ -17,9 +19,47 @@ function checkPreparation(p: Preparation): void {
   if (typeof p !== 'object' || p === null || p.format !== 'kinsort-preparation' || !Array.isArray(p.columns)) {
     throw new KinsortError('applyPreparation: the first argument is not a kinsort preparation.', 'bad-definition');
   }
-  if (p.version !== 1) {
-    throw new KinsortError(`applyPreparation: preparation version ${p.version} is not supported (this package reads 1).`, 'bad-definition');
+  if ((p.version as number) === 1) {
+    throw new KinsortError(
+      'applyPreparation: this preparation is version 1, written before the schema was stored (text rule, missing ' +
+        'markers, level matching); re-applying it could read cells differently from training. Fit the preparation ' +
+        'again with this kinsort (prepareTable on the training rows).',
+      'bad-definition',
+    );
   }
+  if (p.version !== PREPARATION_VERSION) {
+    throw new KinsortError(
+      `applyPreparation: preparation version ${JSON.stringify(p.version)} is not supported (this package reads ${PREPARATION_VERSION}).`,
+      'bad-definition',
+    );
+  }
+  if (p.textRule !== TEXT_RULE) {
+    throw new KinsortError(`applyPreparation: text rule ${JSON.stringify(p.textRule)} is not one this package knows (it reads "${TEXT_RULE}").`, 'bad-definition');
+  }
+}
+
+/**
+ * The new rows as a Table read under the preparation's stored schema: its missing markers and
+ * decimal mark. Nothing about the batch is inferred that the transform uses (types and levels are
+ * the stored ones), so a row gives the same result alone or beside any other rows.
+ */
+export function readUnderSchema(p: Preparation, input: unknown, where: string): Table {
+  if (!isTable(input)) return readTable(input, { missingMarkers: p.missingMarkers, decimalMark: p.decimalMark });
+  const same = (a: readonly string[], b: readonly string[]) => a.length === b.length && a.every((x, i) => x === b[i]);
+  if (input.missingMarkers !== undefined && !same(input.missingMarkers, p.missingMarkers)) {
+    throw new KinsortError(
+      `${where}: the Table was read with missing markers ${JSON.stringify(input.missingMarkers)}, but the preparation ` +
+        `stores ${JSON.stringify(p.missingMarkers)}; give the raw rows (or read them with the stored markers) so cells mean the same.`,
+      'bad-input',
+    );
+  }
+  if (input.decimalMark !== undefined && input.decimalMark !== p.decimalMark) {
+    throw new KinsortError(
+      `${where}: the Table was read with decimal mark "${input.decimalMark}", but the preparation stores "${p.decimalMark}".`,
+      'bad-input',
+    );
+  }
+  return input;
 }
 
 /**
@@ -35,7 +75,7 @@ export function applyPreparation(
 ): PreparedData {
   checkPreparation(preparation);
   const opts = checkOptions(options, ['id'], 'applyPreparation');
-  const table = isTable(input) ? input : readTable(input);
+  const table = readUnderSchema(preparation, input, 'applyPreparation');
   const names = table.columns.map((c) => c.name);
   const idColumn = opts.id === undefined ? preparation.idColumn : opts.id;
   if (idColumn !== null && !names.includes(idColumn)) {
@@ -66,7 +106,12 @@ export function applyPreparation(
 
   const ids = readIds(table, idColumn, 'applyPreparation');
   const where = (row: number) => rowText(row, ids, idColumn !== null);
-  const raw = new Map<string, readonly Cell[]>(needed.map((n) => [n, table.columns.find((c) => c.name === n)!.values]));
+  const raw = new Map<string, readonly Cell[]>(
+    preparation.columns.map((spec) => {
+      const values = table.columns.find((c) => c.name === spec.name)!.values;
+      return [spec.name, spec.type === 'numeric' ? parseNumericColumn(values, spec.name, where, preparation.decimalMark) : values];
+    }),
+  );
   const outcome = applyMissingPolicy({
     policy: preparation.missing,
     names: needed,
@@ -96,6 +141,7 @@ export function applyPreparation(
     kept: outcome.kept,
     where,
     profileColumns: [...keepPresent, ...usedPresent],
+    parsed: raw,
     report: {
       inputRows: table.rowCount,
       dropped: outcome.dropped,

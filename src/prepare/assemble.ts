@@ -1,5 +1,6 @@
 // Shared last step of fitting and re-applying: run the transform and build PreparedData.
 import { createMatrix } from '../core/matrix';
+import { cellNumber, type DecimalMark } from '../table/cells';
 import type { Cell, Table } from '../table/types';
 import { transformRows } from './transform';
 import type { Preparation, PreparationReport, PreparedData } from './types';
@@ -14,6 +15,8 @@ export interface AssembleInput {
   where: (row: number) => string;
   /** Columns whose raw values go into the profile (keep + used), those present in the table. */
   profileColumns: readonly string[];
+  /** Used columns already parsed (numeric ones as numbers, missing still null), reused for the profile. */
+  parsed?: ReadonlyMap<string, readonly Cell[]>;
   report: Omit<PreparationReport, 'keptRows' | 'unseenLevels'>;
 }
 
@@ -25,14 +28,20 @@ export function assemble(input: AssembleInput): PreparedData {
     rows: kept,
     ids: input.ids,
     where: input.where,
+    decimalMark: preparation.decimalMark,
   });
   const ids = pick(input.ids, kept);
   const featureNames = [...preparation.featureNames];
   const matrix = createMatrix(kept.length, featureNames.length, data, { rowLabels: ids, colNames: featureNames });
-  const profile: Record<string, Cell[]> = {};
+  // Keys come from the data: a null-prototype object, so a column named "__proto__" is a column.
+  const profile: Record<string, Cell[]> = Object.create(null);
+  const specs = new Map(preparation.columns.map((c) => [c.name, c]));
   for (const name of input.profileColumns) {
-    const values = table.columns.find((c) => c.name === name)!.values;
-    profile[name] = pick(values, kept);
+    const column = table.columns.find((c) => c.name === name)!;
+    const numeric = (specs.get(name)?.type ?? column.declared ?? column.inferred) === 'numeric';
+    const parsed = numeric ? input.parsed?.get(name) : undefined;
+    const values = pick(parsed ?? column.values, kept);
+    profile[name] = numeric && parsed === undefined ? asNumbers(values, preparation.decimalMark) : values;
   }
   const report: PreparationReport = { ...input.report, keptRows: kept.length, unseenLevels: unseen };
   return {
@@ -45,6 +54,22 @@ export function assemble(input: AssembleInput): PreparedData {
     mixed: { kind: 'mixed', rows: kept.length, columns: mixed, rowLabels: ids },
     profile: { columns: profile },
   };
+}
+
+/** A numeric column's cells as numbers for the profile, when every present cell is one; else as given. */
+function asNumbers(values: Cell[], decimalMark: DecimalMark): Cell[] {
+  const out = new Array<Cell>(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    if (v === null) {
+      out[i] = null;
+      continue;
+    }
+    const n = cellNumber(v, decimalMark);
+    if (n === undefined || !Number.isFinite(n)) return values;
+    out[i] = n;
+  }
+  return out;
 }
 
 /** values[rows[r]] for each r (a plain loop: Array.from with a map function is slow on large inputs). */

@@ -1,6 +1,6 @@
 // Fitting one used column: its levels, centre and spread from the kept training rows.
 import { KinsortError } from '../core/errors';
-import { levelKey, sortLevels } from '../table/cells';
+import { isTrueFalse, levelKey, sortLevels, type DecimalMark } from '../table/cells';
 import type { Cell } from '../table/types';
 import type { UsedColumn } from './roles';
 import { quantileSorted } from '../core/quantile';
@@ -13,6 +13,7 @@ export interface FitContext {
   log: boolean;
   weight: number;
   fill: number | string | null;
+  decimalMark: DecimalMark;
   where: (row: number) => string;
   notes: string[];
 }
@@ -26,6 +27,7 @@ export function fitColumn(
 ): PreparedColumn | null {
   const { name, type } = column;
   const base = { name, type, log: ctx.log, weight: ctx.weight, fill: ctx.fill };
+  const exact = { ...base, levelMatch: 'exact' as const };
   if (type === 'numeric' || type === 'ordinal') {
     const levels = type === 'ordinal' ? column.ordinalLevels! : null;
     const codes = levels ? levelCodes(levels) : null;
@@ -35,7 +37,7 @@ export function fitColumn(
       const cell = cells[row] as Exclude<Cell, null>;
       values[r] = codes
         ? requireLevel(cell, codes, name, 'ordinal', ctx.where, row)
-        : numericCell(cell, name, ctx.log, ctx.where, row);
+        : numericCell(cell, name, ctx.log, ctx.where, row, ctx.decimalMark);
     }
     const [lo, hi] = minMax(values);
     if (!(hi > lo)) return null;
@@ -51,7 +53,22 @@ export function fitColumn(
       );
     }
     // `+ 0` turns a -0 centre into +0: JSON writes -0 as 0, and the re-applied matrix must match bit for bit.
-    return { ...base, levels: levels ? [...levels] : null, centre: centre + 0, spread, spreadKind, features: [name] };
+    return {
+      ...base,
+      levels: levels ? [...levels] : null,
+      levelMatch: levels ? 'exact' : null,
+      centre: centre + 0,
+      spread,
+      spreadKind,
+      features: [name],
+    };
+  }
+  if (type === 'binary') {
+    const trueFalse = trueFalseLevels(cells, kept);
+    if (trueFalse === 'constant') return null;
+    if (trueFalse !== null) {
+      return { ...base, levels: trueFalse, levelMatch: 'ascii-case', centre: 0, spread: 1, spreadKind: 'none', features: [name] };
+    }
   }
   const present = new Set<string>();
   for (let r = 0; r < kept.length; r++) present.add(levelKey(cells[kept[r]] as Exclude<Cell, null>));
@@ -66,11 +83,37 @@ export function fitColumn(
         'bad-input',
       );
     }
-    const plain = (levels[0] === '0' && levels[1] === '1') || (levels[0] === 'false' && levels[1] === 'true');
+    const plain = levels[0] === '0' && levels[1] === '1';
     const feature = plain ? name : `${name}=${levels[1]}`;
-    return { ...base, levels, centre: 0, spread: 1, spreadKind: 'none', features: [feature] };
+    return { ...exact, levels, centre: 0, spread: 1, spreadKind: 'none', features: [feature] };
   }
-  return { ...base, levels, centre: 0, spread: 1, spreadKind: 'none', features: levels.map((l) => `${name}=${l}`) };
+  return { ...exact, levels, centre: 0, spread: 1, spreadKind: 'none', features: levels.map((l) => `${name}=${l}`) };
+}
+
+/**
+ * A binary column whose cells are all true/false in ASCII letters of any case is one column: its two
+ * levels are [false, true], each stored in the spelling the training rows use most (ties: code-unit
+ * order), matched ignoring case. null when the cells are anything else; 'constant' when only one of
+ * the two occurs.
+ */
+function trueFalseLevels(cells: readonly Cell[], kept: Int32Array): [string, string] | 'constant' | null {
+  const spellings = new Map<string, number>();
+  for (let r = 0; r < kept.length; r++) {
+    const cell = cells[kept[r]];
+    if (typeof cell !== 'string' || !isTrueFalse(cell)) return null;
+    spellings.set(cell, (spellings.get(cell) ?? 0) + 1);
+  }
+  const pick = (lower: string): string | undefined => {
+    let best: string | undefined;
+    for (const s of sortLevels(spellings.keys())) {
+      if (s.toLowerCase() === lower && (best === undefined || spellings.get(s)! > spellings.get(best)!)) best = s;
+    }
+    return best;
+  };
+  const f = pick('false');
+  const t = pick('true');
+  if (f === undefined || t === undefined) return 'constant';
+  return [f, t];
 }
 
 function scaleOf(
@@ -112,6 +155,7 @@ export function fillValue(
   column: UsedColumn,
   cells: readonly Cell[],
   where: (row: number) => string,
+  decimalMark: DecimalMark = '.',
 ): number | string {
   const rows: number[] = [];
   cells.forEach((c, i) => {
@@ -121,7 +165,7 @@ export function fillValue(
     throw new KinsortError(`column "${column.name}" has no values at all, so there is nothing to impute from.`, 'empty');
   }
   if (column.type === 'numeric') {
-    const values = Float64Array.from(rows, (i) => numericCell(cells[i]!, column.name, false, where, i));
+    const values = Float64Array.from(rows, (i) => numericCell(cells[i]!, column.name, false, where, i, decimalMark));
     return median(values) + 0; // no -0: it would not survive JSON
   }
   const counts = new Map<string, number>();

@@ -1,4 +1,4 @@
-// Row ids: from the id column (unique, never missing) or "1".."n".
+// Row ids: the id column's exact text (unique, never missing; never parsed, trimmed or re-formatted) or "1".."n".
 import { KinsortError } from '../core/errors';
 import { levelKey } from '../table/cells';
 import type { Table } from '../table/types';
@@ -19,7 +19,7 @@ export function readIds(table: Table, idColumn: string | null, where: string): s
     const before = firstRow.get(id);
     if (before !== undefined) {
       throw new KinsortError(
-        `${where}: id "${id}" appears twice in column "${idColumn}" (rows ${before + 1} and ${i + 1}); ids must be unique.`,
+        `${where}: id ${JSON.stringify(id)} appears twice in column "${idColumn}" (rows ${before + 1} and ${i + 1}); ids must be unique.`,
         'duplicate-id',
       );
     }
@@ -30,5 +30,5 @@ export function readIds(table: Table, idColumn: string | null, where: string): s
 
 /** How a row is named in messages: its 1-based input position, and its id when there is an id column. */
 export function rowText(row: number, ids: readonly string[], hasIdColumn: boolean): string {
-  return hasIdColumn ? `row ${row + 1} (id "${ids[row]}")` : `row ${row + 1}`;
+  return hasIdColumn ? `row ${row + 1} (id ${JSON.stringify(ids[row])})` : `row ${row + 1}`;
 }

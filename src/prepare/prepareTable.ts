@@ -2,15 +2,18 @@
 import { KinsortError, checkChoice } from '../core/errors';
 import { checkNumber, checkOptions } from '../core/options';
 import { readTable } from '../table/read';
+import { DEFAULT_MISSING_MARKERS, TEXT_RULE } from '../table/cells';
 import { requireColumn } from '../table/names';
 import { isTable, type Cell, type Table } from '../table/types';
 import { assemble } from './assemble';
 import { fillValue, fitColumn } from './fit';
 import { readIds, rowText } from './ids';
 import { applyMissingPolicy } from './missing';
+import { parseNumericColumn } from './values';
 import { resolveRoles } from './roles';
 import {
   MISSING_POLICIES,
+  PREPARATION_VERSION,
   SCALE_METHODS,
   type PreparedColumn,
   type Preparation,
@@ -18,7 +21,9 @@ import {
   type PreparedData,
 } from './types';
 
-const PREPARE_OPTIONS = ['id', 'use', 'keep', 'types', 'ordinalLevels', 'scale', 'log', 'weights', 'missing'];
+const PREPARE_OPTIONS = [
+  'id', 'use', 'keep', 'types', 'ordinalLevels', 'scale', 'log', 'weights', 'missing', 'missingMarkers', 'decimalMark',
+];
 
 /**
  * Fit a preparation on `input` (a Table or anything readTable accepts) and apply it. Scaling:
@@ -28,12 +33,21 @@ const PREPARE_OPTIONS = ['id', 'use', 'keep', 'types', 'ordinalLevels', 'scale',
  */
 export function prepareTable(input: Table | unknown, options?: PrepareOptions): PreparedData {
   const opts = checkOptions(options, PREPARE_OPTIONS, 'prepareTable');
-  const table = isTable(input) ? input : readTable(input);
+  if (isTable(input) && (opts.missingMarkers !== undefined || opts.decimalMark !== undefined)) {
+    throw new KinsortError(
+      'prepareTable: the input is already a Table; missingMarkers and decimalMark apply when reading, so give them to readTable.',
+      'bad-option',
+    );
+  }
+  const table = isTable(input)
+    ? input
+    : readTable(input, { missingMarkers: opts.missingMarkers, decimalMark: opts.decimalMark });
+  const decimalMark = table.decimalMark ?? '.';
   const scale = checkChoice(opts.scale ?? 'zscore', SCALE_METHODS, 'scale method');
   const policy = checkChoice(opts.missing ?? 'refuse', MISSING_POLICIES, 'missing-value policy');
   const roles = resolveRoles(table, opts);
   const usedNames = roles.use.map((c) => c.name);
-  const notes = [...roles.notes];
+  const notes = [...(table.notes ?? []), ...roles.notes];
 
   const logged = new Set<string>();
   if (opts.log !== undefined) {
@@ -55,7 +69,13 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
 
   const ids = readIds(table, roles.idColumn, 'prepareTable');
   const where = (row: number) => rowText(row, ids, roles.idColumn !== null);
-  const raw = new Map<string, readonly Cell[]>(usedNames.map((n) => [n, table.columns.find((c) => c.name === n)!.values]));
+  // Numeric columns are parsed once here (under the text rule), not again in every later step.
+  const raw = new Map<string, readonly Cell[]>(
+    roles.use.map((u) => {
+      const values = table.columns.find((c) => c.name === u.name)!.values;
+      return [u.name, u.type === 'numeric' ? parseNumericColumn(values, u.name, where, decimalMark) : values];
+    }),
+  );
   const outcome = applyMissingPolicy({
     policy,
     names: usedNames,
@@ -63,7 +83,7 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
     rowCount: table.rowCount,
     ids,
     where,
-    fillFor: (name) => fillValue(roles.use.find((c) => c.name === name)!, raw.get(name)!, where),
+    fillFor: (name) => fillValue(roles.use.find((c) => c.name === name)!, raw.get(name)!, where, decimalMark),
   });
   if (outcome.kept.length === 0) {
     throw new KinsortError(
@@ -83,6 +103,7 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
       log: logged.has(used.name),
       weight: weights.get(used.name) ?? 1,
       fill: fills.get(used.name) ?? null,
+      decimalMark,
       where,
       notes,
     });
@@ -103,7 +124,10 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
   }
   const preparation: Preparation = {
     format: 'kinsort-preparation',
-    version: 1,
+    version: PREPARATION_VERSION,
+    textRule: TEXT_RULE,
+    missingMarkers: [...(table.missingMarkers ?? DEFAULT_MISSING_MARKERS)],
+    decimalMark,
     idColumn: roles.idColumn,
     scale,
     missing: policy,
@@ -120,6 +144,7 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
     kept: outcome.kept,
     where,
     profileColumns: [...roles.keep, ...usedNames],
+    parsed: raw,
     report: {
       inputRows: table.rowCount,
       dropped: outcome.dropped,

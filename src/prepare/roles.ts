@@ -2,7 +2,8 @@
 import { KinsortError } from '../core/errors';
 import { checkTypeOverrides } from '../table/read';
 import { requireColumn } from '../table/names';
-import type { DeclaredType, Table } from '../table/types';
+import { cellNumber } from '../table/cells';
+import type { Cell, DeclaredType, Table } from '../table/types';
 import type { PrepareOptions } from './types';
 
 export interface UsedColumn {
@@ -28,6 +29,18 @@ function nameList(value: unknown, option: string, names: readonly string[]): str
   const dup = list.find((n, i) => list.indexOf(n) !== i);
   if (dup !== undefined) throw new KinsortError(`prepareTable: ${option} lists "${dup}" twice.`, 'bad-option');
   return list;
+}
+
+/** Every cell present and a distinct whole number (at least 3 rows): it reads like a row id. */
+function looksLikeRowIds(values: readonly Cell[]): boolean {
+  if (values.length < 3) return false;
+  const seen = new Set<number>();
+  for (const v of values) {
+    const n = v === null ? undefined : cellNumber(v);
+    if (n === undefined || !Number.isInteger(n) || seen.has(n)) return false;
+    seen.add(n);
+  }
+  return true;
 }
 
 export function resolveRoles(table: Table, opts: PrepareOptions): Roles {
@@ -59,6 +72,7 @@ export function resolveRoles(table: Table, opts: PrepareOptions): Roles {
     for (const c of table.columns) {
       if (c.name === idColumn || keep.includes(c.name)) continue;
       const declared = overrides.types.get(c.name) ?? c.declared;
+      if (c.rowNames && declared === undefined) continue;
       if (declared === undefined && c.inferred === 'text') text.push(c.name);
       else useNames.push(c.name);
     }
@@ -70,6 +84,30 @@ export function resolveRoles(table: Table, opts: PrepareOptions): Roles {
     }
   }
   if (useNames.length === 0) throw new KinsortError('prepareTable: no feature columns to use.', 'empty');
+  for (const name of [...useNames, ...keep]) {
+    const column = table.columns.find((c) => c.name === name)!;
+    if (column.commaNumberRow !== undefined && (overrides.types.get(name) ?? column.declared) === undefined) {
+      const cell = column.values[column.commaNumberRow];
+      throw new KinsortError(
+        `prepareTable: column "${name}" holds numbers written with a decimal comma or thousands separator ` +
+          `(row ${column.commaNumberRow + 1}: ${JSON.stringify(cell)}); kinsort does not guess which. Read the data with ` +
+          `decimalMark: ',' if "," is the decimal mark, remove thousands separators, or declare the column's type ` +
+          `(types: { "${name}": 'categorical' }) to keep the texts as levels.`,
+        'bad-input',
+      );
+    }
+  }
+  if (idColumn === null) {
+    for (const name of useNames) {
+      const column = table.columns.find((c) => c.name === name)!;
+      if (looksLikeRowIds(column.values)) {
+        notes.push(
+          `Column "${name}" holds a different whole number in every row, as a row id does, and it is used as a ` +
+            `feature because no id column is named. If it identifies rows, give { id: '${name}' }.`,
+        );
+      }
+    }
+  }
 
   const use = useNames.map((name): UsedColumn => {
     const column = table.columns.find((c) => c.name === name)!;

@@ -1,7 +1,7 @@
 // The one transform from (imputed) cells to features, shared by fitting and re-applying, so the
 // training matrix and a re-applied one are identical bit for bit.
 import type { MixedColumn } from '../core/mixed';
-import { levelKey } from '../table/cells';
+import { levelKey, type DecimalMark } from '../table/cells';
 import type { Cell } from '../table/types';
 import type { PreparedColumn, UnseenLevel } from './types';
 import { levelCodes, levelIndex, numericCell, requireLevel } from './values';
@@ -15,6 +15,7 @@ export interface TransformInput {
   rows: Int32Array;
   ids: readonly string[];
   where: (row: number) => string;
+  decimalMark: DecimalMark;
 }
 
 export interface TransformOutput {
@@ -36,7 +37,7 @@ export function transformRows(input: TransformInput): TransformOutput {
     const cells = input.cells.get(spec.name)!;
     const codes = new Float64Array(n);
     const levels = spec.levels ?? [];
-    const codesOf = levelCodes(levels);
+    const codesOf = levelCodes(levels, spec.levelMatch ?? 'exact');
     const where = input.where;
     for (let r = 0; r < n; r++) {
       const row = rows[r];
@@ -44,7 +45,7 @@ export function transformRows(input: TransformInput): TransformOutput {
       const at = r * p + offset;
       switch (spec.type) {
         case 'numeric': {
-          const v = numericCell(cell, spec.name, spec.log, where, row);
+          const v = numericCell(cell, spec.name, spec.log, where, row, input.decimalMark);
           codes[r] = v;
           data[at] = ((v - spec.centre) / spec.spread) * spec.weight;
           break;

@@ -2,7 +2,11 @@
 // report a person reads, and the prepared data the numeric layers take.
 import type { Matrix } from '../core/matrix';
 import type { MixedTable } from '../core/mixed';
+import type { DecimalMark } from '../table/cells';
 import type { Cell, DeclaredType } from '../table/types';
+
+/** Version of the Preparation format; 2 stores the schema (text rule, missing markers, decimal mark, level matching). */
+export const PREPARATION_VERSION = 2;
 
 export type ScaleMethod = 'none' | 'zscore' | 'robust' | 'minmax';
 export type MissingPolicy = 'refuse' | 'drop' | 'median';
@@ -31,6 +35,10 @@ export interface PrepareOptions {
   weights?: Record<string, number>;
   /** Default 'refuse'. */
   missing?: MissingPolicy;
+  /** Intake (when the input is not a Table yet): texts meaning missing besides an empty cell. */
+  missingMarkers?: readonly string[];
+  /** Intake (when the input is not a Table yet): '.' (default) or ','. */
+  decimalMark?: DecimalMark;
 }
 
 /** How one used column becomes features. Plain JSON: no typed arrays, no functions. */
@@ -40,8 +48,13 @@ export interface PreparedColumn {
   /** numeric only: log1p applied before centring. */
   log: boolean;
   weight: number;
-  /** binary: [level coded 0, level coded 1]; categorical: sorted levels; ordinal: lowest first. */
+  /** binary: [level coded 0, level coded 1]; categorical: sorted levels; ordinal: lowest first. Exact text. */
   levels: string[] | null;
+  /**
+   * How a cell's text is matched to a level: 'exact' (code units, no trimming) or 'ascii-case'
+   * (binary true/false columns: ASCII letters of any case). null for numeric columns.
+   */
+  levelMatch: 'exact' | 'ascii-case' | null;
   /** numeric / ordinal: subtracted after log (ordinal: from the rank 0..L-1). 0 for others. */
   centre: number;
   /** numeric / ordinal: divisor after centring. 1 for others. */
@@ -56,7 +69,14 @@ export interface PreparedColumn {
 
 export interface Preparation {
   format: 'kinsort-preparation';
-  version: 1;
+  version: 2;
+  /** The text rule cells are read with (table/cells.ts; docs/stored-schema.md). */
+  textRule: 'kinsort-text-1';
+  /** Texts meaning missing besides an empty cell, compared after trimming ASCII spaces. */
+  missingMarkers: string[];
+  /** Decimal mark of numbers written as text. */
+  decimalMark: DecimalMark;
+  /** Column of row ids (exact text), or null when rows are numbered 1..n. */
   idColumn: string | null;
   scale: ScaleMethod;
   missing: MissingPolicy;

@@ -6,16 +6,20 @@
 import { KinsortError, didYouMean } from '../core/errors';
 import { checkOptions } from '../core/options';
 import { applyPreparation } from '../prepare';
+import { readUnderSchema } from '../prepare/applyPreparation';
 import { readIds } from '../prepare/ids';
 import type { ImputedColumn, Preparation, PreparedData, UnseenLevel } from '../prepare/types';
 import { readTable } from '../table';
-import type { Table, TableColumn } from '../table/types';
+import { isTable, type Table, type TableColumn } from '../table/types';
 import { nearestCenters } from './assign-nearest';
 import type { SegmentDefinition } from './definition-types';
 
 export interface AssignOptions {
-  /** Passed to readTable when the input is not a Table yet (e.g. a CSV delimiter). */
-  read?: Record<string, unknown>;
+  /**
+   * Reading CSV text: { delimiter }. Types, missing markers and the decimal mark are never taken from
+   * here or from the batch: the definition stores them.
+   */
+  read?: { delimiter?: ',' | ';' | '\t' };
 }
 
 export interface AssignedRow {
@@ -72,7 +76,11 @@ function subsetTable(table: Table, names: readonly string[], rows: readonly numb
 export function assignRows(definition: SegmentDefinition, input: unknown, options?: AssignOptions): AssignmentOutcome {
   const opts = checkOptions(options, ['read'], 'assign');
   const prep = definition.preparation as unknown as Preparation;
-  const table = readTable(input, opts.read as never);
+  const read = checkOptions(opts.read, ['delimiter'], 'assign read');
+  const table =
+    read.delimiter === undefined || isTable(input)
+      ? readUnderSchema(prep, input, 'assign')
+      : readTable(input, { delimiter: read.delimiter, missingMarkers: prep.missingMarkers, decimalMark: prep.decimalMark });
   const names = table.columns.map((c) => c.name);
   const needed = [...(prep.idColumn === null ? [] : [prep.idColumn]), ...prep.columns.map((c) => c.name)];
   const absent = needed.filter((n) => !names.includes(n));

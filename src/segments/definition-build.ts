@@ -4,7 +4,7 @@ import { KinsortError, checkChoice } from '../core/errors';
 import { checkOptions } from '../core/options';
 import { Matrix, toMatrix } from '../core/matrix';
 import { compactLabels } from '../core/assignment';
-import { JsonValue, sortedKeys } from './definition-json';
+import { JsonValue, sortedKeys, writeDefinitionJson } from './definition-json';
 import {
   ASSIGNMENT_RULES,
   AssignmentRule,
@@ -17,9 +17,12 @@ import {
   DefinitionSegment,
   FAR_PERCENTILE,
   SegmentDefinition,
+  TRAINING_LABELS,
+  TrainingLabels,
 } from './definition-types';
+import { readDefinition } from './definition-validate';
 import { fingerprintRows } from './fingerprint';
-import { percentile, pointToCenter } from './assign-nearest';
+import { nearestCenters, percentile, pointToCenter } from './assign-nearest';
 import { kinsortVersion } from './definition-version';
 
 export interface DefinitionSegmentInput {
@@ -49,10 +52,16 @@ export interface BuildDefinitionInput {
   note?: string;
   /** Defaults to this package's version. */
   packageVersion?: string;
+  /**
+   * 'fit' (default): the training assignment is the method's. 'rule': the caller relabelled the
+   * segmentation by this definition's own rule; then every training row must be reproduced.
+   */
+  labels?: TrainingLabels;
 }
 
 const INPUT_KEYS = [
-  'preparation', 'method', 'centers', 'medoids', 'rule', 'metric', 'segments', 'training', 'evidence', 'note', 'packageVersion',
+  'preparation', 'method', 'centers', 'medoids', 'rule', 'metric', 'segments', 'training', 'evidence', 'note',
+  'packageVersion', 'labels',
 ];
 
 function featureNamesOf(preparation: object, matrix: Matrix): string[] {
@@ -167,7 +176,20 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
     };
   });
 
-  return {
+  // How many training rows the stored rule gives their fitted segment (the same loop assign runs).
+  const rule0 = nearestCenters(matrix.data, matrix.rows, flatCenters, k, dims, metric);
+  let reproducedRows = 0;
+  for (let i = 0; i < matrix.rows; i++) if (rule0.segment[i] === labels[i]) reproducedRows++;
+  const trainingLabels = checkChoice(input.labels ?? 'fit', TRAINING_LABELS, 'training labels');
+  if (trainingLabels === 'rule' && reproducedRows !== matrix.rows) {
+    throw new KinsortError(
+      `${where}: labels 'rule' says the segments were relabelled by the nearest-${rule === 'nearest-medoid' ? 'medoid' : 'centre'} rule, ` +
+        `but the rule gives ${matrix.rows - reproducedRows} of ${matrix.rows} training rows another segment.`,
+      'bad-input',
+    );
+  }
+
+  const built: SegmentDefinition = {
     kind: DEFINITION_KIND,
     formatVersion: DEFINITION_FORMAT_VERSION,
     writtenBy: `kinsort ${input.packageVersion ?? kinsortVersion()}`,
@@ -178,7 +200,14 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
     preparation: sortedKeys(input.preparation) as { [key: string]: JsonValue },
     features,
     segments,
-    training: { rows: matrix.rows, fingerprint: fingerprintRows(ids.map(String), matrix) },
+    training: {
+      rows: matrix.rows,
+      fingerprint: fingerprintRows(ids.map(String), matrix),
+      reproducedRows,
+      labels: trainingLabels,
+    },
     evidence: input.evidence === undefined ? undefined : (sortedKeys(finiteOrNull(input.evidence)) as { [key: string]: JsonValue }),
   };
+  // What is built must load: the loader's checks (schema, names, case clashes, sizes) run on it too.
+  return readDefinition(JSON.parse(writeDefinitionJson(built)), where);
 }

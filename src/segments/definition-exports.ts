@@ -8,4 +8,5 @@ export { DEFINITION_FORMAT_VERSION, DEFINITION_KIND, FAR_PERCENTILE } from './de
 export type { SegmentDefinition, DefinitionSegment, AssignmentRule, DefinitionMetric, DefinitionMethodName } from './definition-types';
 export type { AssignmentOutcome, AssignedRow, AssignmentReport, RefusedRow, AssignOptions } from './assign-rows';
 export type { SqlOptions } from './sql';
+export { SQL_MAX_SEGMENTS, SQL_MAX_FIGURES } from './sql';
 export { fingerprintRows } from './fingerprint';

@@ -55,6 +55,8 @@ export function sortedKeys(value: unknown): JsonValue {
   if (Array.isArray(value)) return value.map((v) => (v === undefined ? null : sortedKeys(v)));
   const out: { [key: string]: JsonValue } = {};
   for (const key of Object.keys(value as object).sort()) {
+    // Copied into a plain object, this key would set its prototype instead of a property.
+    if (key === '__proto__') throw new KinsortError('definition: a key "__proto__" cannot be stored in a definition.', 'bad-definition');
     const v = (value as Record<string, unknown>)[key];
     // Callbacks (e.g. a progress callback among the method's options) do not shape a result.
     if (v !== undefined && typeof v !== 'function') out[key] = sortedKeys(v);

@@ -4,8 +4,17 @@ import type { JsonValue } from './definition-json';
 
 /** Marks the file as ours, whatever its name. */
 export const DEFINITION_KIND = 'kinsort segment definition';
-/** Bumped whenever a reader of an older version could misread the file. */
-export const DEFINITION_FORMAT_VERSION = 1;
+/**
+ * Bumped whenever a reader of an older version could misread the file. Format 2 stores the schema
+ * (text rule, missing markers, decimal mark, level matching: preparation version 2) and how many
+ * training rows the rule reproduces; format 1 files are refused with a message (they cannot be
+ * migrated without guessing how their cells were read).
+ */
+export const DEFINITION_FORMAT_VERSION = 2;
+
+/** Where the training rows' segments in the file come from. */
+export type TrainingLabels = 'fit' | 'rule';
+export const TRAINING_LABELS: readonly TrainingLabels[] = ['fit', 'rule'];
 
 export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy';
 export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy'];
@@ -63,6 +72,15 @@ export interface SegmentDefinition {
     readonly rows: number;
     /** Order-independent hash of ids + prepared values (see fingerprint.ts). */
     readonly fingerprint: string;
+    /**
+     * How many training rows the stored rule (nearest centre / medoid) gives the segment the fit
+     * gave them. Equal to `rows` for k-means (its centres and assignment are a fixed point) and for
+     * a segmentation relabelled by its own rule; smaller for a hierarchy cut or k-medoids whose
+     * members are not all nearest their own centre.
+     */
+    readonly reproducedRows: number;
+    /** 'fit': segments (and sizes) as the method gave them; 'rule': relabelled by the stored rule, on request. */
+    readonly labels: TrainingLabels;
   };
   /** Optional evidence for the choice of k (keys sorted), as the caller gives it. */
   readonly evidence?: { [key: string]: JsonValue };

@@ -1,6 +1,6 @@
 // Read a definition from text or a parsed object and check every key, saying which key is wrong,
 // what it holds and what was expected. A file from a newer format is refused with an upgrade hint.
-import { KinsortError, didYouMean } from '../core/errors';
+import { KinsortError } from '../core/errors';
 import { JsonValue, sortedKeys } from './definition-json';
 import {
   ASSIGNMENT_RULES,
@@ -10,9 +10,10 @@ import {
   DEFINITION_METRICS,
   DefinitionSegment,
   SegmentDefinition,
+  TRAINING_LABELS,
 } from './definition-types';
 import { kinsortVersion } from './definition-version';
-import { checkStoredPreparation } from './definition-validate-preparation';
+import { checkName, checkStoredPreparation, onlyKeys } from './definition-validate-preparation';
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');
@@ -43,11 +44,31 @@ function need(obj: Record<string, unknown>, key: string, type: 'string' | 'numbe
 
 const TOP_KEYS = ['kind', 'formatVersion', 'writtenBy', 'note', 'method', 'rule', 'metric', 'preparation', 'features', 'segments', 'training', 'evidence'];
 const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
+const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels'];
 
-/** Unknown keys are refused: a hand edit with a typo must not be silently ignored. */
-function onlyKeys(obj: Record<string, unknown>, allowed: readonly string[], where: string): void {
-  for (const key of Object.keys(obj)) {
-    if (!allowed.includes(key)) fail(where, `unknown key "${key}".${didYouMean(key, allowed)} Keys allowed here: ${allowed.join(', ')}.`);
+// eslint-disable-next-line no-control-regex
+const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
+// eslint-disable-next-line no-control-regex
+const CONTROL_BUT_LINES = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/;
+
+/** Prose (notes, titles, texts) may span lines and hold tabs, nothing else that steers a terminal. */
+function proseOnly(value: string, where: string, what: string): void {
+  if (CONTROL_BUT_LINES.test(value)) fail(where, `${what} holds a control character other than a line break or tab.`);
+}
+
+/** Keys that would reach an object's prototype if copied into a plain object. */
+const PROTOTYPE_KEYS = ['__proto__', 'constructor', 'prototype'];
+
+function noPrototypeKeys(value: unknown, where: string, depth = 0): void {
+  if (depth > 32) fail(where, 'is nested more than 32 levels deep.');
+  if (Array.isArray(value)) {
+    value.forEach((v, i) => noPrototypeKeys(v, `${where}[${i}]`, depth + 1));
+    return;
+  }
+  if (value === null || typeof value !== 'object') return;
+  for (const key of Object.keys(value)) {
+    if (PROTOTYPE_KEYS.includes(key)) fail(where, `holds the key ${JSON.stringify(key)}, which a definition may not hold (it would reach an object's prototype).`);
+    noPrototypeKeys((value as Record<string, unknown>)[key], `${where}.${key}`, depth + 1);
   }
 }
 
@@ -83,7 +104,17 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   }
   const version = need(d, 'formatVersion', 'number', where);
   const writtenBy = need(d, 'writtenBy', 'string', where);
+  if (CONTROL_ANY.test(writtenBy)) fail(where, `key "writtenBy" holds a control character (${JSON.stringify(writtenBy).slice(0, 80)}); it names a program version on one line.`);
   if (!Number.isInteger(version) || version < 1) fail(where, `key "formatVersion" is ${version}; expected a whole number ≥ 1.`);
+  if (version < DEFINITION_FORMAT_VERSION) {
+    fail(
+      where,
+      `written by ${writtenBy}, format ${version}, which stores no schema (how cells were read: missing markers, ` +
+        `numbers, level matching). Scoring with it could read rows differently from training, so this kinsort ` +
+        `(${kinsortVersion()}) does not load it. Rebuild the definition from the fitted segmentation ` +
+        `(segmentation.definition().save(…) or kinsort fit) with this kinsort.`,
+    );
+  }
   if (version > DEFINITION_FORMAT_VERSION) {
     fail(
       where,
@@ -92,15 +123,19 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   }
   onlyKeys(d, TOP_KEYS, where);
   const note = need(d, 'note', 'string', where, true);
+  if (note !== undefined) proseOnly(note, where, 'key "note"');
   const method = need(d, 'method', 'object', `${where}`);
   const methodName = oneOf(need(method, 'name', 'string', `${where}: method`), DEFINITION_METHODS, 'name', `${where}: method`);
+  onlyKeys(method, ['name', 'options'], `${where}: method`);
   const methodOptions = need(method, 'options', 'object', `${where}: method`);
+  noPrototypeKeys(methodOptions, `${where}: method.options`);
   const rule = oneOf(need(d, 'rule', 'string', where), ASSIGNMENT_RULES, 'rule', where);
   const metric = oneOf(need(d, 'metric', 'string', where), DEFINITION_METRICS, 'metric', where);
   const preparation = need(d, 'preparation', 'object', where);
   const features: unknown[] = need(d, 'features', 'array', where);
   features.forEach((f, j) => {
     if (typeof f !== 'string') fail(where, `features: entry ${j + 1} is ${typeName(f)}; expected a feature name.`);
+    checkName(f, where, `features[${j}]`);
   });
   const dims = features.length;
   if (dims === 0) fail(where, 'key "features" is empty; a definition needs at least one prepared feature.');
@@ -119,11 +154,16 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     const farBeyond = need(seg, 'farBeyond', 'number', at);
     if (farBeyond < 0) fail(at, `key "farBeyond" is ${farBeyond}; expected a distance ≥ 0.`);
     const medoidId = need(seg, 'medoidId', 'string', at, true);
+    if (rule !== 'nearest-medoid' && medoidId !== undefined) fail(at, `key "medoidId" is set, but the rule is "${rule}"; only nearest-medoid definitions name medoids.`);
+    const title = need(seg, 'title', 'string', at, true);
+    if (title !== undefined) proseOnly(title, at, 'key "title"');
+    const text = need(seg, 'text', 'string', at, true);
+    if (text !== undefined) proseOnly(text, at, 'key "text"');
     if (rule === 'nearest-medoid' && medoidId === undefined) fail(at, 'key "medoidId" is missing; the nearest-medoid rule needs the id of each medoid.');
     return {
       number,
-      title: need(seg, 'title', 'string', at, true),
-      text: need(seg, 'text', 'string', at, true),
+      title,
+      text,
       size,
       center: numbers(seg.center, dims, `${at}.center`),
       medoidId,
@@ -131,9 +171,22 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     };
   });
   const training = need(d, 'training', 'object', where);
-  const rows = need(training, 'rows', 'number', `${where}: training`);
-  const fingerprint = need(training, 'fingerprint', 'string', `${where}: training`);
+  const at = `${where}: training`;
+  onlyKeys(training, TRAINING_KEYS, at);
+  const rows = need(training, 'rows', 'number', at);
+  if (!Number.isInteger(rows) || rows < 1) fail(at, `key "rows" is ${rows}; expected a whole number ≥ 1.`);
+  const total = segments.reduce((s, g) => s + g.size, 0);
+  if (total !== rows) fail(where, `the segment sizes add up to ${total}, but key "training.rows" is ${rows}; they must agree.`);
+  const fingerprint = need(training, 'fingerprint', 'string', at);
+  if (!/^sha256:[0-9a-f]{64}$/.test(fingerprint)) fail(at, 'key "fingerprint" must be "sha256:" followed by 64 hexadecimal digits.');
+  const reproducedRows = need(training, 'reproducedRows', 'number', at);
+  if (!Number.isInteger(reproducedRows) || reproducedRows < 0 || reproducedRows > rows) {
+    fail(at, `key "reproducedRows" is ${reproducedRows}; expected a whole number from 0 to ${rows} (the training rows).`);
+  }
+  const labels = oneOf(need(training, 'labels', 'string', at), TRAINING_LABELS, 'labels', at);
+  if (labels === 'rule' && reproducedRows !== rows) fail(at, `key "labels" is "rule" (relabelled by the rule), so every training row is reproduced; "reproducedRows" is ${reproducedRows} of ${rows}.`);
   const evidence = need(d, 'evidence', 'object', where, true);
+  if (evidence !== undefined) noPrototypeKeys(evidence, `${where}: evidence`);
   return {
     kind: DEFINITION_KIND,
     formatVersion: version,
@@ -145,7 +198,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     preparation: sortedKeys(preparation) as { [key: string]: JsonValue },
     features: features as string[],
     segments,
-    training: { rows, fingerprint },
+    training: { rows, fingerprint, reproducedRows, labels },
     evidence: evidence === undefined ? undefined : (sortedKeys(evidence) as { [key: string]: JsonValue }),
   };
 }

@@ -75,6 +75,12 @@ export interface SegmentProfile {
   readonly typical: TypicalMember;
   readonly kept: readonly KeptSummary[];
   readonly stability?: { readonly jaccard: number; readonly reading: string };
+  /**
+   * How many of this segment's members the definition's rule (nearest centre / medoid) keeps in it,
+   * when that is known (the fluent layer sets it): fewer than `size` means new rows like those
+   * members would be scored into another segment.
+   */
+  readonly rule?: { readonly name: string; readonly reproduced: number; readonly size: number };
 }
 
 /** Segments larger than this get the member nearest the centroid instead of the exact medoid. */

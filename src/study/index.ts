@@ -5,3 +5,5 @@ export { Segmentation } from './segmentation';
 export type { SegmentName, SegmentationParts } from './segmentation';
 export { Hierarchy } from './hierarchy';
 export type { Showable } from './showable';
+export { ruleAgreement, settleKmeans, SETTLE_MAX_STEPS } from './reproduce';
+export type { RuleAgreement, Settled } from './reproduce';

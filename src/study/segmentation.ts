@@ -17,7 +17,9 @@ import type { Dissimilarity } from '../measure/condensed';
 import { profileSegments, type SegmentProfile } from '../segments/profile';
 import { buildDefinition } from '../segments/definition-build';
 import { definitionHandle, type DefinitionHandle } from '../segments/definition-handle';
-import type { DefinitionMethodName } from '../segments/definition-types';
+import { DEFINITION_METRICS, type DefinitionMethodName, type DefinitionMetric, type TrainingLabels } from '../segments/definition-types';
+import { insideNotebookKernel } from '../notebook';
+import { ruleAgreement, type RuleAgreement } from './reproduce';
 import { profileCardsView, projectionView, silhouetteView, type View } from '../views';
 import { showable, type Showable } from './showable';
 import { writeUpMarkdown, type WriteUpContext } from '../segments/write-up';
@@ -47,6 +49,10 @@ export interface SegmentationParts {
   data: PreparedData;
   /** The dissimilarity the fit used, when it used one (k-medoids on Gower, a hierarchy on a matrix). */
   dissimilarity?: Dissimilarity;
+  /** 'rule' when the segmentation was relabelled by its own nearest-centre / medoid rule. */
+  labels?: TrainingLabels;
+  /** What the fitting step decided that a person should know. */
+  notes?: string[];
 }
 
 const NAME_OPTIONS = ['title', 'text'];
@@ -65,8 +71,13 @@ export class Segmentation {
   readonly objective: { readonly name: string; readonly value: number };
   readonly fit: unknown;
   readonly data: PreparedData;
+  /** 'fit': segments as the method gave them; 'rule': relabelled by the definition's own rule. */
+  readonly labels: TrainingLabels;
+  /** Notes on the fit (settling k-means, how far the scoring rule reproduces the segments). */
+  readonly notes: readonly string[];
   private readonly options: Record<string, unknown>;
   private readonly given: Map<number, SegmentName> = new Map();
+  private agreementCache?: RuleAgreement | null;
   private readonly dissimilarityUsed?: Dissimilarity;
   private silhouetteCache?: SilhouetteResult;
   private projectionCache?: Projection;
@@ -94,6 +105,91 @@ export class Segmentation {
     const sizes = new Array<number>(this.k).fill(0);
     for (let i = 0; i < parts.assignment.length; i++) sizes[parts.assignment[i]]++;
     this.sizes = sizes;
+    this.labels = parts.labels ?? 'fit';
+    const notes = [...(parts.notes ?? [])];
+    const agreement = this.ruleAgreement();
+    if (agreement && agreement.reproduced < agreement.rows) {
+      const how = this.method === 'hierarchy' ? 'a hierarchy cut' : this.method;
+      notes.push(
+        `The definition scores rows by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule, ` +
+          `which gives ${agreement.reproduced.toLocaleString('en-US')} of the ${agreement.rows.toLocaleString('en-US')} training rows ` +
+          `the segment ${how} gave them (${(agreement.rows - agreement.reproduced).toLocaleString('en-US')} differ). The definition records ` +
+          `this; call .relabelByRule() for a segmentation whose segments are the rule's own.`,
+      );
+    }
+    this.notes = notes;
+    // Inside the notebook a note is printed where the call was made; elsewhere it is on .notes.
+    if (notes.length > 0 && insideNotebookKernel()) for (const n of notes) console.log(`kinsort note: ${n}`);
+  }
+
+  /** The metric the definition's rule compares with, or null when no definition can carry it (Gower). */
+  private ruleMetric(): DefinitionMetric | null {
+    if (this.method !== 'kmedoids') return 'euclidean';
+    const m = (this.options.metric as string | undefined) ?? 'euclidean';
+    return (DEFINITION_METRICS as readonly string[]).includes(m) ? (m as DefinitionMetric) : null;
+  }
+
+  /**
+   * How many training rows the definition's rule (nearest centre, or nearest medoid for k-medoids)
+   * gives the segment this segmentation gives them; null when no definition can be built (Gower).
+   */
+  ruleAgreement(): RuleAgreement | null {
+    if (this.agreementCache === undefined) {
+      const metric = this.ruleMetric();
+      this.agreementCache =
+        metric === null
+          ? null
+          : ruleAgreement(this.data.matrix, this.assignment, this.centers, metric, this.method === 'kmedoids' ? 'nearest-medoid' : 'nearest-center');
+    }
+    return this.agreementCache;
+  }
+
+  /**
+   * The same segments' centres (or medoids), with every training row relabelled by the definition's
+   * own rule, so fit and rule agree on every row. Reported as such: the definition records labels
+   * 'rule', and the write-up says so. Refused when a segment would be left without members.
+   */
+  relabelByRule(): Segmentation {
+    const agreement = this.ruleAgreement();
+    if (agreement === null) {
+      throw new KinsortError(
+        `relabelByRule: this k-medoids segmentation uses the "${String(this.options.metric)}" metric, which a definition cannot carry, so there is no scoring rule to relabel by.`,
+        'not-supported',
+      );
+    }
+    if (agreement.reproduced === agreement.rows) return this;
+    const assignment = agreement.ruleAssignment;
+    const sizes = new Array<number>(this.k).fill(0);
+    for (let i = 0; i < assignment.length; i++) sizes[assignment[i]]++;
+    const empty = sizes.findIndex((s) => s === 0);
+    if (empty >= 0) {
+      throw new KinsortError(
+        `relabelByRule: no training row is nearest segment ${empty + 1}'s ${this.method === 'kmedoids' ? 'medoid' : 'centre'}, so relabelling would leave it empty; cut or fit with another k.`,
+        'bad-assignment',
+      );
+    }
+    const moved = agreement.rows - agreement.reproduced;
+    const objective =
+      this.method === 'kmedoids' ? this.objective : { name: 'withinSS', value: withinAround(this.data.matrix, assignment, this.centers) };
+    const relabelled = new Segmentation({
+      method: this.method,
+      options: this.options,
+      assignment,
+      centers: this.centers.map((c) => [...c]),
+      medoids: this.medoids ? [...this.medoids] : undefined,
+      fit: this.fit,
+      objective,
+      data: this.data,
+      dissimilarity: this.dissimilarityUsed,
+      labels: 'rule',
+      notes: [
+        `Relabelled by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule: ${moved.toLocaleString('en-US')} of ` +
+          `${agreement.rows.toLocaleString('en-US')} training rows moved to the segment whose ${this.method === 'kmedoids' ? 'medoid' : 'centre'} is nearest; ` +
+          `the ${this.method === 'kmedoids' ? 'medoids' : 'centres'} are the fit's, unchanged.`,
+      ],
+    });
+    for (const [s, n] of this.given) relabelled.name(s, n);
+    return relabelled;
   }
 
   /** Give segment `segment` (1..k, as printed) a title and a write-up; returns this for chaining. */
@@ -178,13 +274,15 @@ export class Segmentation {
   profiles(options: { top?: number } = {}): SegmentProfile[] {
     const opts = checkOptions(options, ['top'], 'profiles');
     const keepNames = new Set(this.data.preparation.keep);
-    const used: Record<string, readonly (number | string | null)[]> = {};
-    const keep: Record<string, readonly (number | string | null)[]> = {};
+    // Column names come from the data: null-prototype objects, so "__proto__" is a column like any other.
+    const used: Record<string, readonly (number | string | null)[]> = Object.create(null);
+    const keep: Record<string, readonly (number | string | null)[]> = Object.create(null);
     for (const [name, values] of Object.entries(this.data.profile.columns)) {
       (keepNames.has(name) ? keep : used)[name] = values;
     }
     const stab = this.stabilityCache;
-    return profileSegments({
+    const agreement = this.ruleAgreement();
+    const profiles = profileSegments({
       assignment: this.assignment,
       features: this.data.matrix,
       ids: this.ids,
@@ -195,6 +293,9 @@ export class Segmentation {
       names: this.names(),
       top: opts.top,
     });
+    if (agreement === null) return profiles;
+    const rule = agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    return profiles.map((p) => ({ ...p, rule: { name: rule, reproduced: agreement.perSegment[p.index], size: p.size } }));
   }
 
   /** One card per segment: name, size, what sets it apart, a typical member, kept columns. */
@@ -253,6 +354,7 @@ export class Segmentation {
       training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
       evidence: this.evidence(),
       note: opts.note,
+      labels: this.labels,
     }, 'definition');
     return definitionHandle(def);
   }
@@ -290,17 +392,27 @@ export class Segmentation {
   describeMethod(): string {
     const o = this.options;
     const rows = `${this.ids.length} rows, ${this.data.featureNames.length} prepared features (${this.data.preparation.scale} scaling)`;
+    let how: string;
     switch (this.method) {
       case 'kmeans':
-        return `k-means with k = ${this.k}, ${o.restarts ?? 10} restarts, seed ${o.seed ?? 0}, on ${rows}.`;
+        how = `k-means with k = ${this.k}, ${o.restarts ?? 10} restarts, seed ${o.seed ?? 0}, on ${rows}.`;
+        break;
       case 'kmedoids':
-        return `k-medoids (PAM) with k = ${this.k}, ${o.metric ?? 'euclidean'} dissimilarity, on ${rows}.`;
+        how = `k-medoids (PAM) with k = ${this.k}, ${o.metric ?? 'euclidean'} dissimilarity, on ${rows}.`;
+        break;
       default:
-        return `Agglomerative hierarchy (${o.linkage} linkage, ${o.metric ?? 'euclidean'}) cut into ${this.k} segments, on ${rows}.`;
+        how = `Agglomerative hierarchy (${o.linkage} linkage, ${o.metric ?? 'euclidean'}) cut into ${this.k} segments, on ${rows}.`;
     }
+    const a = this.ruleAgreement();
+    if (a === null) return how;
+    const rule = a.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    if (this.labels === 'rule') return `${how} Segments relabelled by the ${rule} rule that scores new rows, so the two agree on every training row.`;
+    if (a.reproduced === a.rows) return `${how} The ${rule} rule that scores new rows gives every training row its segment.`;
+    return `${how} The ${rule} rule that scores new rows gives ${a.reproduced.toLocaleString('en-US')} of the ${a.rows.toLocaleString('en-US')} training rows their segment.`;
   }
 
   /** The figures that back the segmentation, for the definition file and the write-up. */
+  // (ruleAgreement's count is in the definition's training.reproducedRows, not repeated here.)
   private evidence(): Record<string, unknown> {
     const out: Record<string, unknown> = { [this.objective.name]: this.objective.value };
     if (this.silhouetteCache) out.averageSilhouette = this.silhouetteCache.average;
@@ -331,3 +443,16 @@ installWrongStepGuards(Segmentation.prototype, HIERARCHY_CALLS, (name, seg) => {
     : `${name}: this is a ${seg.method} segmentation (k = ${seg.k}); ${name}() belongs to a hierarchy. Build one ` +
         `from the same prepared study, const tree = prepared.agglomerate({ method: 'ward' }), and ask it: ${example}.`;
 });
+
+/** Within-segment sum of squares around given centres (a relabelled segmentation keeps the fit's centres). */
+function withinAround(m: import('../core/matrix').Matrix, assignment: Int32Array, centers: readonly (readonly number[])[]): number {
+  let ss = 0;
+  for (let i = 0; i < m.rows; i++) {
+    const c = centers[assignment[i]];
+    for (let j = 0; j < m.cols; j++) {
+      const diff = m.data[i * m.cols + j] - c[j];
+      ss += diff * diff;
+    }
+  }
+  return ss;
+}

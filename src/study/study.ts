@@ -4,7 +4,6 @@ import { KinsortError } from '../core/errors';
 import { checkOptions } from '../core/options';
 import type { ProgressCallback } from '../core/progress';
 import { readTable, type Table } from '../table';
-import { isTable } from '../table/types';
 import { prepareTable, type PrepareOptions, type PreparedData } from '../prepare';
 import { dissimilarity, type DissimilarityOptions } from '../measure/dissimilarity';
 import type { Dissimilarity } from '../measure/condensed';
@@ -17,7 +16,8 @@ import { insideNotebookKernel, progressDisplay } from '../notebook';
 import { showable, type Showable } from './showable';
 import { Segmentation } from './segmentation';
 import { Hierarchy } from './hierarchy';
-import { rowsAt } from './centres';
+import { rowsAt, segmentMeans } from './centres';
+import { ruleAgreement, settleKmeans } from './reproduce';
 import { installWrongStepGuards, PREPARED_STUDY_CALLS, type PrepareTheStudyFirst } from './wrong-step';
 
 /** Which columns play which part. */
@@ -32,18 +32,23 @@ export interface StudyRoles {
   types?: PrepareOptions['types'];
   /** Level order of ordinal columns, lowest first. */
   ordinalLevels?: PrepareOptions['ordinalLevels'];
+  /** Reading (when the input is not a Table yet): texts meaning missing besides an empty cell. */
+  missingMarkers?: readonly string[];
+  /** Reading (when the input is not a Table yet): '.' (default) or ','. */
+  decimalMark?: '.' | ',';
 }
 
 export type StudyPrepareOptions = Pick<PrepareOptions, 'scale' | 'log' | 'weights' | 'missing'>;
 
-const ROLE_NAMES = ['id', 'use', 'keep', 'types', 'ordinalLevels'];
+const ROLE_NAMES = ['id', 'use', 'keep', 'types', 'ordinalLevels', 'missingMarkers', 'decimalMark'];
 const PREPARE_NAMES = ['scale', 'log', 'weights', 'missing'];
 
 /** Start a study of a table: records, column object, CSV text, dataframe-like object or number[][]. */
 export function study(input: unknown, roles: StudyRoles = {}): Study {
   checkOptions(roles, ROLE_NAMES, 'study');
-  const table = isTable(input) ? input : readTable(input);
-  return new Study(table, { ...roles });
+  const { missingMarkers, decimalMark, ...rest } = roles;
+  const table = readTable(input, { missingMarkers, decimalMark });
+  return new Study(table, rest);
 }
 
 export class Study {
@@ -131,14 +136,32 @@ export class PreparedStudy {
   kmeans(options: KmeansOptions): Segmentation {
     const onProgress = progressFor(options?.onProgress, 'k-means restarts');
     const fit = kmeans(this.data.matrix, { ...options, onProgress });
+    // The definition scores by nearest centre; settle the fit so centres and segments are a fixed
+    // point of exactly that rule, and assign on the training rows gives the fitted segments.
+    // A fit that already is one keeps its own centres unchanged.
+    const asFitted = ruleAgreement(this.data.matrix, fit.assignment, fit.centers, 'euclidean', 'nearest-center');
+    const settled =
+      asFitted.reproduced === asFitted.rows
+        ? { assignment: fit.assignment, centers: fit.centers, steps: 0, moved: 0, fixedPoint: true }
+        : settleKmeans(this.data.matrix, fit.assignment, fit.k);
+    const notes: string[] = [];
+    if (settled.moved > 0 || !settled.fixedPoint) {
+      notes.push(
+        `k-means ${fit.converged ? 'converged within its tolerance' : `stopped at maxIterations (${options.maxIterations ?? fit.iterations})`} before its ` +
+          `centres and segments fully agreed; ${settled.steps} more Lloyd step(s) moved ${settled.moved} row(s)` +
+          (settled.fixedPoint ? ', so the nearest-centre rule now gives every training row its segment.' : ', and it is still not a fixed point (see ruleAgreement()).'),
+      );
+    }
+    const { withinSS } = segmentMeans(this.data.matrix, settled.assignment, fit.k);
     return new Segmentation({
       method: 'kmeans',
       options: { k: fit.k, seed: options.seed ?? 0, restarts: options.restarts ?? 10, ...pick(options, ['maxIterations', 'tolerance']) },
-      assignment: fit.assignment,
-      centers: fit.centers,
+      assignment: settled.assignment,
+      centers: settled.centers,
       fit,
-      objective: { name: 'withinSS', value: fit.withinSS },
+      objective: { name: 'withinSS', value: settled.moved > 0 ? withinSS : fit.withinSS },
       data: this.data,
+      notes,
     });
   }
 

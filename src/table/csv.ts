@@ -1,8 +1,10 @@
 // CSV text and files, parsed by papaparse. We normalise line endings first so CRLF, LF and mixed
 // files all parse the same, and we refuse ragged rows by line number rather than padding them.
-import { readFileSync } from 'fs';
 import Papa from 'papaparse';
+import { readRegularFileBytes } from './file-text';
 import { KinsortError } from '../core/errors';
+import { trimSpaces } from './cells';
+import { decodeCsvBytes } from './decode';
 
 export type CsvDelimiter = ',' | ';' | '\t';
 const DELIMITERS: readonly string[] = [',', ';', '\t'];
@@ -15,6 +17,8 @@ export interface RawColumns {
   readonly source: string;
   /** 1-based line number where each data row starts (CSV only). */
   readonly lines?: number[];
+  /** What the reader decided that a person should know. */
+  readonly notes?: string[];
 }
 
 /** Parse CSV text into a header and rows of strings. */
@@ -60,8 +64,18 @@ export function parseCsvText(text: string, delimiter?: string): RawColumns {
   }
   // A lone quote (or text papaparse reads as nothing) yields no rows at all.
   if (rows.length === 0) throw new KinsortError('CSV input has no header row (is a quote left open?).', 'empty');
-  const header = rows[0].map((h) => h.trim());
+  const header = rows[0].map((h) => trimSpaces(h));
   const body = rows.slice(1);
+  // Lines of empty fields only (",,,") at the end are what spreadsheets leave behind, not rows.
+  let trailing = 0;
+  while (body.length > 0 && body[body.length - 1].every((f) => f === '')) {
+    body.pop();
+    trailing++;
+  }
+  const notes: string[] = [];
+  if (trailing > 0) {
+    notes.push(`${trailing} line(s) of empty fields at the end of the CSV were not read as rows.`);
+  }
   for (let i = 0; i < body.length; i++) {
     if (body[i].length !== header.length) {
       throw new KinsortError(
@@ -72,16 +86,13 @@ export function parseCsvText(text: string, delimiter?: string): RawColumns {
     }
   }
   const columns = header.map((_, j) => body.map((row) => row[j]));
-  return { names: header, columns, source: 'CSV', lines: lines.slice(1) };
+  return { names: header, columns, source: 'CSV', lines: lines.slice(1, body.length + 1), notes };
 }
 
-/** Read a CSV file as UTF-8 text and parse it. */
-export function readCsvText(path: string, delimiter?: string): RawColumns {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new KinsortError(`Cannot read CSV file "${path}": ${(e as Error).message}`, 'bad-input');
-  }
+/** Read a CSV file (UTF-8 unless `encoding` names another) and parse it. */
+export function readCsvText(path: string, delimiter?: string, encoding?: string): RawColumns {
+  // A regular file only, of bounded size (file-text.ts): a FIFO or /dev/zero is refused, not read forever.
+  const bytes = readRegularFileBytes(path, 'Cannot read CSV file');
+  const text = decodeCsvBytes(bytes, `CSV file "${path}"`, encoding);
   return { ...parseCsvText(text, delimiter), source: `CSV file "${path}"` };
 }

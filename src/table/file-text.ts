@@ -28,6 +28,11 @@ function tooLarge(opening: string, path: string, maxBytes: number): KinsortError
  * `opening` starts every message, e.g. 'Cannot read CSV file' → `Cannot read CSV file "x": …`.
  */
 export function readRegularTextFile(path: string, opening: string, maxBytes = MAX_TEXT_FILE_BYTES): string {
+  return readRegularFileBytes(path, opening, maxBytes).toString('utf8');
+}
+
+/** The bytes of a regular file, with the same refusals as readRegularTextFile (for callers that decode). */
+export function readRegularFileBytes(path: string, opening: string, maxBytes = MAX_TEXT_FILE_BYTES): Buffer {
   let fd: number;
   try {
     // Non-blocking open, so opening a FIFO with no writer returns at once; fstat then refuses it.
@@ -53,7 +58,7 @@ export function readRegularTextFile(path: string, opening: string, maxBytes = MA
       if (total > maxBytes) throw tooLarge(opening, path, maxBytes);
       chunks.push(Buffer.from(chunk.subarray(0, got)));
     }
-    return Buffer.concat(chunks, total).toString('utf8');
+    return Buffer.concat(chunks, total);
   } catch (e) {
     if (e instanceof KinsortError) throw e;
     throw new KinsortError(`${opening} "${path}": ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}.`, 'bad-input');

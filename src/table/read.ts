@@ -1,10 +1,9 @@
 // readTable: any supported input shape → a plain Table with inferred (or declared) column types.
 import { KinsortError, checkChoice } from '../core/errors';
 import { checkOptions } from '../core/options';
-import { DEFAULT_MISSING_MARKERS, normaliseCell } from './cells';
-import { parseCsvText, type RawColumns } from './csv';
-import { readRegularTextFile } from './file-text';
-import { convertNumbers, inferType } from './infer';
+import { DECIMAL_MARKS, DEFAULT_MISSING_MARKERS, normaliseCell, trimSpaces, type DecimalMark } from './cells';
+import { parseCsvText, readCsvText, type RawColumns } from './csv';
+import { inferType } from './infer';
 import { checkHeader, requireColumn } from './names';
 import { rawColumnsFromShape } from './shapes';
 import { isTable, type DeclaredType, type Table, type TableColumn } from './types';
@@ -16,13 +15,38 @@ export interface ReadTableOptions {
   types?: Record<string, DeclaredType>;
   /** Level order (lowest first) of ordinal columns; naming a column here makes it ordinal. */
   ordinalLevels?: Record<string, readonly (string | number)[]>;
-  /** Strings that mean missing (default: empty, NA, NaN, null, N/A), compared after trimming. */
+  /**
+   * Texts that mean missing besides an empty cell, compared after trimming ASCII spaces
+   * (default: NA, N/A, n/a, #N/A, NaN, nan, null, NULL).
+   */
   missingMarkers?: readonly string[];
+  /** The decimal mark of numbers written as text: '.' (default) or ',' ("1,5" is one and a half). */
+  decimalMark?: DecimalMark;
   /** CSV only: the field delimiter; detected among , ; and tab when absent. */
   delimiter?: ',' | ';' | '\t';
+  /** CSV files only: the text encoding when it is not UTF-8 (e.g. 'windows-1252', 'latin1', 'utf-16le'). */
+  encoding?: string;
 }
 
-const READ_OPTIONS = ['types', 'ordinalLevels', 'missingMarkers', 'delimiter'];
+const READ_OPTIONS = ['types', 'ordinalLevels', 'missingMarkers', 'decimalMark', 'delimiter', 'encoding'];
+
+/** The name given to a CSV's unnamed first column (R's write.csv and pandas' to_csv write row names / an index there). */
+export const ROW_NAME_COLUMN = 'row_name';
+
+/** The missing markers to read with: the given list (each a string, no control characters) or the default. */
+export function checkMissingMarkers(markers: unknown, where: string): string[] {
+  if (markers === undefined) return [...DEFAULT_MISSING_MARKERS];
+  if (!Array.isArray(markers) || markers.some((m) => typeof m !== 'string')) {
+    throw new KinsortError(`${where}: missingMarkers must be an array of texts.`, 'bad-option');
+  }
+  // An empty cell is always missing, so '' in the list adds nothing.
+  const list = markers.map((m) => trimSpaces(m as string)).filter((m) => m !== '');
+  const bad = list.find((m) => /[\u0000-\u001f\u007f]/.test(m));
+  if (bad !== undefined) {
+    throw new KinsortError(`${where}: missing marker ${JSON.stringify(bad)} holds a control character.`, 'bad-option');
+  }
+  return Array.from(new Set(list));
+}
 
 /** The type overrides of `types` / `ordinalLevels`, checked against the column names. */
 export function checkTypeOverrides(
@@ -42,7 +66,8 @@ export function checkTypeOverrides(
     if (!Array.isArray(order) || order.length < 2) {
       throw new KinsortError(`${where} ordinalLevels.${name} must list at least two levels, lowest first.`, 'bad-option');
     }
-    const keys = order.map((l) => String(l).trim());
+    // Levels are the user's text, compared exactly (numbers as JavaScript prints them).
+    const keys = order.map((l) => String(l));
     const dup = keys.find((k, i) => keys.indexOf(k) !== i);
     if (dup !== undefined) {
       throw new KinsortError(`${where} ordinalLevels.${name} lists "${dup}" twice.`, 'bad-option');
@@ -68,25 +93,47 @@ export function checkTypeOverrides(
   return { types: declared, levels };
 }
 
+export function checkDecimalMark(mark: unknown, where: string): DecimalMark {
+  if (mark === undefined) return '.';
+  return checkChoice(mark, DECIMAL_MARKS, `${where} decimalMark`);
+}
+
 function buildTable(raw: RawColumns, options: ReadTableOptions): Table {
-  checkHeader(raw.names, raw.source);
+  const notes = [...(raw.notes ?? [])];
+  let names = raw.names;
+  const rowNamed = raw.lines !== undefined && names.length > 1 && names[0] === '';
+  if (rowNamed) {
+    let name = ROW_NAME_COLUMN;
+    for (let n = 2; names.includes(name); n++) name = `${ROW_NAME_COLUMN}_${n}`;
+    names = [name, ...names.slice(1)];
+    notes.push(
+      `The CSV's first column has no name in the header, as R's write.csv and pandas' to_csv write row names ` +
+        `or an index: it is read as the row-name column "${name}" (not a feature unless listed in use; give ` +
+        `{ id: '${name}' } to use it as the id).`,
+    );
+  }
+  checkHeader(names, raw.source);
   const rowCount = raw.columns[0]?.length ?? 0;
   if (rowCount === 0) throw new KinsortError(`${raw.source} has a header but no rows.`, 'empty');
-  const markers = new Set((options.missingMarkers ?? DEFAULT_MISSING_MARKERS).map((m) => String(m).trim()));
-  const { types, levels } = checkTypeOverrides(raw.names, options.types, options.ordinalLevels, 'readTable');
-  const columns: TableColumn[] = raw.names.map((name, j) => {
+  const missingMarkers = checkMissingMarkers(options.missingMarkers, 'readTable');
+  const decimalMark = checkDecimalMark(options.decimalMark, 'readTable');
+  const markers = new Set(missingMarkers);
+  const { types, levels } = checkTypeOverrides(names, options.types, options.ordinalLevels, 'readTable');
+  const columns: TableColumn[] = names.map((name, j) => {
     const where = (i: number) =>
       raw.lines ? `${raw.source}: line ${raw.lines[i]}, column "${name}"` : `${raw.source}: row ${i + 1}, column "${name}"`;
-    const cells = raw.columns[j].map((value, i) => normaliseCell(value, markers, where, i));
-    const inferred = inferType(cells);
+    const values = raw.columns[j].map((value, i) => normaliseCell(value, markers, where, i));
+    const inference = inferType(values, decimalMark);
+    const column: TableColumn = { name, values, inferred: inference.type };
+    if (inference.anyCase) Object.assign(column, { anyCase: true });
+    if (inference.commaNumberRow !== undefined) Object.assign(column, { commaNumberRow: inference.commaNumberRow });
+    if (rowNamed && j === 0) Object.assign(column, { rowNames: true });
     const declared = types.get(name);
-    const values = convertNumbers(cells, declared === 'numeric' || (declared === undefined && inferred === 'numeric'));
-    const column: TableColumn = { name, values, inferred };
     if (declared !== undefined) Object.assign(column, { declared });
     if (levels.has(name)) Object.assign(column, { ordinalLevels: levels.get(name) });
     return column;
   });
-  return { kind: 'table', rowCount, columns };
+  return { kind: 'table', rowCount, columns, missingMarkers, decimalMark, notes };
 }
 
 /** Apply new type overrides to an existing table (values are not re-read). */
@@ -97,10 +144,9 @@ function redeclare(table: Table, options: ReadTableOptions): Table {
   const columns = table.columns.map((c) => {
     const declared = types.get(c.name);
     if (declared === undefined) return c;
-    const values = declared === 'numeric' ? convertNumbers(c.values, true) : c.values;
-    return { ...c, values, declared, ...(levels.has(c.name) ? { ordinalLevels: levels.get(c.name) } : {}) };
+    return { ...c, declared, ...(levels.has(c.name) ? { ordinalLevels: levels.get(c.name) } : {}) };
   });
-  return { kind: 'table', rowCount: table.rowCount, columns };
+  return { ...table, columns };
 }
 
 /**
@@ -109,7 +155,17 @@ function redeclare(table: Table, options: ReadTableOptions): Table {
  */
 export function readTable(input: unknown, options?: ReadTableOptions): Table {
   const opts = checkOptions(options, READ_OPTIONS, 'readTable');
-  if (isTable(input)) return redeclare(input, opts);
+  if (isTable(input)) {
+    for (const key of ['missingMarkers', 'decimalMark', 'delimiter', 'encoding'] as const) {
+      if (opts[key] !== undefined) {
+        throw new KinsortError(`readTable: the input is already a Table, read once; ${key} applies when reading text or records.`, 'bad-option');
+      }
+    }
+    return redeclare(input, opts);
+  }
+  if (opts.encoding !== undefined) {
+    throw new KinsortError('readTable: the encoding option applies to CSV files (readCsvFile); text in memory is already decoded.', 'bad-option');
+  }
   if (typeof input === 'string') return buildTable(parseCsvText(input, opts.delimiter), opts);
   if (opts.delimiter !== undefined) {
     throw new KinsortError('readTable: the delimiter option applies to CSV text only.', 'bad-option');
@@ -118,17 +174,11 @@ export function readTable(input: unknown, options?: ReadTableOptions): Table {
   return buildTable(rawColumnsFromShape(input), opts);
 }
 
-/** Read a CSV file (UTF-8; BOM stripped; `,` `;` or tab detected) into a Table. */
+/** Read a CSV file (UTF-8 unless `encoding` says otherwise; BOM stripped; `,` `;` or tab detected) into a Table. */
 export function readCsvFile(path: string, options?: ReadTableOptions): Table {
   const opts = checkOptions(options, READ_OPTIONS, 'readCsvFile');
-  return buildTable(csvFileColumns(path, opts.delimiter), opts);
-}
-
-/** A CSV file's header and cells: a regular file only, of bounded size (file-text.ts). */
-function csvFileColumns(path: unknown, delimiter: string | undefined): RawColumns {
   if (typeof path !== 'string' || path === '') throw new KinsortError('readCsvFile: give a file path.', 'bad-argument');
-  const text = readRegularTextFile(path, 'Cannot read CSV file');
-  return { ...parseCsvText(text, delimiter), source: `CSV file "${path}"` };
+  return buildTable(readCsvText(path, opts.delimiter, opts.encoding), opts);
 }
 
 /** The column named `name`, or a clear error with a "did you mean". */

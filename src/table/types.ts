@@ -11,9 +11,18 @@ export type DeclaredType = 'numeric' | 'binary' | 'categorical' | 'ordinal';
 
 export interface TableColumn {
   readonly name: string;
-  /** One raw value per row; null = missing. Numeric-looking strings are already numbers. */
+  /**
+   * One value per row exactly as given (text stays text, even when it reads as a number: the
+   * preparation parses numbers under the text rule); null = missing.
+   */
   readonly values: Cell[];
   readonly inferred: InferredType;
+  /** Inferred binary columns of true/false in any ASCII letter case: one column, levels matched ignoring case. */
+  readonly anyCase?: boolean;
+  /** 0-based row of a cell written with a decimal comma or thousands separator, in a column otherwise of numbers. */
+  readonly commaNumberRow?: number;
+  /** The CSV's unnamed first column (row names or an index, as R and pandas write them). */
+  readonly rowNames?: boolean;
   /** Set when the caller declared the type (readTable's `types`). */
   readonly declared?: DeclaredType;
   /** Ordinal columns: the level order, lowest first. */
@@ -24,6 +33,12 @@ export interface Table {
   readonly kind: 'table';
   readonly rowCount: number;
   readonly columns: TableColumn[];
+  /** Missing markers the cells were read with (default DEFAULT_MISSING_MARKERS). */
+  readonly missingMarkers?: readonly string[];
+  /** The decimal mark numbers are read with (default '.'). */
+  readonly decimalMark?: '.' | ',';
+  /** What intake decided that a person should know (row-name column, trailing empty lines…). */
+  readonly notes?: readonly string[];
 }
 
 export function isTable(value: unknown): value is Table {

@@ -85,13 +85,17 @@ function card(p: SegmentProfile): string {
     ? `<h5>Sets it apart (standardised difference from all rows)</h5>${differenceBars(p)}`
     : '';
   const kept = p.kept.length ? `<h5>Also describing</h5>${p.kept.map(keptLine).join('')}` : '';
+  const rule =
+    p.rule && p.rule.reproduced < p.rule.size
+      ? `<div class="ks-fact"><b>Scoring rule</b>: the ${escapeHtml(p.rule.name)} rule keeps ${p.rule.reproduced.toLocaleString('en-US')} of its ${p.rule.size.toLocaleString('en-US')} members here</div>`
+      : '';
   return (
     `<article class="ks-card" style="border-top-color:${segmentColour(s)}">` +
     `<header>${htmlSwatch(s)}<h4>${escapeHtml(name)}</h4></header>` +
     `<p class="ks-size">${p.size.toLocaleString('en-US')} rows · ${(p.share * 100).toFixed(1)}% of all</p>` +
     (p.text ? `<p class="ks-text">${escapeHtml(p.text)}</p>` : '') +
     apart +
-    `<h5>Who is in it</h5>${typical}${stability}` +
+    `<h5>Who is in it</h5>${typical}${stability}${rule}` +
     kept +
     `</article>`
   );

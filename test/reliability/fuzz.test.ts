@@ -3,7 +3,8 @@
 // Data of our own making: generated here with fixed seeds.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { KinsortError, loadDefinition, readTable, study } from '../../src';
+import { KinsortError, loadDefinition, prepareTable, readTable, study } from '../../src';
+import { decodeCsvBytes } from '../../src/table/decode';
 import { riders } from '../segments/definition-data';
 import { onlyKinsortErrors } from './helpers';
 
@@ -67,11 +68,91 @@ describe('CSV intake fuzz (readTable on generated text, bounded time, seeded)', 
         expect(t.columns[0].values).toEqual(payloads.map((_, i) => `row-${i}`));
         // Line endings inside a quoted field are read as \n (the reader normalises them).
         expect(t.columns[1].values).toEqual(payloads.map((p) => p.replace(/\r\n?/g, '\n')));
-        expect(t.columns[2].values).toEqual(numbers.map((v) => (Object.is(v, -0) ? 0 : v)));
+        expect(t.columns[2].values).toEqual(numbers.map((v) => String(v))); // cells keep their text
       }),
       { ...budget(7), numRuns: 100_000 },
     );
     expect(runs).toBeGreaterThan(50);
+  });
+});
+
+/** Cells that test the text rule: codes, exponents, signs, whitespace of every kind, markers in every case, unicode, comma numbers, true/false spellings. */
+const ADVERSARIAL = [
+  '007', '01', '1', '1.0', '1e3', '1000', '-0', '0', '+5', '.5', '1.', '1,5', '1,234', 'Infinity', '-inf', '0x10',
+  ' 5 ', '\t5', '5\u00a0', '\u3000', ' ', 'NA', 'na', ' NA ', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'NAN', 'null', 'NULL', 'Null',
+  'TRUE', 'True', 'false', 'é', 'e\u0301', '名', '😀', '\u200b', 'a"b', 'x,y', 'line\nbreak', '12345678901234567890', '1e-17', '1e300',
+];
+const adversarialCell = fc.oneof(fc.constantFrom(...ADVERSARIAL), fc.double({ noNaN: true, noDefaultInfinity: true }).map(String));
+
+/** RFC 4180 quoting: a field with a delimiter, quote or line break is quoted, quotes doubled. */
+const quote = (v: string) => (/[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
+
+describe('CSV intake fuzz: the text rule families (ids, codes, whitespace, markers, encodings)', () => {
+  it('cells read back exactly as written; ids are the written text; a row scores alone as in its batch', () => {
+    let runs = 0;
+    let fitted = 0;
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(adversarialCell, adversarialCell, fc.double({ noNaN: true, noDefaultInfinity: true, min: -100, max: 100 })), { minLength: 4, maxLength: 12 }),
+        (rows) => {
+          runs++;
+          const ids = rows.map(([id], i) => `${id}#${i}`);
+          const text = 'id,code,x\n' + rows.map(([, code, x], i) => [ids[i], code, String(x)].map(quote).join(',')).join('\n') + '\n';
+          const t = readTable(text);
+          expect(t.columns[0].values).toEqual(ids.map((id) => (id.trim() === '' ? null : id)));
+          // Every written cell is back as written, or missing under the rule (empty, spaces, a marker).
+          t.columns[1].values.forEach((v, i) => {
+            if (v !== null) expect(v).toBe(rows[i][1]);
+            else expect(['', ...['NA', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'null', 'NULL']]).toContain(rows[i][1].replace(/^ +| +$/g, ''));
+          });
+          onlyKinsortErrors(() => {
+            const p = prepareTable(text, { id: 'id', missing: 'median' });
+            expect(p.ids).toEqual(ids);
+            const seg = study(text, { id: 'id' }).prepare({ missing: 'median' });
+            if (seg.data.matrix.rows < 3) return;
+            const def = seg.kmeans({ k: 2, seed: 1, restarts: 1 }).definition();
+            fitted++;
+            const batch = def.assign(text);
+            expect(batch.rows.map((r) => r.id)).toEqual(ids);
+            const i = runs % rows.length;
+            const alone = def.assign('id,code,x\n' + [ids[i], rows[i][1], String(rows[i][2])].map(quote).join(',') + '\n');
+            expect(alone.rows[0]).toEqual(batch.rows[i]);
+          });
+        },
+      ),
+      budget(31),
+    );
+    expect(runs).toBeGreaterThan(20);
+    expect(fitted).toBeGreaterThan(0);
+  });
+
+  it('everyday shapes: an unnamed first header, trailing empty lines, any bytes as a file', () => {
+    let runs = 0;
+    fc.assert(
+      fc.property(
+        fc.array(fc.array(adversarialCell, { minLength: 2, maxLength: 2 }), { minLength: 1, maxLength: 6 }),
+        fc.integer({ min: 0, max: 3 }),
+        fc.uint8Array({ maxLength: 40 }),
+        (rows, trailing, bytes) => {
+          runs++;
+          const text = ',a,b\n' + rows.map((r, i) => [String(i + 1), ...r].map(quote).join(',')).join('\n') + '\n' + ',,\n'.repeat(trailing);
+          onlyKinsortErrors(() => {
+            const t = readTable(text);
+            expect(t.columns[0].name).toBe('row_name');
+            expect(t.columns[0].values).toEqual(rows.map((_, i) => String(i + 1)));
+            expect(t.rowCount).toBe(rows.length);
+          });
+          // Any bytes: text, or a KinsortError naming the encoding problem; never U+FFFD put in silently.
+          const decoded = onlyKinsortErrors(() => {
+            const s = decodeCsvBytes(bytes, 'fuzz');
+            expect(Buffer.from(s, 'utf8').equals(Buffer.from(bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? bytes.subarray(3) : bytes))).toBe(true);
+          });
+          expect(typeof decoded).toBe('boolean');
+        },
+      ),
+      budget(32),
+    );
+    expect(runs).toBeGreaterThan(20);
   });
 });
 
@@ -91,7 +172,10 @@ describe('definition loader fuzz (loadDefinition on mutated valid JSON, bounded 
   const sample = riders(6, 13, 'n');
   const strange = fc.oneof(
     fc.constantFrom('NaN', 'Infinity', '-Infinity', '1e999', '', ' ', '__proto__', 'constructor', '-0', '0x10'),
-    fc.constantFrom(1e308, -1e308, 5e-324, -0, 0, -1, 2 ** 53, 0.5, 1e300),
+    // Tampering families: control characters, names that clash in case, duplicated levels.
+    fc.constantFrom('a\nCREATE TABLE pwned AS SELECT 1; --', 'x\u0000y', '\u001b[2J', 'Trips', 'TRIPS', 'standard', 'kinsort-text-0', 'ascii-case', ','),
+    fc.constantFrom(1e308, -1e308, 5e-324, -0, 0, -1, -5, 1.5, 2 ** 53, 0.5, 1e300),
+    fc.constantFrom(['standard', 'standard'], ['yes', 'yes'], ['low', 'high'], { __proto__: null, polluted: true }),
     fc.constantFrom(null, true, false, [], {}, [null], [[]], { kind: 'x' }),
     fc.constant(undefined), // delete the key
   );
@@ -120,6 +204,47 @@ describe('definition loader fuzz (loadDefinition on mutated valid JSON, bounded 
       onlyKinsortErrors(() => handle.toJSON());
     });
   }
+
+  /** Insert a `__proto__` key (as JSON text writes it) into a random object of the file. */
+  const protoInsert = fc.integer({ min: 0, max: 1000 }).map((n) => {
+    const at = [...text.matchAll(/": \{\n/g)];
+    const m = at[n % at.length];
+    return text.slice(0, m.index! + 4) + '"__proto__": { "polluted": 1 },\n' + text.slice(m.index! + 4);
+  });
+
+  it('__proto__ keys inserted into any object: refused, and nothing polluted', () => {
+    let runs = 0;
+    fc.assert(
+      fc.property(protoInsert, (damaged) => {
+        runs++;
+        expect(onlyKinsortErrors(() => loadDefinition(damaged))).toBe(true);
+        expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+      }),
+      { ...budget(33), numRuns: 200 },
+    );
+    expect(runs).toBeGreaterThan(20);
+  });
+
+  it('a definition that loads is consistent: sizes add up, reproduced rows within range, it scores', () => {
+    let loaded = 0;
+    fc.assert(
+      fc.property(fc.array(mutation, { minLength: 1, maxLength: 3 }), (mutations) => {
+        const d = JSON.parse(text);
+        for (const m of mutations) apply(d, m);
+        onlyKinsortErrors(() => {
+          const h = loadDefinition(JSON.stringify(d));
+          loaded++;
+          const def = h.definition;
+          expect(def.segments.reduce((s, g) => s + g.size, 0)).toBe(def.training.rows);
+          expect(def.training.reproducedRows).toBeLessThanOrEqual(def.training.rows);
+          expect(JSON.stringify(def)).not.toMatch(/[\u0000-\u0008\u000b-\u001f]/);
+          h.assign(sample);
+        });
+      }),
+      budget(34),
+    );
+    expect(loaded).toBeGreaterThan(0);
+  });
 
   it('one to four deleted keys, wrong types, NaN strings and extreme numbers: only KinsortError', () => {
     let runs = 0;

@@ -8,7 +8,9 @@ import { join } from 'path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DuckDBConnection, DuckDBInstance } from '@duckdb/node-api';
 import { readTable, study } from '../../src';
-import { quoteString } from '../../src/segments/sql-text';
+import { dialectNamed } from '../../src/engines/dialects';
+
+const { quoteString } = dialectNamed('duckdb');
 import { riders, toCsv } from '../segments/definition-data';
 
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-lost-'));

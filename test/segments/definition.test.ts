@@ -328,10 +328,12 @@ describe('the writer', () => {
     const dims = base.features.length;
     const vec = fc.array(fc.double({ noNaN: true, noDefaultInfinity: true }), { minLength: dims, maxLength: dims });
     fc.assert(
-      fc.property(fc.array(vec, { minLength: 1, maxLength: 5 }), fc.string(), (centers, note) => {
+      // Notes and titles are prose: line breaks and tabs allowed, other control characters refused (tested elsewhere).
+      fc.property(fc.array(vec, { minLength: 1, maxLength: 5 }), fc.string().map((t) => t.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, '')), (centers, note) => {
         const d = {
           ...base,
           note,
+          training: { ...base.training, rows: centers.length, reproducedRows: 0 },
           segments: centers.map((center, c) => ({ number: c + 1, title: note, size: 1, center, farBeyond: Math.abs(center[0]) })),
         };
         const once = writeDefinitionJson(readDefinition(writeDefinitionJson(d)));

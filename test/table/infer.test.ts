@@ -6,10 +6,12 @@ const typeOf = (input: unknown, name: string, options?: Parameters<typeof readTa
   readTable(input, options).columns.find((c) => c.name === name)!;
 
 describe('type inference', () => {
-  test('numbers from CSV text, including exponents and signs, are numeric', () => {
-    const c = typeOf('v\n1e3\n-2.5\n+.5\n7\n', 'v');
+  test('numbers from CSV text, including exponents and signs, are numeric; text is kept as given', () => {
+    const c = typeOf('v\n1e3\n-2.5\n0.5\n7\n', 'v');
     expect(c.inferred).toBe('numeric');
-    expect(c.values).toEqual([1000, -2.5, 0.5, 7]);
+    expect(c.values).toEqual(['1e3', '-2.5', '0.5', '7']);
+    // Text rule kinsort-text-1: "+" and ".5" are not numbers, and a code with "+" makes the column categorical.
+    expect(typeOf('v\n1e3\n-2.5\n+.5\n7\n', 'v').inferred).toBe('categorical');
   });
 
   test('exactly two distinct values is binary: 0/1, true/false, yes/no, any two levels', () => {
@@ -28,7 +30,7 @@ describe('type inference', () => {
   test('a mostly numeric column with a stray text cell stays numeric (refused later by name)', () => {
     const c = typeOf('v\n1\n2\n12abc\n4\n5\n', 'v');
     expect(c.inferred).toBe('numeric');
-    expect(c.values).toEqual([1, 2, '12abc', 4, 5]);
+    expect(c.values).toEqual(['1', '2', '12abc', '4', '5']);
   });
 
   test('a mostly text column with a few numbers is categorical, values untouched', () => {
@@ -44,7 +46,7 @@ describe('type inference', () => {
     expect(size.declared).toBe('ordinal');
     expect(size.ordinalLevels).toEqual(['S', 'M', 'L']);
     expect(t.columns.find((c) => c.name === 'n')!.declared).toBe('categorical');
-    expect(t.columns.find((c) => c.name === 'code')!.values).toEqual([1, 2, 3, 4]);
+    expect(t.columns.find((c) => c.name === 'code')!.values).toEqual(['1', '2', '3', '4']);
     expect(() => readTable(input, { types: { sise: 'numeric' } })).toThrow(/no column named "sise". Did you mean "size"\?/);
     expect(() => readTable(input, { types: { n: 'numerical' as never } })).toThrow(/Did you mean "numeric"\?/);
     expect(() => readTable(input, { types: { size: 'ordinal' } })).toThrow(/give its level order/);
