@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import fixture from '../reference/fixtures/gap_clusgap.json';
 import { calinskiHarabasz, compareK, daviesBouldin, silhouette } from '../../src/assess';
 import { createRandom } from '../../src/random';
+import { kmeans } from '../../src/methods/partition';
 import { chooseK } from '../../src/assess/k-choice';
 
 describe('compareK', () => {
@@ -73,6 +74,23 @@ describe('compareK', () => {
     const said = r.reasons.join(' ');
     expect(said).toMatch(/The criteria disagree: k = 2 by [^;]*the gap statistic \(how much tighter the segments are than in structureless reference data\)/);
     expect(said).toMatch(/k = 4 by stability \(whether the segments come back when the rows are resampled\), the within-SS bend/);
+  });
+
+  it('on many rows: gap and stability on a seeded sample, restarts on a sample finished on all rows, same answer', () => {
+    // 24,000 rows of four blobs of our own making (above the 20,000 where restarts move to a sample).
+    const random = createRandom(5);
+    const centres = [[0, 0], [6, 0], [0, 6], [6, 6]];
+    const rows = Array.from({ length: 24_000 }, (_, i) => centres[i % 4].map((c) => c + random.normal()));
+    const r = compareK(rows, { from: 2, to: 6, seed: 2, sampleRows: 1_000, silhouetteRows: 1_000, references: 10, resamples: 10 });
+    expect(r.recommended).toBe(4);
+    expect(r.sampleRows).toBe(1_000);
+    expect(r.reasons.join(' ')).toMatch(/10 bootstrap resamples on a seeded sample of 1000 rows/);
+    expect(r.reasons.join(' ')).toMatch(/10 reference sets on a seeded sample of 1000 rows/);
+    expect(r.table.find((row) => row.k === 4)!.weakestStability).toBeGreaterThan(0.95);
+    // The fit finished on all rows is as good as ten restarts on all rows (to 1e-9).
+    const full = kmeans(rows, { k: 4, seed: 2, restarts: 10 });
+    expect(r.table.find((row) => row.k === 4)!.withinSS).toBeLessThanOrEqual(full.withinSS * (1 + 1e-9));
+    expect(r.assignments[2]).toHaveLength(24_000);
   });
 
   it('reports progress up to its total, and samples rows for the silhouette when asked', () => {
