@@ -10,6 +10,7 @@
 // dissolves (< 0.6), while the cost no longer grows with the size of the table.
 import type { Matrix } from '../core/matrix';
 import { takeRows } from '../core/matrix';
+import { countDistinctRows } from '../methods/partition/distinct-rows';
 import { kmeans } from '../methods/partition/kmeans';
 import type { Random } from '../random';
 import { bestJaccardBySegment } from './stability';
@@ -58,8 +59,13 @@ export function stabilityAcrossK(
     const random = options.random.fork(`k = ${k}`);
     for (let b = 0; b < options.resamples; b++) {
       for (let r = 0; r < n; r++) indices[r] = random.int(n);
-      const fit = kmeans(takeRows(rows, indices), { k, seed: random.uint32(), restarts: options.restarts }).assignment;
-      const best = bestJaccardBySegment(original, k, indices, fit, k, drawnAt, stamp++);
+      const drawn = takeRows(rows, indices);
+      // A small resample may hold fewer distinct rows than k: it is segmented into as many as it
+      // can hold, and the segments it cannot separate count as not found again.
+      const kFit = Math.min(k, countDistinctRows(drawn, k));
+      const seed = random.uint32();
+      const fit = kFit > 1 ? kmeans(drawn, { k: kFit, seed, restarts: options.restarts }).assignment : new Int32Array(n);
+      const best = bestJaccardBySegment(original, k, indices, fit, kFit, drawnAt, stamp++);
       for (let c = 0; c < k; c++) {
         if (Number.isNaN(best[c])) continue;
         sums[c] += best[c];

@@ -93,6 +93,14 @@ describe('compareK', () => {
     expect(r.assignments[2]).toHaveLength(24_000);
   });
 
+  it('on a handful of rows a resample too small for k is segmented into as many as it holds, not refused', () => {
+    // Eight rows of our own making in four pairs: a resample often holds fewer than 7 distinct rows.
+    const rows = [[0, 0], [0, 1], [5, 5], [5, 6], [9, 0], [9, 1], [2, 8], [3, 8]];
+    const r = compareK(rows, { to: 7, seed: 4 });
+    for (const row of r.table) expect(row.stabilityBySegment!.every((v) => v >= 0 && v <= 1)).toBe(true);
+    expect(r.table.find((row) => row.k === 4)!.weakestStability).toBeGreaterThan(0.75);
+  });
+
   it('reports progress up to its total, and samples rows for the silhouette when asked', () => {
     const events: { done: number; total: number }[] = [];
     const r = compareK(fixture.gap.blobs.rows, { from: 3, to: 5, references: 4, silhouetteRows: 120, onProgress: (e) => events.push(e) });
