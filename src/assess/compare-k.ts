@@ -18,6 +18,7 @@ import { daviesBouldin } from './davies-bouldin';
 import { gapFromDataFit, GapStatisticResult, withinForK } from './gap-statistic';
 import { chooseK, KChoice, K_CHOICE_RULE, stabilitySuggestion } from './k-choice';
 import { stabilityAcrossK } from './k-stability';
+import { predictionStrengthAcrossK, PREDICTION_STRENGTH_FROM } from './prediction-strength';
 import { findKnee } from './knee';
 import { silhouette } from './silhouette';
 import { STABLE_FROM } from './stability';
@@ -39,6 +40,8 @@ export interface CompareKOptions {
   gap?: boolean;
   /** Compute the bootstrap stability of the segments at each k (default true). */
   stability?: boolean;
+  /** Compute the prediction strength at each k (Tibshirani & Walther 2005; default true). */
+  predictionStrength?: boolean;
   /** Bootstrap resamples per k for the stability (default 20). */
   resamples?: number;
   /** Above this many rows, gap reference sets and stability resamples use a seeded sample of this size (default 4,000). */
@@ -63,6 +66,8 @@ export interface CompareKRow {
   readonly weakestStability?: number;
   /** Mean bootstrap Jaccard of each segment, in segment order (0..k-1) of `assignments`. */
   readonly stabilityBySegment?: number[];
+  /** Prediction strength (Tibshirani & Walther 2005), mean over random halvings; present when computed. */
+  readonly predictionStrength?: number;
 }
 
 export interface CompareKByCriterion {
@@ -75,6 +80,8 @@ export interface CompareKByCriterion {
   readonly knee?: number;
   /** The largest k whose every segment is stable; absent when none is or stability was not computed. */
   readonly stability?: number;
+  /** The largest k with prediction strength ≥ 0.8; absent when none reaches it or it was not computed. */
+  readonly predictionStrength?: number;
 }
 
 export interface CompareKResult {
@@ -99,7 +106,7 @@ export interface CompareKResult {
 }
 
 const COMPARE_K_OPTIONS = [
-  'from', 'to', 'seed', 'restarts', 'references', 'gap', 'stability', 'resamples', 'sampleRows', 'silhouetteRows', 'onProgress',
+  'from', 'to', 'seed', 'restarts', 'references', 'gap', 'stability', 'predictionStrength', 'resamples', 'sampleRows', 'silhouetteRows', 'onProgress',
 ] as const;
 
 /** The recommendation rule (kept under its former name for callers that quote it). */
@@ -116,6 +123,8 @@ const RESAMPLE_RESTARTS = 2;
 // centres as well as all rows do (each centre is a mean of hundreds of rows or more), so the
 // search runs there and one k-means on all rows finishes from its best start.
 const START_ROWS = 10_000;
+// Random halvings for the prediction strength (the paper uses a few repeats of two-fold splits).
+const PREDICTION_SPLITS = 5;
 
 export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKResult {
   const where = 'compareK';
@@ -130,6 +139,7 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
   const restarts = checkInteger(opts.restarts ?? 10, `${where}: restarts`, 1);
   const useGap = opts.gap ?? true;
   const useStability = opts.stability ?? true;
+  const usePrediction = opts.predictionStrength ?? true;
   const references = checkInteger(opts.references ?? 20, `${where}: references`, 1);
   const resamples = checkInteger(opts.resamples ?? 20, `${where}: resamples`, 2);
   const sampleRows = checkInteger(opts.sampleRows ?? 4_000, `${where}: sampleRows`, 50);
@@ -139,7 +149,7 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
   for (let k = from; k <= to; k++) ks.push(k);
   const gapKs: number[] = [];
   for (let k = 1; k <= to; k++) gapKs.push(k);
-  const total = ks.length + (useGap ? references + (from - 2) : 0) + (useStability ? ks.length : 0);
+  const total = ks.length + (useGap ? references + (from - 2) : 0) + (useStability ? ks.length : 0) + (usePrediction ? 1 : 0);
   let done = 0;
   const step = (detail: string) => report(opts.onProgress, { task: 'k comparison', done: ++done, total, detail });
 
@@ -192,6 +202,13 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
     }
   }
 
+  if (usePrediction) {
+    const random = createRandom(seed).fork('prediction strength');
+    const strengths = predictionStrengthAcrossK(sample ? takeRows(m, sample) : m, ks, { splits: PREDICTION_SPLITS, restarts: Math.min(restarts, RESAMPLE_RESTARTS), random });
+    for (let t = 0; t < table.length; t++) table[t] = { ...table[t], predictionStrength: strengths[t] };
+    step('prediction strength');
+  }
+
   const byCriterion = chooseByCriterion(table, gapResult);
   const choice = chooseK({
     ks,
@@ -206,6 +223,7 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
     evidenceRows,
     sampled: sample !== undefined,
     resamples: useStability ? resamples : undefined,
+    splits: usePrediction ? PREDICTION_SPLITS : undefined,
   });
   return {
     kind: 'k-comparison',
@@ -291,7 +309,14 @@ function chooseByCriterion(table: readonly CompareKRow[], gap: GapStatisticResul
     ...(gap ? { gap: gap.recommended } : {}),
     ...(knee !== null ? { knee } : {}),
     ...stabilityPick(table),
+    ...predictionPick(table),
   };
+}
+
+function predictionPick(table: readonly CompareKRow[]): { predictionStrength?: number } {
+  let pick: number | undefined;
+  for (const r of table) if (r.predictionStrength !== undefined && r.predictionStrength >= PREDICTION_STRENGTH_FROM) pick = r.k;
+  return pick === undefined ? {} : { predictionStrength: pick };
 }
 
 function stabilityPick(table: readonly CompareKRow[]): { stability?: number } {
@@ -303,6 +328,7 @@ function stabilityPick(table: readonly CompareKRow[]): { stability?: number } {
 /** What each criterion measures, in one clause (used when they disagree). */
 const MEASURES: Record<keyof CompareKByCriterion, string> = {
   stability: 'stability (whether the segments come back when the rows are resampled)',
+  predictionStrength: 'prediction strength (whether centres found on half the rows group the other half alike)',
   gap: 'the gap statistic (how much tighter the segments are than in structureless reference data)',
   knee: 'the within-SS bend (where one more segment stops buying much tightness)',
   silhouette: 'the silhouette (how much closer each row lies to its own segment than to the next)',
@@ -340,7 +366,7 @@ function explain(
   by: CompareKByCriterion,
   choice: KChoice,
   gap: GapStatisticResult | undefined,
-  how: { silhouetteSampled?: number; evidenceRows: number; sampled: boolean; resamples?: number },
+  how: { silhouetteSampled?: number; evidenceRows: number; sampled: boolean; resamples?: number; splits?: number },
 ): string[] {
   const at = (k: number) => table.find((r) => r.k === k)!;
   const range = `k = ${table[0].k} to ${table[table.length - 1].k}`;
@@ -355,6 +381,14 @@ function explain(
         : `Stability: no k in ${range} has every segment stable; the best is k = ${bestBy(table, (r) => r.weakestStability!, true)} (weakest Jaccard ${fmt(Math.max(...table.map((r) => r.weakestStability!)))})`) +
         (stable.length && firstUnstable ? `; at k = ${firstUnstable.k} the weakest segment reaches ${fmt(firstUnstable.weakestStability!)}` : '') +
         ` (${how.resamples} bootstrap resamples ${onRows}, Hennig 2007).`,
+    );
+  }
+  if (how.splits !== undefined) {
+    reasons.push(
+      (by.predictionStrength !== undefined
+        ? `Prediction strength is at least ${PREDICTION_STRENGTH_FROM} up to k = ${by.predictionStrength}`
+        : `Prediction strength stays below ${PREDICTION_STRENGTH_FROM} at every k`) +
+        ` (mean of ${how.splits} random halvings ${onRows}, Tibshirani & Walther 2005; the ${PREDICTION_STRENGTH_FROM} line is common practice after the paper).`,
     );
   }
   if (gap) {

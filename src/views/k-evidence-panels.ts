@@ -13,9 +13,10 @@ export interface KEvidenceRow {
   readonly stability?: number;
   readonly weakestStability?: number;
   readonly stabilityBySegment?: readonly number[];
+  readonly predictionStrength?: number;
 }
 
-export type PickedBy = 'stability' | 'gap' | 'knee' | 'silhouette' | 'calinskiHarabasz' | 'daviesBouldin';
+export type PickedBy = 'stability' | 'gap' | 'knee' | 'silhouette' | 'calinskiHarabasz' | 'daviesBouldin' | 'predictionStrength';
 
 export interface KComparisonLike {
   readonly table: readonly KEvidenceRow[];

@@ -200,10 +200,12 @@ function livePanels(
 function evidenceTable(rows: readonly KEvidenceRow[], panels: readonly PanelSpec[], rec: number | undefined): string {
   const cell = (v: unknown) => `<td>${finite(v) ? Number(v.toPrecision(4)) : '—'}</td>`;
   const withMean = panels.some((p) => p.key === 'weakestStability');
+  const withStrength = rows.some((r) => finite(r.predictionStrength));
   const head =
     `<tr><th>k</th>` +
     panels.map((p) => `<th>${escapeHtml(p.column)}</th>`).join('') +
     (withMean ? '<th>mean Jaccard</th>' : '') +
+    (withStrength ? '<th>prediction strength</th>' : '') +
     '</tr>';
   const body = rows
     .map(
@@ -211,6 +213,7 @@ function evidenceTable(rows: readonly KEvidenceRow[], panels: readonly PanelSpec
         `<tr${r.k === rec ? ' class="ks-chosen" style="font-weight:700;background:#fbecef"' : ''}><td style="white-space:nowrap">${r.k}${r.k === rec ? ' · recommended' : ''}</td>` +
         panels.map((p) => cell(valueOf(r, p))).join('') +
         (withMean ? cell(r.stability) : '') +
+        (withStrength ? cell(r.predictionStrength) : '') +
         '</tr>',
     )
     .join('');

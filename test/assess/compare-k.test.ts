@@ -16,7 +16,8 @@ describe('compareK', () => {
     const r = compareK(ref.rows, { from: 2, to: 8, seed: 1 });
     expect(ref.recommended).toBe(4);
     expect(r.recommended).toBe(4);
-    expect(r.byCriterion).toEqual({ silhouette: 4, calinskiHarabasz: 4, daviesBouldin: 4, gap: 4, knee: 4, stability: 4 });
+    expect(r.byCriterion).toEqual({ silhouette: 4, calinskiHarabasz: 4, daviesBouldin: 4, gap: 4, knee: 4, stability: 4, predictionStrength: 4 });
+    expect(r.table.find((row) => row.k === 4)!.predictionStrength).toBeGreaterThan(0.95); // Tibshirani & Walther (2005): near 1 at the true k
     expect(r.headline).toBe("k = 4 recommended: every segment stable, the gap statistic's pick, where the within-SS also bends");
     expect(r.noStructure).toBe(false);
     // Four real groups: every one of the four segments comes back in the resamples (Hennig 2007).
@@ -58,6 +59,9 @@ describe('compareK', () => {
     // Hennig (2007) warns that k-means cuts of homogeneous data can be stable: they are here.
     expect(r.table[0].weakestStability).toBeGreaterThan(0.75);
     expect(r.reasons.join(' ')).toMatch(/such cuts can be stable too/);
+    // Prediction strength (Tibshirani & Walther 2005) does not mistake the cut for structure.
+    expect(r.byCriterion.predictionStrength).toBeUndefined();
+    expect(r.reasons.join(' ')).toMatch(/Prediction strength stays below 0.8 at every k/);
   });
 
   it('when the criteria disagree the reasons say which picks which and what each measures', () => {
@@ -73,7 +77,7 @@ describe('compareK', () => {
     expect(r.recommended).toBe(2);
     const said = r.reasons.join(' ');
     expect(said).toMatch(/The criteria disagree: k = 2 by [^;]*the gap statistic \(how much tighter the segments are than in structureless reference data\)/);
-    expect(said).toMatch(/k = 4 by stability \(whether the segments come back when the rows are resampled\), the within-SS bend/);
+    expect(said).toMatch(/k = 4 by stability \(whether the segments come back when the rows are resampled\), prediction strength \([^)]*\), the within-SS bend/);
   });
 
   it('on many rows: gap and stability on a seeded sample, restarts on a sample finished on all rows, same answer', () => {
