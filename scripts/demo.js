@@ -81,6 +81,17 @@ function evidenceInWords(evidence, k, stability) {
         `and the coarsest split is the cleanest; they do not say whether finer segments are real, which stability and the gap statistic do.`,
     );
   }
+  const strength = evidence.byCriterion.predictionStrength;
+  const atRecommended = evidence.table.find((r) => r.k === evidence.recommended);
+  if (atRecommended && atRecommended.predictionStrength !== undefined && strength !== evidence.recommended) {
+    sentences.push(
+      `Prediction strength, which asks whether centres found on half the holders sort the other half alike, ` +
+        (strength === undefined ? 'stays below 0.8 at every k' : `holds at 0.8 or more up to k = ${strength}`) +
+        ` (${atRecommended.predictionStrength.toFixed(2)} at k = ${evidence.recommended}): the groups overlap, so half the rows place ` +
+        `the boundaries less firmly, while on all rows every segment at k = ${evidence.recommended} keeps a bootstrap Jaccard of ` +
+        `${atRecommended.weakestStability.toFixed(2)} or more.`,
+    );
+  }
   if (evidence.recommended === k) {
     sentences.push(
       `We fit k = ${k}, as recommended: refitted with 25 restarts, every one of the ${k} segments comes back in 30 bootstrap resamples ` +

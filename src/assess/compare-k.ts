@@ -420,7 +420,7 @@ function explain(
     reasons.push(
       `The criteria disagree: ${parts.join('; ')}. ` +
         'Silhouette, Calinski–Harabasz and Davies–Bouldin reward the cleanest split and often favour few segments; ' +
-        'the gap statistic and the bend ask where extra segments stop paying; stability asks only whether the segments can be found again.',
+        'the gap statistic and the bend ask where extra segments stop paying; stability and prediction strength ask only whether the segments can be found again.',
     );
   }
   if (choice.noStructure) {
