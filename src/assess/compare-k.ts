@@ -11,6 +11,7 @@ import { KinsortError } from '../core/errors';
 import { Matrix, RowsInput, takeRows, toMatrix } from '../core/matrix';
 import { checkInteger, checkOptions } from '../core/options';
 import { ProgressCallback, report } from '../core/progress';
+import { countDistinctRows } from '../methods/partition/distinct-rows';
 import { kmeans } from '../methods/partition/kmeans';
 import { createRandom, Seed } from '../random';
 import { calinskiHarabasz } from './calinski-harabasz';
@@ -155,12 +156,16 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
 
   const forSilhouette = seededSample(m, silhouetteRows, seed, 'silhouette sample');
   const silhouetteRowsM = forSilhouette ? takeRows(m, forSilhouette) : m;
-  const sample = seededSample(m, sampleRows, seed, 'evidence sample');
+  // A sample must hold at least `to` distinct rows to be segmented at every k; rows with few
+  // distinct values (one-hot columns only, say) fall back to all rows.
+  const drawn = seededSample(m, sampleRows, seed, 'evidence sample');
+  const sample = drawn && countDistinctRows(takeRows(m, drawn), to) >= to ? drawn : undefined;
   const table: CompareKRow[] = [];
   const assignments: Int32Array[] = [];
   const centresByK = new Map<number, number[][]>();
   const withinByK = new Map<number, number>();
-  const starts = m.rows > 2 * START_ROWS ? takeRows(m, seededSample(m, START_ROWS, seed, 'start sample')!) : undefined;
+  const startRows = m.rows > 2 * START_ROWS ? takeRows(m, seededSample(m, START_ROWS, seed, 'start sample')!) : undefined;
+  const starts = startRows && countDistinctRows(startRows, to) >= to ? startRows : undefined;
   for (const k of ks) {
     const fit = starts ? kmeans(m, { k, start: kmeans(starts, { k, seed, restarts }).centers }) : kmeans(m, { k, seed, restarts });
     withinByK.set(k, fit.withinSS);
