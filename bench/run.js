@@ -101,7 +101,7 @@ async function main() {
       progress(`${c.id} ${set.n} × ${set.d}: kinsort, ${c.peers.map((p) => p.tool).join(', ')}, interleaved`);
       const tools = [{ run: (t) => timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, t), warmUp: c.warmUp }];
       for (const peer of c.peers) {
-        if (peer.python) tools.push({ run: (t) => timePython(python, peer.python, set, peer.params, t), warmUp: c.warmUp });
+        if (peer.python) tools.push({ run: (t) => timePython(python, peer.python, set, (args.quick && peer.quickParams) || peer.params, t), warmUp: c.warmUp });
         else if (peer.npm) tools.push({ run: (t) => timeNpm((r) => peer.npm(npmPeers, r), nested, t), maxRepeats: peer.repeats });
         else if (set.n > hclustMaxRows) {
           const note = hclustSkipNote(set.n, hclustMaxRows, hclustMeasured[peer.hclust]);
