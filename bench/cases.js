@@ -92,6 +92,32 @@ const MAIN_CASES = [
     ],
   },
   {
+    // Deciding k on many rows: kinsort's compareK with its defaults (k-means with 10 restarts per k,
+    // silhouette on a 10,000-row sample, Calinski–Harabasz, Davies–Bouldin, the gap statistic with
+    // 20 reference sets, bootstrap stability with 20 resamples per k and prediction strength over
+    // five halvings) against the sweep a Python
+    // user writes by hand (the same measures without the gap statistic or stability). The blobs
+    // overlap (spread 6 around centres drawn in [-10, 10]^10), so the fits at k above 8 have work to do.
+    id: 'k-sweep',
+    title: 'choosing k from 2 to 10 (compareK defaults: gap + stability)',
+    full: { n: 100_000, d: 10 },
+    quick: { n: 1_000, d: 10 },
+    spread: 6,
+    warmUp: false, // each run takes tens of seconds: JIT warm-up is lost in the noise
+    kinsortFunction: 'compareK',
+    // Quick mode (CI smoke) sweeps k = 2…4 only: it checks the wiring, not the speed.
+    kinsort: (ks, m) => ks.compareK(m, { from: 2, to: m.rows >= 10_000 ? 10 : 4, seed: SEED }),
+    peers: [
+      {
+        tool: 'scikit-learn KMeans n_init=10 per k + silhouette (10,000 sampled), CH, DB',
+        python: 'k-sweep',
+        params: { kFrom: 2, kTo: 10, restarts: 10, silhouetteRows: 10_000, seed: SEED },
+        quickParams: { kFrom: 2, kTo: 4, restarts: 10, silhouetteRows: 10_000, seed: SEED },
+        ratioMax: 0.6,
+      },
+    ],
+  },
+  {
     id: 'pca',
     title: `PCA, ${PCA_COMPONENTS} components`,
     full: { n: 100_000, d: 20 },

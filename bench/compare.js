@@ -4,7 +4,7 @@ const { median, timeRepeats } = require('./timing');
 
 function targetText(ratioMax) {
   if (ratioMax === null || ratioMax === undefined) return 'none (information)';
-  if (ratioMax < 1) return `≥ ${Math.round(1 / ratioMax)}× faster`;
+  if (ratioMax < 1 && Number.isInteger(1 / ratioMax)) return `≥ ${1 / ratioMax}× faster`;
   return `≤ ${ratioMax.toFixed(1)}×`;
 }
 

@@ -9,8 +9,11 @@ const path = require('path');
 const BLOB_COUNT = 8;
 const BLOB_SPREAD = 1.5; // standard deviation within a blob; centres lie in [-10, 10]^d
 
-/** n × d blob data as { data: Float64Array, labels: Int32Array }, reproducible from `seed`. */
-function makeBlobs(kinsort, n, d, seed) {
+/**
+ * n × d blob data as { data: Float64Array, labels: Int32Array }, reproducible from `seed`. A case
+ * may ask for a wider `spread` (standard deviation within a blob) to make the blobs overlap.
+ */
+function makeBlobs(kinsort, n, d, seed, { spread = BLOB_SPREAD } = {}) {
   const rng = kinsort.createRandom(seed);
   const centreRng = rng.fork('centres');
   const centres = new Float64Array(BLOB_COUNT * d);
@@ -21,7 +24,7 @@ function makeBlobs(kinsort, n, d, seed) {
   for (let i = 0; i < n; i++) {
     const blob = pointRng.int(BLOB_COUNT);
     labels[i] = blob;
-    for (let j = 0; j < d; j++) data[i * d + j] = centres[blob * d + j] + BLOB_SPREAD * pointRng.normal();
+    for (let j = 0; j < d; j++) data[i * d + j] = centres[blob * d + j] + spread * pointRng.normal();
   }
   return { data, labels };
 }
@@ -48,8 +51,8 @@ function readFloat64(file) {
 }
 
 /** Generate one data set and write it: { n, d, data, labels, dataFile, labelsFile }. */
-function prepareDataSet(kinsort, { n, d, seed, tag }) {
-  const { data, labels } = makeBlobs(kinsort, n, d, seed);
+function prepareDataSet(kinsort, { n, d, seed, tag, spread }) {
+  const { data, labels } = makeBlobs(kinsort, n, d, seed, { spread });
   const stem = `${tag}-${n}x${d}`;
   return {
     n,

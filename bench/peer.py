@@ -70,6 +70,21 @@ def computation(case, X, labels, params):
         model = lambda: KMeans(n_clusters=params["k"], n_init=params["restarts"], algorithm="lloyd",
                                random_state=params.get("seed", 0))
         return lambda: model().fit(X)
+    if case == "k-sweep":
+        from sklearn.cluster import KMeans
+        from sklearn.metrics import calinski_harabasz_score, davies_bouldin_score, silhouette_score
+
+        def sweep():
+            out = []
+            for k in range(params["kFrom"], params["kTo"] + 1):
+                fit = KMeans(n_clusters=k, n_init=params["restarts"], random_state=params["seed"]).fit(X)
+                sample = min(params["silhouetteRows"], X.shape[0])
+                out.append((fit.inertia_,
+                            silhouette_score(X, fit.labels_, sample_size=sample, random_state=params["seed"]),
+                            calinski_harabasz_score(X, fit.labels_),
+                            davies_bouldin_score(X, fit.labels_)))
+            return out
+        return sweep
     if case == "silhouette":
         from sklearn.metrics import silhouette_score
         return lambda: silhouette_score(X, labels)

@@ -96,12 +96,12 @@ async function main() {
 
     for (const c of MAIN_CASES) {
       if (!wanted(c.id)) continue;
-      const set = prepareDataSet(kinsort, { ...size(c), seed: SEED, tag: c.id });
+      const set = prepareDataSet(kinsort, { ...size(c), seed: SEED, tag: c.id, spread: c.spread });
       const nested = c.peers.some((p) => p.npm || p.hclust) ? toNestedRows(set.data, set.n, set.d) : null;
       progress(`${c.id} ${set.n} × ${set.d}: kinsort, ${c.peers.map((p) => p.tool).join(', ')}, interleaved`);
-      const tools = [{ run: (t) => timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, t) }];
+      const tools = [{ run: (t) => timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, t), warmUp: c.warmUp }];
       for (const peer of c.peers) {
-        if (peer.python) tools.push({ run: (t) => timePython(python, peer.python, set, peer.params, t) });
+        if (peer.python) tools.push({ run: (t) => timePython(python, peer.python, set, (args.quick && peer.quickParams) || peer.params, t), warmUp: c.warmUp });
         else if (peer.npm) tools.push({ run: (t) => timeNpm((r) => peer.npm(npmPeers, r), nested, t), maxRepeats: peer.repeats });
         else if (set.n > hclustMaxRows) {
           const note = hclustSkipNote(set.n, hclustMaxRows, hclustMeasured[peer.hclust]);

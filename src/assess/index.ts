@@ -13,6 +13,9 @@ export type { GapStatisticOptions, GapStatisticResult, GapRow } from './gap-stat
 export { findKnee, KNEE_DIRECTIONS, KNEE_CURVES } from './knee';
 export type { FindKneeOptions, KneeResult } from './knee';
 export { compareK, COMPARE_K_RULE } from './compare-k';
+export { PREDICTION_STRENGTH_FROM } from './prediction-strength';
+export { chooseK, K_CHOICE_RULE } from './k-choice';
+export type { KChoice, KChoiceInput } from './k-choice';
 export type { CompareKOptions, CompareKResult, CompareKRow, CompareKByCriterion } from './compare-k';
 export { bootstrapStability, STABILITY_METHODS, UNSTABLE_BELOW, STABLE_FROM } from './stability';
 export type { BootstrapStabilityOptions, BootstrapStabilityResult, StabilityResult, StabilityReading, StabilityMethod } from './stability';

@@ -141,38 +141,13 @@ export function bootstrapStability(
 
   const byResample: number[][] = Array.from({ length: k }, () => new Array<number>(resamples).fill(NaN));
   const drawnAt = new Int32Array(n).fill(-1); // resample in which row i was last seen
-  const intersection = new Float64Array(k * k);
-  const newSizes = new Float64Array(k);
-  const keptSizes = new Float64Array(k);
   const indices = new Int32Array(n);
   for (let b = 0; b < resamples; b++) {
     const random = root.fork(`resample ${b}`);
     for (let r = 0; r < n; r++) indices[r] = random.int(n);
     const fit = segment(indices, k, random.uint32());
-    // Distinct drawn rows: a row drawn twice is the same entity; its first copy's segment stands.
-    intersection.fill(0);
-    newSizes.fill(0);
-    keptSizes.fill(0);
-    for (let r = 0; r < n; r++) {
-      const i = indices[r];
-      if (drawnAt[i] === b) continue;
-      drawnAt[i] = b;
-      const c = original[i];
-      keptSizes[c]++;
-      newSizes[fit[r]]++;
-      intersection[c * k + fit[r]]++;
-    }
-    for (let c = 0; c < k; c++) {
-      if (keptSizes[c] === 0) continue; // segment not drawn: no evidence from this resample
-      let best = 0;
-      for (let d = 0; d < k; d++) {
-        const both = intersection[c * k + d];
-        if (both === 0) continue;
-        const jaccard = both / (keptSizes[c] + newSizes[d] - both);
-        if (jaccard > best) best = jaccard;
-      }
-      byResample[c][b] = best;
-    }
+    const best = bestJaccardBySegment(original, k, indices, fit, k, drawnAt, b);
+    for (let c = 0; c < k; c++) byResample[c][b] = best[c];
     report(opts.onProgress, { task: 'bootstrap resamples', done: b + 1, total: resamples, detail: `k = ${k}` });
   }
 
@@ -189,4 +164,47 @@ export function bootstrapStability(
     reading.push(mean >= STABLE_FROM ? 'stable' : mean >= UNSTABLE_BELOW ? 'doubtful' : 'unstable');
   }
   return { method, k, assignment: original, jaccard, dissolved, recovered, reading, jaccardByResample: byResample, resamples };
+}
+
+/**
+ * For each original segment (labels 0..k-1 of `original`, indexed by row), the largest Jaccard
+ * similarity with any segment of a refit (`fit[r]` in 0..kFit-1 is the new segment of row
+ * `indices[r]`), both restricted to the distinct rows drawn; NaN for a segment none of whose rows
+ * was drawn. A row drawn twice is one entity: its first copy's new segment stands. `drawnAt` is
+ * scratch of one entry per row, marked with `stamp` (distinct per call, never -1).
+ */
+export function bestJaccardBySegment(
+  original: Int32Array,
+  k: number,
+  indices: Int32Array,
+  fit: Int32Array,
+  kFit: number,
+  drawnAt: Int32Array,
+  stamp: number,
+): Float64Array {
+  const intersection = new Float64Array(k * kFit);
+  const newSizes = new Float64Array(kFit);
+  const keptSizes = new Float64Array(k);
+  for (let r = 0; r < indices.length; r++) {
+    const i = indices[r];
+    if (drawnAt[i] === stamp) continue;
+    drawnAt[i] = stamp;
+    const c = original[i];
+    keptSizes[c]++;
+    newSizes[fit[r]]++;
+    intersection[c * kFit + fit[r]]++;
+  }
+  const best = new Float64Array(k).fill(NaN);
+  for (let c = 0; c < k; c++) {
+    if (keptSizes[c] === 0) continue; // segment not drawn: no evidence from this resample
+    let top = 0;
+    for (let d = 0; d < kFit; d++) {
+      const both = intersection[c * kFit + d];
+      if (both === 0) continue;
+      const jaccard = both / (keptSizes[c] + newSizes[d] - both);
+      if (jaccard > top) top = jaccard;
+    }
+    best[c] = top;
+  }
+  return best;
 }

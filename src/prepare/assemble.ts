@@ -1,6 +1,7 @@
 // Shared last step of fitting and re-applying: run the transform and build PreparedData.
 import { createMatrix } from '../core/matrix';
 import { cellNumber, type DecimalMark } from '../table/cells';
+import type { MixedColumn } from '../core/mixed';
 import type { Cell, Table } from '../table/types';
 import { transformRows } from './transform';
 import type { Preparation, PreparationReport, PreparedData } from './types';
@@ -30,6 +31,13 @@ export function assemble(input: AssembleInput): PreparedData {
     where: input.where,
     decimalMark: preparation.decimalMark,
   });
+  // Constant columns leave the features (they cannot separate rows) but stay in Gower's average,
+  // contributing 0, as R's cluster::daisy counts them: dropping them would scale every
+  // dissimilarity by p / (p − constants).
+  for (const name of preparation.constantColumns) {
+    const cells = input.cells.get(name);
+    if (cells) mixed.push(constantMixedColumn(name, cells, kept));
+  }
   const ids = pick(input.ids, kept);
   const featureNames = [...preparation.featureNames];
   const matrix = createMatrix(kept.length, featureNames.length, data, { rowLabels: ids, colNames: featureNames });
@@ -70,6 +78,13 @@ function asNumbers(values: Cell[], decimalMark: DecimalMark): Cell[] {
     out[i] = n;
   }
   return out;
+}
+
+/** A constant column for Gower: code 0 where the cell is present, NaN (skipped) where it is missing. */
+function constantMixedColumn(name: string, cells: readonly Cell[], kept: Int32Array): MixedColumn {
+  const values = new Float64Array(kept.length);
+  for (let r = 0; r < kept.length; r++) values[r] = cells[kept[r]] === null ? NaN : 0;
+  return { name, kind: 'numeric', values };
 }
 
 /** values[rows[r]] for each r (a plain loop: Array.from with a map function is slow on large inputs). */

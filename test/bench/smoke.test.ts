@@ -22,6 +22,7 @@ const CASE_FUNCTIONS: Record<string, string> = {
   ward: 'agglomerate',
   average: 'agglomerate',
   pca: 'project',
+  'k-sweep': 'compareK',
   'ward-small': 'agglomerate',
   'average-small': 'agglomerate',
   'ward-memory': 'agglomerate',

@@ -59,6 +59,9 @@ describe('npm run demo', () => {
     expect(page).toContain('class="ks-wu-figures"'); // the write-up's figures table
     expect(page).toContain('class="ks-wu-caution"');
     expect(page).toContain('How many segments');
+    // One story: the evidence view's headline, the text and the fitted k agree (issue 16, item 7).
+    expect(page).toContain('<h3>k = 5 recommended: every segment stable');
+    expect(page).toMatch(/How many segments<\/h2><p>k = 5 recommended[^<]*We fit k = 5, as recommended/);
     // Station names from demo-data/stations.csv label the dendrogram.
     const station = fs.readFileSync(path.join(root, 'demo-data', 'stations.csv'), 'utf8').split('\n')[1].split(',')[0];
     expect(page).toContain(station);

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { study } from '../../src/study';
 import type { MixedColumn, MixedTable } from '../../src/core/mixed';
 import { dissimilarity } from '../../src/measure';
 import fixture from '../reference/fixtures/gower_daisy.json';
@@ -58,6 +59,21 @@ describe(`Gower against ${fixture.producedBy}`, () => {
   it('own mixed table with missing values and a constant column (data of our own making) matches daisy', () => {
     const d = dissimilarity(toTable(fixture.own.columns as FixtureColumn[]));
     expectClose(d.condensed, fixture.own.condensed);
+  });
+});
+
+describe('Gower through study()', () => {
+  it('keeps a constant column in the average as daisy does (complete rows of the own table, fixture by gower_daisy.R)', () => {
+    const records = fixture.ownComplete.records;
+    const s = study(records, {
+      id: 'id',
+      use: ['size', 'flat', 'colour', 'grade', 'member'],
+      types: { member: 'binary', grade: 'ordinal' },
+      ordinalLevels: { grade: ['low', 'mid', 'high'] },
+    }).prepare({ scale: 'none' });
+    expect(s.report.constantColumns).toEqual(['flat']); // left out of the features …
+    const d = s.dissimilarity({ metric: 'gower' });
+    expectClose(d.condensed, fixture.ownComplete.condensed); // … but counted in Gower, as daisy counts it
   });
 });
 

@@ -50,6 +50,17 @@ ownKinds <- list(size = "numeric", flat = "numeric", colour = "categorical", gra
                  member = "binary", owns = "binary")
 ownD <- suppressWarnings(daisy(own, metric = "gower", type = list(symm = "member", asymm = "owns")))
 
+# The complete rows of the own table without the asymmetric column, as a study() sees them: the
+# constant column "flat" must still count in Gower's average (31/30-style factor otherwise).
+complete <- own[complete.cases(own), c("size", "flat", "colour", "grade", "member")]
+completeD <- daisy(complete, metric = "gower", type = list(symm = "member"))
+records <- vapply(seq_len(nrow(complete)), function(i) {
+  r <- complete[i, ]
+  paste0("{\"id\": ", str(paste0("r", i)), ", \"size\": ", num(r$size), ", \"flat\": ", num(r$flat),
+         ", \"colour\": ", str(as.character(r$colour)), ", \"grade\": ", str(as.character(r$grade)),
+         ", \"member\": ", num(r$member), "}")
+}, "")
+
 json <- paste0(
   "{\n \"producedBy\": ", str(paste0(R.version.string, ", cluster ", packageVersion("cluster"), " daisy(metric = \"gower\")")),
   ",\n \"source\": ", str("flower data of Struyf, Hubert & Rousseeuw (1997) as shipped in R's cluster package (data(flower)); 'own' table: data of our own making, set.seed(20261202) in this script"),
@@ -60,6 +71,8 @@ json <- paste0(
   ",\n  \"weightedAsymmetricV3\": ", arr(as.vector(weighted)),
   "\n },\n \"own\": {\n  \"columns\": ", table(own, ownKinds, asym = "owns"),
   ",\n  \"condensed\": ", arr(as.vector(ownD)),
+  "\n },\n \"ownComplete\": {\n  \"records\": [", paste(records, collapse = ",\n   "), "]",
+  ",\n  \"condensed\": ", arr(as.vector(completeD)),
   "\n }\n}\n")
 args <- commandArgs(trailingOnly = FALSE)
 here <- dirname(normalizePath(sub("^--file=", "", args[grep("^--file=", args)])))

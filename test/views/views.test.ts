@@ -55,7 +55,7 @@ describe('every view', () => {
     expect(byKind.projection).toMatch(/principal component 1 \(46\.0% of variance\)/);
     expect(byKind.projection).toMatch(/principal component 2 \(31\.0% of variance\)/);
     expect(byKind.scree).toContain('share of variance');
-    expect(byKind['k-evidence']).toContain('k (number of segments)');
+    expect(byKind['k-evidence']).toMatch(/font-style="italic" fill="#[0-9a-f]{6}">k<\/text>/);
     expect(byKind.silhouette).toContain('silhouette width');
   });
 });
