@@ -19,7 +19,8 @@ import {
   SegmentDefinition,
 } from './definition-types';
 import { fingerprintRows } from './fingerprint';
-import { percentile, pointToCenter } from './assign-nearest';
+import { nearestCenters, percentile, pointToCenter } from './assign-nearest';
+import { trainingDistributions } from './training-distributions';
 import { kinsortVersion } from './definition-version';
 
 export interface DefinitionSegmentInput {
@@ -179,6 +180,10 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
     features,
     segments,
     training: { rows: matrix.rows, fingerprint: fingerprintRows(ids.map(String), matrix) },
+    trainingDistributions: trainingDistributions(
+      matrix.data, matrix.rows, dims,
+      nearestCenters(matrix.data, matrix.rows, flatCenters, k, dims, metric, segments.map((s) => s.farBeyond)).far,
+    ),
     evidence: input.evidence === undefined ? undefined : (sortedKeys(finiteOrNull(input.evidence)) as { [key: string]: JsonValue }),
   };
 }

@@ -1,6 +1,7 @@
 // The segment definition: a plain, versioned JSON document holding everything needed to apply a
 // fitted segmentation to new rows (here, in another notebook, or in SQL where the data lives).
 import type { JsonValue } from './definition-json';
+import type { TrainingDistributions } from './training-distributions';
 
 /** Marks the file as ours, whatever its name. */
 export const DEFINITION_KIND = 'kinsort segment definition';
@@ -64,6 +65,8 @@ export interface SegmentDefinition {
     /** Order-independent hash of ids + prepared values (see fingerprint.ts). */
     readonly fingerprint: string;
   };
+  /** Optional: the training rows' feature distributions and far share, for drift (absent in older files). */
+  readonly trainingDistributions?: TrainingDistributions;
   /** Optional evidence for the choice of k (keys sorted), as the caller gives it. */
   readonly evidence?: { [key: string]: JsonValue };
 }

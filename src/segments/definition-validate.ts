@@ -13,6 +13,7 @@ import {
 } from './definition-types';
 import { kinsortVersion } from './definition-version';
 import { checkStoredPreparation } from './definition-validate-preparation';
+import { checkTrainingDistributions } from './definition-validate-distributions';
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');
@@ -41,7 +42,7 @@ function need(obj: Record<string, unknown>, key: string, type: 'string' | 'numbe
   return v;
 }
 
-const TOP_KEYS = ['kind', 'formatVersion', 'writtenBy', 'note', 'method', 'rule', 'metric', 'preparation', 'features', 'segments', 'training', 'evidence'];
+const TOP_KEYS = ['kind', 'formatVersion', 'writtenBy', 'note', 'method', 'rule', 'metric', 'preparation', 'features', 'segments', 'training', 'trainingDistributions', 'evidence'];
 const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
 
 /** Unknown keys are refused: a hand edit with a typo must not be silently ignored. */
@@ -134,6 +135,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   const rows = need(training, 'rows', 'number', `${where}: training`);
   const fingerprint = need(training, 'fingerprint', 'string', `${where}: training`);
   const evidence = need(d, 'evidence', 'object', where, true);
+  const distributions = d.trainingDistributions === undefined ? undefined : checkTrainingDistributions(d.trainingDistributions, dims, `${where}: trainingDistributions`);
   return {
     kind: DEFINITION_KIND,
     formatVersion: version,
@@ -146,6 +148,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     features: features as string[],
     segments,
     training: { rows, fingerprint },
+    trainingDistributions: distributions,
     evidence: evidence === undefined ? undefined : (sortedKeys(evidence) as { [key: string]: JsonValue }),
   };
 }

@@ -23,5 +23,7 @@ export const VIEW_CSS = `
 .kinsort-view .ks-card h5{margin:8px 0 3px;font-size:11.5px;text-transform:uppercase;letter-spacing:.06em;color:${INK.muted};font-weight:600}
 .kinsort-view .ks-card ul{margin:0;padding-left:16px;font-size:12.5px}
 .kinsort-view .ks-card .ks-fact{font-size:12.5px;margin:2px 0}
+.kinsort-view .ks-sub{margin:12px 0 4px;font-size:12px;text-transform:uppercase;letter-spacing:.06em;color:${INK.muted};font-weight:600;display:flex;gap:6px;align-items:center;flex-wrap:wrap}
+.kinsort-view .ks-fact{font-size:12.5px;margin:3px 0}
 .kinsort-view .ks-caution{font-size:11.5px;color:${INK.muted};margin-top:10px;font-style:italic}
 `;
