@@ -14,7 +14,7 @@ const pct = (v: number | null, digits = 1): string => (v === null || !Number.isF
 function shareBars(report: DriftReport): string {
   const width = 700;
   const rowH = 40;
-  const labelW = 190;
+  const labelW = 220;
   const numW = 150;
   const max = Math.max(0.05, ...report.segments.flatMap((s) => [s.trainingShare, s.newShare]));
   const scale = (v: number) => (v / max) * (width - labelW - numW);
@@ -22,7 +22,7 @@ function shareBars(report: DriftReport): string {
   report.segments.forEach((s, i) => {
     const y = 8 + i * rowH;
     const colour = segmentColour(s.segment - 1);
-    const name = s.title ? `${s.segment} · ${shortName(s.title, 24)}` : `Segment ${s.segment}`;
+    const name = s.title ? `${s.segment} · ${shortName(s.title, 28)}` : `Segment ${s.segment}`;
     const change = (s.newShare - s.trainingShare) * 100;
     body.push(
       svgEl.group(
@@ -63,10 +63,10 @@ function stabilityBars(report: DriftReport): string {
     body.push(svgEl.line({ x1: x(t), x2: x(t), y1: top - 4, y2: h - 4, stroke: INK.axis, 'stroke-dasharray': '2 3' }));
     body.push(svgEl.text(String(t), { x: x(t), y: top - 8, 'text-anchor': 'middle', 'font-size': 10, fill: INK.muted }));
   });
-  body.push(svgEl.text('reading lines (common practice)', { x: labelW, y: 11, 'font-size': 10, fill: INK.muted }));
+  body.push(svgEl.text('dotted: readings, common practice', { x: width - numW + 8, y: top - 8, 'font-size': 10, fill: INK.muted }));
   rows.forEach((r, i) => {
     const y = top + i * rowH;
-    const ink = r.reading === 'little change' ? INK.axis : r.reading === 'some change' ? INK.below : INK.accent;
+    const ink = r.reading === 'little change' ? INK.axis : r.reading === 'some change' ? '#c98a2e' : INK.accent;
     body.push(
       svgEl.group(
         [

@@ -25,5 +25,10 @@ export const VIEW_CSS = `
 .kinsort-view .ks-card .ks-fact{font-size:12.5px;margin:2px 0}
 .kinsort-view .ks-sub{margin:12px 0 4px;font-size:12px;text-transform:uppercase;letter-spacing:.06em;color:${INK.muted};font-weight:600;display:flex;gap:6px;align-items:center;flex-wrap:wrap}
 .kinsort-view .ks-fact{font-size:12.5px;margin:3px 0}
+.kinsort-view .ks-apart-key{font-size:11.5px;color:${INK.muted};margin:0 0 4px;line-height:1.35}
+.kinsort-view .ks-apart-row{display:grid;grid-template-columns:1fr 150px;gap:6px;align-items:center;padding:3px 0;border-bottom:1px solid ${INK.grid}}
+.kinsort-view .ks-apart-name{font-size:12.5px;font-weight:600}
+.kinsort-view .ks-apart-values{font-size:12px;color:${INK.muted}}
+.kinsort-view .ks-apart-bar svg{display:block}
 .kinsort-view .ks-caution{font-size:11.5px;color:${INK.muted};margin-top:10px;font-style:italic}
 `;
