@@ -43,7 +43,8 @@ describe('every view', () => {
     // Offline: no external script, stylesheet or font.
     expect(page).not.toMatch(/<script[^>]+src=/i);
     expect(page).not.toMatch(/<link[^>]+href=/i);
-    if (view.kind !== 'profile-cards') {
+    // Cards and silhouettes are plain HTML / SVG only; every other view also has a live chart.
+    if (view.kind !== 'profile-cards' && view.kind !== 'silhouette') {
       expect(page.split('window.__kinsortDefine=window.define').length - 1).toBe(1);
       expect(fragment).toContain('class="ks-live" hidden');
     }
