@@ -6,7 +6,7 @@
 // the same with scripts off.
 import { compactLabels } from '../core/assignment';
 import { checkOptions } from '../core/options';
-import { kindOf, namesFrom, refuse } from './common';
+import { kindOf, namesFrom, refuse, shortName } from './common';
 import { INK, segmentColour, textOn } from './palette';
 import { summariseSilhouette, SILHOUETTE_BIN, type SilhouetteSummary } from './silhouette-summary';
 import { linearScale, niceTicks, formatTick, pathData, svgDocument, svgEl } from './svg';
@@ -20,20 +20,15 @@ export interface SilhouetteLike {
   readonly neighbour?: ArrayLike<number>;
 }
 
-/** Up to two lines of at most `max` characters, broken at spaces; a longer rest ends in "…". */
+/** Up to two lines of at most `max` characters, broken at spaces; a longer rest is shortened at a word with "…". */
 function twoLines(text: string, max: number): string[] {
-  const words = text.split(/\s+/);
-  const lines: string[] = [''];
-  for (const w of words) {
-    const line = lines[lines.length - 1];
-    if ((line + ' ' + w).trim().length <= max) lines[lines.length - 1] = (line + ' ' + w).trim();
-    else if (lines.length < 2 && line !== '') lines.push(w);
-    else {
-      lines[lines.length - 1] = (line + ' ' + w).trim().slice(0, max - 1) + '…';
-      break;
-    }
-  }
-  return lines.map((l) => (l.length > max ? l.slice(0, max - 1) + '…' : l));
+  const words = text.trim().split(/\s+/);
+  let first = '';
+  let used = 0;
+  while (used < words.length && (first ? first + ' ' + words[used] : words[used]).length <= max) first = first ? `${first} ${words[used++]}` : words[used++];
+  if (used === 0) return [shortName(text.trim(), max)];
+  const rest = words.slice(used).join(' ');
+  return rest ? [first, shortName(rest, max)] : [first];
 }
 
 const pct = (part: number, whole: number): string => {
