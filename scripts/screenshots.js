@@ -35,6 +35,8 @@ function views() {
   const tree = stations.agglomerate({ method: 'ward' });
   const scored = seg.definition().assign(readCsvFile(data('pass-holders-next-month.csv')));
   return {
+    'k-evidence': () => holders.compareK({ from: 2, to: 8, seed: 11, references: 10 }).view(),
+    scree: () => kinsort.screeView(kinsort.project(holders.data.matrix, { components: 8 })),
     'profile-cards': () => seg.cards(),
     projection: () => seg.projection({ loadings: true }),
     silhouette: () => seg.silhouette().view(),

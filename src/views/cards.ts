@@ -17,10 +17,10 @@ export interface CardsOptions {
 }
 
 /**
- * A profile as the cards read it: `reproduced` (0..1), when present, is the share of the segment's
- * rows that the definition's rule puts back in the same segment.
+ * A profile as the cards read it: `rule`, when present (the fluent layer sets it), says how many of
+ * the segment's members the definition's rule (nearest centre / medoid) puts back in it.
  */
-export type CardProfile = SegmentProfile & { readonly reproduced?: number };
+export type CardProfile = SegmentProfile & { readonly rule?: { readonly name: string; readonly reproduced: number; readonly size: number } };
 
 /** The sections of a card, in order; each returns trusted HTML built from escaped pieces. */
 export type CardSection = (p: CardProfile, context: { reach: number }) => string;
@@ -49,7 +49,7 @@ function differenceBar(d: VariableDifference, reach: number, x0 = 0, y0 = 0, wid
 }
 
 const valuesText = (d: VariableDifference): string =>
-  `${formatShown(d.segmentMean, d.shownAs)} here · ${formatShown(d.overallMean, d.shownAs)} all rows`;
+  `${formatShown(d.segmentMean, d.shownAs)} (all rows ${formatShown(d.overallMean, d.shownAs)})`;
 
 function apartRows(p: CardProfile, reach: number): string {
   if (p.standout.length === 0) return '';
@@ -98,10 +98,12 @@ function keptLine(k: KeptSummary): string {
   return `<div class="ks-fact"><b>${escapeHtml(k.name)}</b>: ${shown.join(' · ')}${more}${k.missing ? `, ${k.missing} missing` : ''}</div>`;
 }
 
+/** Shown only below 100 %: the definition's rule would score some members into another segment. */
 function reproducedLine(p: CardProfile): string {
-  const r = p.reproduced;
-  if (typeof r !== 'number' || !Number.isFinite(r) || r >= 1) return '';
-  return `<p class="ks-size"><b>Definition</b>: its rule puts ${(r * 100).toFixed(1)} % of these rows back in this segment</p>`;
+  const r = p.rule;
+  if (!r || !(r.size > 0) || r.reproduced >= r.size) return '';
+  return `<p class="ks-size"><b>Definition</b>: its ${escapeHtml(r.name)} rule puts ${((100 * r.reproduced) / r.size).toFixed(1)}\u00a0% ` +
+    `of these rows (${r.reproduced.toLocaleString('en-US')} of ${r.size.toLocaleString('en-US')}) back in this segment</p>`;
 }
 
 /** Sections of every card, in order (a later section, e.g. rules, goes in this list). */

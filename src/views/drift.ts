@@ -63,7 +63,6 @@ function stabilityBars(report: DriftReport): string {
     body.push(svgEl.line({ x1: x(t), x2: x(t), y1: top - 4, y2: h - 4, stroke: INK.axis, 'stroke-dasharray': '2 3' }));
     body.push(svgEl.text(String(t), { x: x(t), y: top - 8, 'text-anchor': 'middle', 'font-size': 10, fill: INK.muted }));
   });
-  body.push(svgEl.text('dotted: readings, common practice', { x: width - numW + 8, y: top - 8, 'font-size': 10, fill: INK.muted }));
   rows.forEach((r, i) => {
     const y = top + i * rowH;
     const ink = r.reading === 'little change' ? INK.axis : r.reading === 'some change' ? '#c98a2e' : INK.accent;
@@ -111,7 +110,7 @@ export function driftView(report: DriftReport, options: { title?: string } = {})
   const legend = report.segments.map((s) => htmlSwatch(s.segment - 1)).join(' ');
   const still =
     `<h5 class="ks-sub">Segment shares ${legend}</h5>${shareBars(report)}${far}${refused}` +
-    (report.features.length ? `<h5 class="ks-sub">Shift of each feature</h5>${stabilityBars(report)}` : '') +
+    (report.features.length ? `<h5 class="ks-sub">Shift of each feature: population stability index (dotted lines: readings, common practice)</h5>${stabilityBars(report)}` : '') +
     `<h5 class="ks-sub">Columns with unseen levels or filled values</h5>${columnsTable(report)}`;
   return makeView({ kind: 'drift', title, caption, still, svg: shareBars(report), notes: report.notes });
 }

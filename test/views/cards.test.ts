@@ -42,9 +42,9 @@ describe('values in the column units', () => {
     // peak: sd 0.3822 → 38.2 points → no decimal.
     expect(peak.shownAs).toEqual({ unit: 'percent', decimals: 0 });
     const html = profileCardsView(p).fragment();
-    expect(html).toContain('3.0 here · 12.0 all rows');
-    expect(html).toContain('15\u00a0% here · 50\u00a0% all rows');
-    expect(html).toMatch(/fare = student<\/div><div class="ks-apart-values">33\u00a0% here · 50\u00a0% all rows/);
+    expect(html).toContain('3.0 (all rows 12.0)');
+    expect(html).toContain('15\u00a0% (all rows 50\u00a0%)');
+    expect(html).toMatch(/fare = student<\/div><div class="ks-apart-values">33\u00a0% \(all rows 50\u00a0%\)/);
   });
 
   it('draws above and below in inks that are no segment colour', () => {
@@ -62,10 +62,10 @@ describe('values in the column units', () => {
   });
 
   it('shows how well the rule reproduces a segment only below 100 %', () => {
-    const p = profiles().map((x, i) => ({ ...x, reproduced: i === 0 ? 0.975 : 1 }));
+    const p = profiles().map((x, i) => ({ ...x, rule: { name: 'nearest-centre', reproduced: i === 0 ? 39 : 40, size: 40 } }));
     const html = profileCardsView(p).fragment();
-    expect(html.match(/its rule puts/g)).toHaveLength(1);
-    expect(html).toContain('97.5 % of these rows back in this segment');
+    expect(html.match(/rule puts/g)).toHaveLength(1);
+    expect(html).toContain('its nearest-centre rule puts 97.5\u00a0% of these rows (39 of 40) back in this segment');
   });
 });
 
