@@ -115,3 +115,22 @@ describe('the stability index itself', () => {
     expect(decileCuts([0, 0, 0, 0, 0, 0, 1, 1, 1, 1])).toEqual([0]);
   });
 });
+
+describe('the drift view', () => {
+  it('shows hostile levels, names and titles as text, never as markup', () => {
+    const bad = `<img src=x onerror="window.__pwned=1">`;
+    const rows = Array.from({ length: 10 }, (_, i) => ({ id: `T${i}`, x: i, zone: i % 2 ? 'n' : 's' }));
+    const prepared = prepareTable(rows, { id: 'id', use: ['x', 'zone'] });
+    const def = buildDefinition({
+      preparation: prepared.preparation,
+      method: { name: 'kmeans', options: {} },
+      centers: [Array.from(prepared.matrix.data.slice(0, prepared.matrix.cols)), Array.from(prepared.matrix.data.slice(prepared.matrix.cols * 9))],
+      segments: [{ number: 1, title: bad }],
+      training: { ids: prepared.ids, matrix: prepared.matrix, assignment: rows.map((_, i) => (i < 5 ? 0 : 1)) },
+    });
+    const html = loadDefinition(def).assign([{ id: bad, x: 3, zone: bad }]).drift().html();
+    expect(html).not.toMatch(/<img/i);
+    expect(html).not.toMatch(/<[^>]+\son[a-z]+\s*=/i);
+    expect(html).toContain('&lt;img src=x');
+  });
+});
