@@ -14,7 +14,7 @@ if (!fs.existsSync(path.join(root, 'dist', 'index.js'))) {
   process.exit(2);
 }
 const kinsort = require(path.join(root, 'dist', 'index.js'));
-const { study, readCsvFile, plottingScript } = kinsort;
+const { study, readCsvFile, plottingScript, loadDefinition } = kinsort;
 
 function argument(name, fallback) {
   const i = process.argv.indexOf(name);
@@ -150,6 +150,17 @@ function main() {
   const definitionFile = path.join(outDir, 'pass-holder-segments.json');
   seg.definition({ note: 'Demo pass holders, k-means k = 5 on robust-scaled features (scripts/demo.js).' }).save(definitionFile);
 
+  // Next month's rows scored with the saved definition, as a colleague would, and their drift.
+  const scored = loadDefinition(definitionFile).assign(readCsvFile(path.join(dataDir, 'pass-holders-next-month.csv')));
+  const drift = scored.drift();
+  const largest = [...drift.features].sort((a, b) => b.stabilityIndex - a.stabilityIndex)[0];
+  say(`next month: ${drift.scoredRows} of ${drift.inputRows} rows scored; far from every segment ${(drift.far.newShare * 100).toFixed(1)} %; ` +
+    `largest shift ${largest ? `${largest.feature} (stability index ${largest.stabilityIndex.toFixed(3)}, ${largest.reading})` : 'none'}`);
+  const driftSection =
+    `<h2>Next month's pass holders</h2><p>The saved definition applied to next month's rows, unchanged: how the segments' ` +
+    `shares moved, how many rows sit far from every segment, and how far each feature's distribution shifted.</p>` +
+    drift.view().fragment();
+
   const title = 'Pass-holder segments (demo data)';
   const writeUp = seg.writeUp({ title }).html();
   const style = between(writeUp, '<style>', '</style>');
@@ -171,6 +182,7 @@ function main() {
     views.map((v) => v.fragment()).join('') +
     `<h2>The segments</h2>` +
     body.slice(cardsAt) +
+    driftSection +
     hierarchy +
     `</body></html>`;
   const reportFile = path.join(outDir, 'report.html');

@@ -23,6 +23,7 @@ import {
 import { readDefinition } from './definition-validate';
 import { fingerprintRows } from './fingerprint';
 import { nearestCenters, percentile, pointToCenter } from './assign-nearest';
+import { trainingDistributions } from './training-distributions';
 import { kinsortVersion } from './definition-version';
 
 export interface DefinitionSegmentInput {
@@ -206,6 +207,10 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
       reproducedRows,
       labels: trainingLabels,
     },
+    trainingDistributions: trainingDistributions(
+      matrix.data, matrix.rows, dims,
+      nearestCenters(matrix.data, matrix.rows, flatCenters, k, dims, metric, segments.map((s) => s.farBeyond)).far,
+    ),
     evidence: input.evidence === undefined ? undefined : (sortedKeys(finiteOrNull(input.evidence)) as { [key: string]: JsonValue }),
   };
   // What is built must load: the loader's checks (schema, names, case clashes, sizes) run on it too.

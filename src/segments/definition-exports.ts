@@ -2,7 +2,7 @@
 export { buildDefinition } from './definition-build';
 export type { BuildDefinitionInput, DefinitionSegmentInput } from './definition-build';
 export { loadDefinition, definitionHandle } from './definition-handle';
-export type { DefinitionHandle } from './definition-handle';
+export type { DefinitionHandle, DriftResult, ScoredOutcome } from './definition-handle';
 export { writeDefinitionJson } from './definition-json';
 export { DEFINITION_FORMAT_VERSION, DEFINITION_KIND, FAR_PERCENTILE } from './definition-types';
 export type { SegmentDefinition, DefinitionSegment, AssignmentRule, DefinitionMetric, DefinitionMethodName } from './definition-types';
@@ -10,3 +10,6 @@ export type { AssignmentOutcome, AssignedRow, AssignmentReport, RefusedRow, Assi
 export type { SqlOptions } from './sql';
 export { SQL_MAX_SEGMENTS, SQL_MAX_FIGURES } from './sql';
 export { fingerprintRows } from './fingerprint';
+export { STABILITY_READINGS, DRIFT_BINS, SHARE_FLOOR } from './training-distributions';
+export type { TrainingDistributions, FeatureDistribution } from './training-distributions';
+export type { DriftReport, DriftOptions, ScoredRow, SegmentDrift, ColumnDrift, FeatureDrift } from './drift';

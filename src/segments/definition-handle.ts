@@ -9,11 +9,38 @@ import { readDefinition } from './definition-validate';
 import { fingerprintRows } from './fingerprint';
 import { assignRows, AssignmentOutcome, AssignOptions } from './assign-rows';
 import { definitionToSql, SqlOptions } from './sql';
+import { driftOf, DriftOptions, DriftReport } from './drift';
+import { driftView } from '../views/drift';
+import type { View } from '../views/view';
+
+/** Drift figures that also draw themselves (view, show, html, save). */
+export type DriftResult = DriftReport & {
+  view(): View;
+  show(): void;
+  html(): string;
+  save(path: string): string;
+};
+
+/** An assignment outcome whose drift() compares the new rows with the training rows. */
+export type ScoredOutcome = AssignmentOutcome & { drift(): DriftResult };
+
+function drawable(report: DriftReport): DriftResult {
+  let cached: View | undefined;
+  const view = (): View => (cached ??= driftView(report));
+  const extra = { view, show: () => view().show(), html: () => view().html(), save: (path: string) => view().save(path) };
+  for (const [key, fn] of Object.entries(extra)) Object.defineProperty(report, key, { value: fn, enumerable: false, configurable: true });
+  return report as DriftResult;
+}
 
 export interface DefinitionHandle {
   readonly definition: SegmentDefinition;
   /** Apply the stored preparation to new rows and give each its nearest segment (1-based). */
-  assign(input: unknown, options?: AssignOptions): AssignmentOutcome;
+  assign(input: unknown, options?: AssignOptions): ScoredOutcome;
+  /**
+   * Drift of new rows against the training rows. With `scored` (rows scored elsewhere, e.g. by the
+   * SQL of toSql(), handed back as { id, segment, far }), shares and far rows come from those.
+   */
+  drift(input: unknown, options?: DriftOptions): DriftResult;
   /** One portable SELECT giving the id column, segment, distance and far for every row of `table`. */
   toSql(options: SqlOptions): string;
   /** The definition file's text (deterministic). */
@@ -36,7 +63,13 @@ function looksLikeJsonText(s: string): boolean {
 export function definitionHandle(definition: SegmentDefinition): DefinitionHandle {
   return {
     definition,
-    assign: (input, options) => assignRows(definition, input, options),
+    assign(input, options) {
+      const outcome = assignRows(definition, input, options);
+      const drift = (): DriftResult => drawable(driftOf(definition, input, { read: options?.read }, outcome));
+      Object.defineProperty(outcome, 'drift', { value: drift, enumerable: false, configurable: true });
+      return outcome as ScoredOutcome;
+    },
+    drift: (input, options) => drawable(driftOf(definition, input, options)),
     toSql: (options) => definitionToSql(definition, options),
     toJSON: () => writeDefinitionJson(definition),
     save(path: string) {

@@ -1,6 +1,7 @@
 // The segment definition: a plain, versioned JSON document holding everything needed to apply a
 // fitted segmentation to new rows (here, in another notebook, or in SQL where the data lives).
 import type { JsonValue } from './definition-json';
+import type { TrainingDistributions } from './training-distributions';
 
 /** Marks the file as ours, whatever its name. */
 export const DEFINITION_KIND = 'kinsort segment definition';
@@ -82,6 +83,8 @@ export interface SegmentDefinition {
     /** 'fit': segments (and sizes) as the method gave them; 'rule': relabelled by the stored rule, on request. */
     readonly labels: TrainingLabels;
   };
+  /** Optional: the training rows' feature distributions and far share, for drift (absent in older files). */
+  readonly trainingDistributions?: TrainingDistributions;
   /** Optional evidence for the choice of k (keys sorted), as the caller gives it. */
   readonly evidence?: { [key: string]: JsonValue };
 }

@@ -14,6 +14,7 @@ import {
 } from './definition-types';
 import { kinsortVersion } from './definition-version';
 import { checkName, checkStoredPreparation, onlyKeys } from './definition-validate-preparation';
+import { checkTrainingDistributions } from './definition-validate-distributions';
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');
@@ -42,7 +43,7 @@ function need(obj: Record<string, unknown>, key: string, type: 'string' | 'numbe
   return v;
 }
 
-const TOP_KEYS = ['kind', 'formatVersion', 'writtenBy', 'note', 'method', 'rule', 'metric', 'preparation', 'features', 'segments', 'training', 'evidence'];
+const TOP_KEYS = ['kind', 'formatVersion', 'writtenBy', 'note', 'method', 'rule', 'metric', 'preparation', 'features', 'segments', 'training', 'trainingDistributions', 'evidence'];
 const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
 const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels'];
 
@@ -187,6 +188,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   if (labels === 'rule' && reproducedRows !== rows) fail(at, `key "labels" is "rule" (relabelled by the rule), so every training row is reproduced; "reproducedRows" is ${reproducedRows} of ${rows}.`);
   const evidence = need(d, 'evidence', 'object', where, true);
   if (evidence !== undefined) noPrototypeKeys(evidence, `${where}: evidence`);
+  const distributions = d.trainingDistributions === undefined ? undefined : checkTrainingDistributions(d.trainingDistributions, dims, `${where}: trainingDistributions`);
   return {
     kind: DEFINITION_KIND,
     formatVersion: version,
@@ -199,6 +201,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     features: features as string[],
     segments,
     training: { rows, fingerprint, reproducedRows, labels },
+    trainingDistributions: distributions,
     evidence: evidence === undefined ? undefined : (sortedKeys(evidence) as { [key: string]: JsonValue }),
   };
 }

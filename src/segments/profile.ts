@@ -44,6 +44,33 @@ export interface VariableDifference {
   readonly overallSd: number;
   /** (segmentMean − overallMean) / overallSd. */
   readonly difference: number;
+  /** How to print the two means in the column's own units (see `shownAs`). */
+  readonly shownAs: ShownAs;
+}
+
+/**
+ * How a compared value reads in its own units: 'percent' for a level's share and for a numeric
+ * column whose values all lie in 0..1 (a share, or a 0/1 flag); 'number' otherwise.
+ * `decimals` keeps two significant digits of the spread (in the printed unit), so segment and
+ * all-rows values of one column are rounded alike and no closer than the spread justifies.
+ */
+export interface ShownAs {
+  readonly unit: 'percent' | 'number';
+  readonly decimals: number;
+}
+
+/** Decimals that keep two significant digits of `spread` (0..4). */
+export function decimalsFor(spread: number): number {
+  if (!(spread > 0) || !Number.isFinite(spread)) return 0;
+  return Math.min(4, Math.max(0, 1 - Math.floor(Math.log10(spread))));
+}
+
+/** A compared mean in its own units: "11.1", "62 %". */
+export function formatShown(value: number, shown: ShownAs): string {
+  if (!Number.isFinite(value)) return '—';
+  const v = shown.unit === 'percent' ? value * 100 : value;
+  const text = v.toLocaleString('en-US', { minimumFractionDigits: shown.decimals, maximumFractionDigits: shown.decimals });
+  return shown.unit === 'percent' ? `${text}\u00a0%` : text; // no break inside "62 %"
 }
 
 export type KeptSummary =
@@ -56,6 +83,8 @@ export interface TypicalMember {
   readonly id?: string;
   /** 'given': the method's medoid; 'exact': least total distance to the other members; 'nearest-centroid' for large segments. */
   readonly how: 'given' | 'exact' | 'nearest-centroid';
+  /** Its raw values on the compared (used) columns, when those were given. */
+  readonly values?: Readonly<Record<string, ProfileValue>>;
 }
 
 export interface SegmentProfile {
@@ -138,7 +167,12 @@ export function profileSegments(input: ProfileInput): SegmentProfile[] {
       text: named?.text,
       differences,
       standout: differences.slice(0, top),
-      typical: { row, id: input.ids?.[row], how },
+      typical: {
+        row,
+        id: input.ids?.[row],
+        how,
+        values: input.used ? Object.fromEntries(Object.entries(input.used).map(([name, v]) => [name, v[row]])) : undefined,
+      },
       kept: Object.entries(input.keep ?? {}).map(([name, values]) => summariseKept(name, values, labels, s)),
       stability: input.stability
         ? { jaccard: input.stability.jaccard[s], reading: input.stability.reading[s] }
@@ -177,6 +211,8 @@ function checkMedoids(medoids: readonly number[], labels: Int32Array, k: number)
 interface Indicator {
   variable: string;
   level?: string;
+  /** A level, or a numeric column whose values all lie in 0..1 (a share or a 0/1 flag): printed as a percentage. */
+  share: boolean;
   /** NaN where missing. */
   values: Float64Array;
 }
@@ -192,15 +228,20 @@ function toIndicators(columns: ProfileColumns, n: number): Indicator[] {
     const numeric = raw.every((v) => isMissing(v) || typeof v === 'number');
     if (numeric) {
       const values = new Float64Array(n);
-      for (let i = 0; i < n; i++) values[i] = isMissing(raw[i]) ? NaN : (raw[i] as number);
-      out.push({ variable, values });
+      let unit = true;
+      for (let i = 0; i < n; i++) {
+        const v = isMissing(raw[i]) ? NaN : (raw[i] as number);
+        values[i] = v;
+        if (v < 0 || v > 1) unit = false;
+      }
+      out.push({ variable, values, share: unit });
       continue;
     }
     const levels = Array.from(new Set(raw.filter((v) => !isMissing(v)).map(String))).sort();
     for (const level of levels.length === 2 ? levels.slice(1) : levels) {
       const values = new Float64Array(n);
       for (let i = 0; i < n; i++) values[i] = isMissing(raw[i]) ? NaN : String(raw[i]) === level ? 1 : 0;
-      out.push({ variable, level, values });
+      out.push({ variable, level, values, share: true });
     }
   }
   return out;
@@ -242,6 +283,7 @@ function compareColumn(col: Indicator, labels: Int32Array, k: number): (Variable
       overallMean: mean,
       overallSd: sd,
       difference: (segmentMean - mean) / sd,
+      shownAs: { unit: col.share ? 'percent' : 'number', decimals: decimalsFor(col.share ? sd * 100 : sd) },
     });
   }
   return out;

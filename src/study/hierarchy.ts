@@ -77,16 +77,16 @@ export class Hierarchy {
   }
 
   /** The dendrogram, coloured by a cut when `k` or `height` is given, leaves labelled by id. */
-  dendrogram(options: { k?: number; height?: number; orientation?: 'upright' | 'lying'; title?: string } = {}): View {
-    const opts = checkOptions(options, ['k', 'height', 'orientation', 'title'], 'dendrogram');
+  dendrogram(options: { k?: number; height?: number; labelled?: number; branches?: number; branch?: number; title?: string } = {}): View {
+    const opts = checkOptions(options, ['k', 'height', 'labelled', 'branches', 'branch', 'title'], 'dendrogram');
     const t = this.tree;
     const drawn = { kind: t.kind, size: t.size, method: t.method, merges: t.merges, order: t.order, labels: this.data.ids, cut: (c: CutSpec) => t.cut(c) };
     return dendrogramView(drawn, opts);
   }
 
   /** The dissimilarity matrix as a heatmap, rows in dendrogram order. */
-  heatmap(options: { title?: string } = {}): View {
-    const opts = checkOptions(options, ['title'], 'heatmap');
+  heatmap(options: { k?: number; title?: string } = {}): View {
+    const opts = checkOptions(options, ['k', 'title'], 'heatmap');
     const n = this.data.ids.length;
     if (n > HEATMAP_MAX_ROWS) {
       throw new KinsortError(
@@ -95,7 +95,8 @@ export class Hierarchy {
       );
     }
     const d = this.dissimilarity ?? dissimilarity(this.data.matrix, { metric: (this.options.metric as 'euclidean') ?? 'euclidean' });
-    return heatmapView(d, { order: this.tree.order, labels: this.data.ids, title: opts.title });
+    const assignment = opts.k === undefined ? undefined : this.tree.cut({ k: opts.k });
+    return heatmapView(d, { order: this.tree.order, labels: this.data.ids, assignment, title: opts.title });
   }
 }
 

@@ -375,7 +375,7 @@ export class Segmentation {
       report: this.data.report,
     };
     const markdown = (): string => writeUpMarkdown(profiles, context);
-    const html = (): string => writeUpPage(profiles, context, this.cards());
+    const html = (): string => writeUpPage(profiles, context, profileCardsView(profiles, { caution: false }));
     return {
       markdown,
       html,

@@ -24,15 +24,34 @@ export function refuse(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-input');
 }
 
-/** A row of swatches with numbers printed on them, for SVG views. */
+const legendLabel = (s: number, names?: readonly (string | undefined)[]): string => (names?.[s] ? `${names[s]}` : `segment ${s + 1}`);
+const legendWidth = (label: string): number => 44 + Math.min(label.length, 28) * 6.6;
+
+/** How many lines svgLegend takes for k entries in maxWidth (each line 20 px): leave that room. */
+export function svgLegendLines(k: number, names?: readonly (string | undefined)[], maxWidth = 900): number {
+  let lines = 1;
+  let used = 0;
+  for (let s = 0; s < k; s++) {
+    const w = legendWidth(legendLabel(s, names));
+    if (used > 0 && used + w > maxWidth) {
+      lines++;
+      used = 0;
+    }
+    used += w;
+  }
+  return lines;
+}
+
+/** Swatches with numbers printed on them, for SVG views; wraps onto further lines 20 px apart
+ *  (svgLegendLines says how many, so the picture can make room for every entry). */
 export function svgLegend(k: number, x: number, y: number, names?: readonly (string | undefined)[], maxWidth = 900): string[] {
   const out: string[] = [];
   let cx = x;
   let cy = y;
   for (let s = 0; s < k; s++) {
-    const label = names?.[s] ? `${names[s]}` : `segment ${s + 1}`;
-    const w = 44 + Math.min(label.length, 28) * 6.6;
-    if (cx + w > x + maxWidth) {
+    const label = legendLabel(s, names);
+    const w = legendWidth(label);
+    if (cx > x && cx + w > x + maxWidth) {
       cx = x;
       cy += 20;
     }

@@ -1,11 +1,15 @@
-// Dendrogram: branches coloured by the cut, the cut drawn as a line, leaf labels from ids, heights
-// on an axis. Few leaves: upright. Many leaves: lying down, with labels thinned to what fits.
+// Dendrogram, lying down: the root on the left, leaves down the right edge, each label printed
+// right beside its own leaf, one line per leaf, so names never overlap and never sit far from what
+// they name. Segments of a cut are shown as tinted bands behind their leaves with a numbered tab;
+// the branches stay in ink (no colour code per branch). Past `labelled` leaves, the top of the
+// tree is drawn down to `branches` branches, each marked with its member count and segment;
+// `branch: j` draws branch j of that picture on its own (and so on down). Plain SVG: it reads the
+// same with scripts off, and hovering a branch names its size.
 import { compactLabels } from '../core/assignment';
-import { checkChoice } from '../core/errors';
 import { checkInteger, checkNumber, checkOptions } from '../core/options';
-import { axisStyle, baseLayout, everyNth, kindOf, plotText, refuse, svgLegend } from './common';
+import { kindOf, refuse, shortName, svgLegend } from './common';
 import { INK, segmentColour, textOn } from './palette';
-import { frame, pathData, svgDocument, svgEl } from './svg';
+import { linearScale, niceTicks, formatTick, pathData, svgDocument, svgEl } from './svg';
 import { makeView, View } from './view';
 
 export interface DendrogramTree {
@@ -19,22 +23,37 @@ export interface DendrogramTree {
 }
 
 export interface DendrogramOptions {
-  /** Colour branches by a cut into k segments. */
+  /** Mark a cut into k segments. */
   k?: number;
-  /** Colour branches by a cut at this height. */
+  /** Mark a cut at this height. */
   height?: number;
   /** Leaf labels (default: the tree's labels, else row numbers). */
   labels?: readonly string[];
-  /** 'upright' (leaves along the bottom) or 'lying' (leaves down the side); default by size. */
-  orientation?: 'upright' | 'lying';
+  /** Most leaves drawn one by one, each labelled (default 80). */
+  labelled?: number;
+  /** Past `labelled` leaves, how many branches the top of the tree is drawn down to (default 24). */
+  branches?: number;
+  /** Draw only this branch (1-based, as numbered in the picture of the top of the tree). */
+  branch?: number;
   title?: string;
 }
 
-const NEUTRAL = '#9aa3ad';
+const LINK = '#4b5563';
+const ROW = 15;
+
+/** A place on the leaf axis: a real leaf, or a whole branch drawn as one row. */
+interface Tip {
+  node: number;
+  size: number;
+  /** Segment of every row under it, or -1 when it spans several (or there is no cut). */
+  segment: number;
+  /** Branch number (1-based) when it stands for a branch. */
+  branch?: number;
+}
 
 export function dendrogramView(tree: DendrogramTree, options: DendrogramOptions = {}): View {
   const where = 'dendrogramView';
-  const opts = checkOptions(options, ['k', 'height', 'labels', 'orientation', 'title'], where);
+  const opts = checkOptions(options, ['k', 'height', 'labels', 'labelled', 'branches', 'branch', 'title'], where);
   if (!tree || (tree as { kind?: string }).kind !== 'tree' || !Array.isArray(tree.merges)) {
     refuse(
       where,
@@ -46,7 +65,8 @@ export function dendrogramView(tree: DendrogramTree, options: DendrogramOptions 
   const n = tree.size;
   if (opts.k !== undefined && opts.height !== undefined) refuse(where, 'give either k or height for the cut, not both.');
   if (opts.labels !== undefined && opts.labels.length !== n) refuse(where, `${opts.labels.length} labels for ${n} leaves.`);
-  const orientation = opts.orientation === undefined ? (n <= 60 ? 'upright' : 'lying') : checkChoice(opts.orientation, ['upright', 'lying'], 'orientation');
+  const labelled = opts.labelled === undefined ? 80 : checkInteger(opts.labelled, 'dendrogramView labelled', 2);
+  const branches = opts.branches === undefined ? 24 : checkInteger(opts.branches, 'dendrogramView branches', 2);
   let assignment: Int32Array | undefined;
   let cutHeight: number | undefined;
   const heights = tree.merges.map((m) => m.height);
@@ -61,205 +81,170 @@ export function dendrogramView(tree: DendrogramTree, options: DendrogramOptions 
   }
   const k = assignment ? compactLabels(assignment, n, where).k : 0;
   const labels = (opts.labels ?? tree.labels ?? Array.from({ length: n }, (_, i) => `row ${i + 1}`)).map(String);
-
-  // Geometry in (u = leaf position, v = height); each node's segment, or -1 when mixed.
-  const pos = new Float64Array(2 * n - 1);
-  const top = new Float64Array(2 * n - 1);
-  const seg = new Int32Array(2 * n - 1);
-  tree.order.forEach((leaf, i) => (pos[leaf] = i));
+  const nodes = 2 * n - 1;
+  const child = (node: number) => tree.merges[node - n];
+  const seg = new Int32Array(nodes).fill(-1);
+  const size = new Int32Array(nodes).fill(1);
   for (let i = 0; i < n; i++) seg[i] = assignment ? assignment[i] : -1;
-  const links: { points: [number, number][]; segment: number; merge: number }[] = [];
   tree.merges.forEach((m, i) => {
-    const node = n + i;
-    pos[node] = (pos[m.left] + pos[m.right]) / 2;
-    top[node] = m.height;
-    seg[node] = assignment && seg[m.left] === seg[m.right] ? seg[m.left] : -1;
-    links.push({
-      points: [
-        [pos[m.left], top[m.left]],
-        [pos[m.left], m.height],
-        [pos[m.right], m.height],
-        [pos[m.right], top[m.right]],
-      ],
-      segment: seg[node],
-      merge: i,
-    });
+    seg[n + i] = seg[m.left] >= 0 && seg[m.left] === seg[m.right] ? seg[m.left] : -1;
+    size[n + i] = m.size;
   });
-  const maxHeight = Math.max(...heights, 0) || 1;
-  // Where each segment's trunk crosses the cut: a numbered badge goes there.
-  const badges: { segment: number; u: number; v: number }[] = [];
-  if (assignment && cutHeight !== undefined) {
-    const root = new Int32Array(k).fill(-1);
-    for (let node = 0; node < 2 * n - 1; node++) if (seg[node] >= 0) root[seg[node]] = node;
-    root.forEach((node, s) => badges.push({ segment: s, u: pos[node], v: cutHeight! }));
+  const heightOf = (node: number) => (node < n ? 0 : heights[node - n]);
+
+  // The top of the tree down to `branches` branches (whole tree, or the branch asked for).
+  const top = (root: number): { tips: Tip[]; inner: Set<number> } => {
+    const inner = new Set<number>();
+    if (size[root] > labelled) {
+      // Undo the highest joins under root until `branches` groups are left.
+      const open = [root];
+      while (open.length < branches) {
+        let best = -1;
+        for (let i = 0; i < open.length; i++) if (open[i] >= n && (best < 0 || open[i] > open[best])) best = i;
+        if (best < 0) break;
+        const node = open.splice(best, 1)[0];
+        inner.add(node);
+        open.push(child(node).left, child(node).right);
+      }
+    }
+    const tips: Tip[] = [];
+    const walk = (node: number) => {
+      if (node >= n && (inner.has(node) || size[root] <= labelled)) {
+        walk(child(node).left);
+        walk(child(node).right);
+      } else tips.push({ node, size: size[node], segment: seg[node] });
+    };
+    walk(root);
+    if (size[root] > labelled) tips.forEach((t, i) => (t.branch = i + 1));
+    return { tips, inner };
+  };
+
+  let root = nodes - 1;
+  let scope = '';
+  if (opts.branch !== undefined) {
+    const whole = top(nodes - 1);
+    if (whole.tips.length === 0 || whole.tips[0].branch === undefined) {
+      refuse(where, `branch: the whole tree (${n} leaves) is drawn leaf by leaf; branches are numbered only past ${labelled} leaves.`);
+    }
+    const j = checkInteger(opts.branch, 'dendrogramView branch', 1, whole.tips.length);
+    root = whole.tips[j - 1].node;
+    scope = `branch ${j} of ${whole.tips.length} (${size[root]} row${size[root] === 1 ? '' : 's'})`;
   }
-  const title = opts.title ?? `Dendrogram${tree.method ? ` (${tree.method} linkage)` : ''}${k ? `, cut into ${k} segments` : ''}`;
+  const { tips } = top(root);
+  const collapsed = tips.some((t) => t.branch !== undefined);
+
+  const title =
+    opts.title ??
+    `Dendrogram${tree.method ? ` (${tree.method} linkage)` : ''}${k ? `, cut into ${k} segments` : ''}${scope ? `: ${scope}` : ''}`;
   const caption =
-    'Rows join where their branches meet: the higher the join, the less alike the groups it joins' +
-    (k ? '; branches below the dashed cut line take the colour and number of their segment.' : '.');
-
-  // Label thinning: at most one label per ~11 px of leaf axis.
-  const leafAxisPx = orientation === 'upright' ? 860 : Math.min(2400, Math.max(360, n * 12));
-  const every = Math.max(1, Math.ceil((n * 11) / leafAxisPx));
-  const shown = tree.order.map((leaf, i) => (i % every === 0 ? labels[leaf] : ''));
-  const note = every > 1 ? [`${n} leaves: ${everyNth(every)} label is printed; hover (with scripts on) names every leaf.`] : [];
-
-  const still = staticDendrogram(links, shown, orientation, maxHeight, cutHeight, k, title, leafAxisPx, badges);
-  const plot = plotDendrogram(links, tree.order.map((l) => labels[l]), shown, orientation, maxHeight, cutHeight, k, leafAxisPx, badges);
-  return makeView({ kind: 'dendrogram', title, caption, still, plot, notes: note });
+    'Rows join where their branches meet: the further left the join, the less alike the groups it joins. ' +
+    (k ? 'Tinted bands with numbered tabs are the segments of the cut (the vertical line). ' : '') +
+    (collapsed ? `The top of the tree is drawn down to ${tips.length} branches, each with its number of rows.` : 'Each leaf is labelled beside it.');
+  const notes = collapsed
+    ? [`${size[root]} rows are too many to label one by one (more than ${labelled}): draw one branch with dendrogram({ branch: j${k ? `, k: ${k}` : ''} }), or give labelled: a larger number.`]
+    : [];
+  const still = draw(tips, root, child, heightOf, labels, cutHeight, k, title, size);
+  return makeView({ kind: 'dendrogram', title, caption, still, notes });
 }
 
-type Link = { points: [number, number][]; segment: number; merge: number };
-type Badge = { segment: number; u: number; v: number };
-
-function staticDendrogram(
-  links: Link[],
-  shown: string[],
-  orientation: 'upright' | 'lying',
-  maxHeight: number,
+function draw(
+  tips: Tip[],
+  root: number,
+  child: (node: number) => { left: number; right: number; height: number },
+  heightOf: (node: number) => number,
+  labels: string[],
   cutHeight: number | undefined,
   k: number,
   title: string,
-  leafAxisPx: number,
-  badges: Badge[],
+  size: Int32Array,
 ): string {
-  const n = shown.length;
-  const longest = Math.min(24, Math.max(...shown.map((s) => s.length), 3));
-  const labelRoom = 12 + longest * 6.2;
-  const upright = orientation === 'upright';
-  const width = upright ? 940 : 900;
-  const height = upright ? 380 + labelRoom : leafAxisPx + 90;
-  const legendRoom = k ? 30 : 0;
-  const leafTitle = `${n} rows, in the order the tree joins them`;
-  const f = frame({
-    width,
-    height: height - legendRoom,
-    margin: upright ? { left: 64, right: 16, top: 14, bottom: labelRoom + 34 } : { left: labelRoom + 10, right: 24, top: 14, bottom: 48 },
-    x: upright
-      ? { domain: [-0.5, n - 0.5], title: leafTitle, ticks: [], tickLabels: [] }
-      : { domain: [maxHeight * 1.04, 0], title: 'height (dissimilarity at which groups join)' },
-    y: upright
-      ? { domain: [0, maxHeight * 1.04], title: 'height (dissimilarity at which groups join)' }
-      : { domain: [-0.5, n - 0.5], title: leafTitle, ticks: [], tickLabels: [], reversed: true },
-  });
-  const place = ([u, v]: [number, number]): [number, number] => (upright ? [f.x(u), f.y(v)] : [f.x(v), f.y(u)]);
-  const body = [...f.under];
-  for (const l of links) {
-    body.push(svgEl.path(pathData(l.points.map(place)), { fill: 'none', stroke: l.segment >= 0 ? segmentColour(l.segment) : NEUTRAL, 'stroke-width': 1.6 }));
+  const tipText = (t: Tip): string =>
+    t.branch === undefined
+      ? labels[t.node]
+      : `branch ${t.branch} · ${t.size === 1 ? labels[t.node] : `${t.size.toLocaleString('en-US')} rows`}${t.segment >= 0 ? ` · segment ${t.segment + 1}` : ''}`;
+  const texts = tips.map((t) => shortName(tipText(t), 40));
+  const longest = Math.max(8, ...texts.map((s) => s.length));
+  const width = 760;
+  const labelRoom = Math.min(300, 14 + longest * 6.4);
+  const bandTab = k ? 26 : 0;
+  const left = 44;
+  const right = width - labelRoom - bandTab;
+  const topY = 34;
+  const bottom = topY + tips.length * ROW;
+  const legendRoom = k ? 34 : 0;
+  const height = bottom + 48 + legendRoom;
+  const maxHeight = heightOf(root) || 1;
+  const x = linearScale([maxHeight * 1.03, 0], [left, right]);
+  const y = (i: number) => topY + (i + 0.5) * ROW;
+  const body: string[] = [svgEl.rect({ x: left, y: topY, width: right - left, height: bottom - topY, fill: INK.panel })];
+  for (const t of niceTicks(0, maxHeight * 1.03, 6)) {
+    body.push(svgEl.line({ x1: x(t), x2: x(t), y1: topY, y2: bottom, stroke: INK.grid }));
+    body.push(svgEl.text(formatTick(t), { x: x(t), y: bottom + 15, 'text-anchor': 'middle', 'font-size': 11, fill: INK.muted }));
   }
-  shown.forEach((label, i) => {
-    if (!label) return;
-    const text = label.length > 24 ? label.slice(0, 23) + '…' : label;
-    if (upright) {
-      const x = f.x(i);
-      body.push(svgEl.text(text, { x, y: f.bottom + 8, 'font-size': 10.5, fill: INK.text, 'text-anchor': 'end', transform: `rotate(-60 ${x.toFixed(1)} ${(f.bottom + 8).toFixed(1)})` }));
-    } else {
-      body.push(svgEl.text(text, { x: f.left - 6, y: f.y(i) + 3.5, 'font-size': 10.5, fill: INK.text, 'text-anchor': 'end' }));
-    }
-  });
-  if (cutHeight !== undefined) {
-    const a = place([-0.5, cutHeight]);
-    const b = place([n - 0.5, cutHeight]);
-    body.push(svgEl.line({ x1: a[0], y1: a[1], x2: b[0], y2: b[1], stroke: INK.accent, 'stroke-width': 1.4, 'stroke-dasharray': '6 4' }));
-  }
-  for (const b of badges) {
-    const [px, py] = place([b.u, b.v]);
-    const colour = segmentColour(b.segment);
-    body.push(svgEl.rect({ x: px - 10, y: py - 9, width: 20, height: 18, rx: 4, fill: colour, stroke: '#ffffff', 'stroke-width': 1.5 }));
-    body.push(svgEl.text(String(b.segment + 1), { x: px, y: py + 4, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: textOn(colour) }));
-  }
-  if (k) body.push(...svgLegend(k, 64, height - 12));
-  return svgDocument(width, height, title, body);
-}
+  body.push(svgEl.text('height (dissimilarity at which groups join)', { x: (left + right) / 2, y: bottom + 34, 'text-anchor': 'middle', 'font-size': 12, fill: INK.text }));
 
-function plotDendrogram(
-  links: Link[],
-  leafNames: string[],
-  shown: string[],
-  orientation: 'upright' | 'lying',
-  maxHeight: number,
-  cutHeight: number | undefined,
-  k: number,
-  leafAxisPx: number,
-  badges: Badge[],
-): { data: object[]; layout: object } {
-  const upright = orientation === 'upright';
-  const groups = new Map<number, { u: (number | null)[]; v: (number | null)[] }>();
-  for (const l of links) {
-    const g = groups.get(l.segment) ?? { u: [], v: [] };
-    for (const [u, v] of l.points) {
-      g.u.push(u);
-      g.v.push(v);
+  // Segment bands: one per run of consecutive tips in one segment, behind the leaves and labels.
+  if (k) {
+    let start = 0;
+    for (let i = 1; i <= tips.length; i++) {
+      if (i < tips.length && tips[i].segment === tips[start].segment) continue;
+      const s = tips[start].segment;
+      if (s >= 0) {
+        const colour = segmentColour(s);
+        const y0 = topY + start * ROW;
+        const h = (i - start) * ROW;
+        const bx = cutHeight === undefined ? right - 30 : Math.max(left, x(cutHeight));
+        body.push(svgEl.rect({ x: bx, y: y0 + 1, width: width - bx, height: h - 2, fill: colour, 'fill-opacity': 0.13 }));
+        body.push(svgEl.rect({ x: right + 2, y: y0 + 1, width: 20, height: h - 2, rx: 3, fill: colour }));
+        body.push(svgEl.text(String(s + 1), { x: right + 12, y: y0 + h / 2 + 4, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: textOn(colour) }));
+      }
+      start = i;
     }
-    g.u.push(null);
-    g.v.push(null);
-    groups.set(l.segment, g);
   }
-  // A one-row segment has no branch of its own (its leaf hangs from a join across segments), but
-  // its badge is coloured, so the legend must still list it: an empty trace keeps its entry.
-  for (let s = 0; s < k; s++) if (!groups.has(s)) groups.set(s, { u: [null], v: [null] });
-  const data: object[] = [];
-  for (const [s, g] of [...groups].sort((a, b) => a[0] - b[0])) {
-    data.push({
-      type: 'scatter',
-      mode: 'lines',
-      x: upright ? g.u : g.v,
-      y: upright ? g.v : g.u,
-      line: { color: s >= 0 ? segmentColour(s) : NEUTRAL, width: 1.6 },
-      name: s >= 0 ? `${s + 1}` : 'joins across segments',
-      hoverinfo: 'skip',
-      showlegend: s >= 0,
-    });
+
+  // Positions: tips in order; each join at the mean of its two children.
+  const pos = new Map<number, number>();
+  tips.forEach((t, i) => pos.set(t.node, i));
+  const drawn = (node: number): number => {
+    if (pos.has(node)) return pos.get(node)!;
+    const m = child(node);
+    const p = (drawn(m.left) + drawn(m.right)) / 2;
+    // A leaf starts at height 0, a join or a whole branch at its own height.
+    const place = (c: number): [number, number] => [x(heightOf(c)), y(pos.get(c)!)];
+    const a = place(m.left);
+    const b = place(m.right);
+    body.push(
+      svgEl.group(
+        [svgEl.path(pathData([a, [x(m.height), a[1]], [x(m.height), b[1]], b]), { fill: 'none', stroke: LINK, 'stroke-width': 1.3 })],
+        {},
+        `${size[node].toLocaleString('en-US')} rows join at height ${formatTick(m.height)}`,
+      ),
+    );
+    pos.set(node, p);
+    return p;
+  };
+  drawn(root);
+  // A branch drawn as one row: a wedge from its own join down to height 0, its size written beside.
+  tips.forEach((t, i) => {
+    if (t.branch === undefined) return;
+    const h = heightOf(t.node);
+    const half = Math.min(ROW / 2 - 2, 2 + Math.log10(t.size + 1) * 1.6);
+    body.push(
+      svgEl.group(
+        [svgEl.path(pathData([[x(h), y(i)], [x(0), y(i) - half], [x(0), y(i) + half]], true), { fill: LINK, 'fill-opacity': 0.55 })],
+        {},
+        `branch ${t.branch}: ${t.size} rows`,
+      ),
+    );
+  });
+  // Labels right beside their leaves.
+  tips.forEach((t, i) => {
+    body.push(svgEl.group([svgEl.text(texts[i], { x: right + bandTab + 6, y: y(i) + 4, 'font-size': 11, fill: INK.text })], {}, tipText(t)));
+  });
+  if (cutHeight !== undefined && cutHeight <= maxHeight * 1.03) {
+    body.push(svgEl.line({ x1: x(cutHeight), x2: x(cutHeight), y1: topY - 8, y2: bottom, stroke: INK.accent, 'stroke-width': 1.4 }));
+    body.push(svgEl.text(`cut: ${k} segments`, { x: x(cutHeight), y: topY - 12, 'text-anchor': 'middle', 'font-size': 11, fill: INK.accent }));
   }
-  // Invisible points on the leaves carry the hover text (every leaf named, even thinned ones).
-  const idx = leafNames.map((_, i) => i);
-  const leafOrder = leafNames.map(plotText);
-  data.push({
-    type: 'scatter',
-    mode: 'markers',
-    x: upright ? idx : idx.map(() => 0),
-    y: upright ? idx.map(() => 0) : idx,
-    marker: { size: 6, color: 'rgba(0,0,0,0)' },
-    text: leafOrder,
-    hovertemplate: '%{text}<extra></extra>',
-    showlegend: false,
-  });
-  const leafAxis = axisStyle('', {
-    tickmode: 'array',
-    tickvals: idx.filter((i) => shown[i] !== ''),
-    ticktext: shown.filter((s) => s !== '').map((s) => plotText(s.length > 24 ? s.slice(0, 23) + '…' : s)),
-    showgrid: false,
-    zeroline: false,
-    range: [-0.5, leafNames.length - 0.5],
-    tickfont: { size: 10.5, color: INK.text },
-  });
-  const heightAxis = axisStyle('height (dissimilarity at which groups join)', { range: upright ? [0, maxHeight * 1.04] : [maxHeight * 1.04, 0], zeroline: false });
-  const shapes =
-    cutHeight === undefined
-      ? []
-      : [
-          upright
-            ? { type: 'line', xref: 'paper', x0: 0, x1: 1, y0: cutHeight, y1: cutHeight, line: { color: INK.accent, width: 1.4, dash: 'dash' } }
-            : { type: 'line', yref: 'paper', y0: 0, y1: 1, x0: cutHeight, x1: cutHeight, line: { color: INK.accent, width: 1.4, dash: 'dash' } },
-        ];
-  const layout = baseLayout(upright ? 480 : leafAxisPx + 110, {
-    xaxis: upright ? { ...leafAxis, tickangle: -60 } : heightAxis,
-    yaxis: upright ? heightAxis : { ...leafAxis, range: [leafNames.length - 0.5, -0.5] },
-    shapes,
-    annotations: badges.map((b) => ({
-      x: upright ? b.u : b.v,
-      y: upright ? b.v : b.u,
-      text: `<b>${b.segment + 1}</b>`,
-      showarrow: false,
-      bgcolor: segmentColour(b.segment),
-      bordercolor: '#ffffff',
-      borderpad: 3,
-      font: { color: textOn(segmentColour(b.segment)), size: 11 },
-    })),
-    showlegend: k > 0,
-    legend: { orientation: 'h', y: 1, yanchor: 'bottom', x: 1, xanchor: 'right', title: { text: 'segment' } },
-    margin: { l: 64, r: 24, t: 40, b: 56 },
-    hovermode: 'closest',
-  });
-  return { data, layout };
+  if (k) body.push(...svgLegend(k, left, height - 14, undefined, width - left - 10));
+  return svgDocument(width, height, title, body);
 }

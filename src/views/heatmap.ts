@@ -30,8 +30,12 @@ export const HEATMAP_MAX_ROWS = 1500;
 /** Above this many rows the live chart is left out (its data would weigh megabytes); the image stays. */
 const LIVE_MAX_ROWS = 600;
 
-// Our sequential ramp: dark (alike) to pale (different); lightness rises steadily, so it reads in grey too.
-const RAMP = ['#0f2a3f', '#1a4f6e', '#2f7f8f', '#6aae9a', '#b9d7a8', '#f4f1de'];
+// Our sequential ramp, forest slate through ochre to paper: dark (alike) to pale (different);
+// lightness rises steadily (CIE L* about 22, 37, 53, 67, 82, 96), so it reads in grey too.
+const RAMP = ['#1f3a32', '#3f5f4a', '#7a8257', '#b5a35f', '#ddcc98', '#f8f4e8'];
+
+/** Rows closer than this (px) cannot carry a label each; row labels need at least ROW_PX. */
+const ROW_PX = 12;
 
 function rampColour(t: number): [number, number, number] {
   const x = Math.min(1, Math.max(0, t)) * (RAMP.length - 1);
@@ -94,15 +98,22 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
     }
   }
   const png = encodePng(n, n, rgb).toString('base64');
-  const side = 560;
-  const showLabels = n <= 60;
-  const room = showLabels ? 12 + Math.min(20, Math.max(...labels.map((l) => l.length))) * 6 : 20;
-  const width = side + room + 130;
-  const height = side + room + 32;
+  // Row labels one per row, 12 px apart (cells may be taller than wide); column labels, rotated,
+  // thinned to what fits. The colour key lies under the matrix, 0 (alike) on the left, as in the
+  // live chart.
+  const showLabels = n <= 80;
+  const width = 760;
+  const longest = Math.min(22, Math.max(3, ...labels.map((l) => l.length)));
+  const room = showLabels ? 10 + longest * 5.4 : 12;
+  const stripRoom = runs.length ? 24 : 0;
+  const matrixW = width - room - stripRoom - 12;
+  const matrixH = showLabels ? Math.max(matrixW * 0.75, n * ROW_PX) : matrixW;
+  const colEvery = showLabels ? Math.max(1, Math.ceil((ROW_PX * n) / matrixW)) : 0;
+  const colRoom = showLabels ? 10 + longest * 5.4 : 0;
   const f = frame({
     width,
-    height,
-    margin: { left: room, right: 130, top: runs.length ? 22 : 10, bottom: room + 10 },
+    height: matrixH + (runs.length ? 22 : 10) + colRoom + 10,
+    margin: { left: room, right: stripRoom + 12, top: runs.length ? 22 : 10, bottom: colRoom + 10 },
     x: { domain: [-0.5, n - 0.5], title: '', ticks: [], tickLabels: [] },
     y: { domain: [-0.5, n - 0.5], title: '', ticks: [], tickLabels: [], reversed: true },
   });
@@ -112,10 +123,11 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
   ];
   if (showLabels) {
     order.forEach((row, i) => {
-      const text = labels[row].slice(0, 20);
-      body.push(svgEl.text(text, { x: f.left - 4, y: f.y(i) + 3.5, 'text-anchor': 'end', 'font-size': 10, fill: INK.text }));
-      const x = f.x(i);
-      body.push(svgEl.text(text, { x, y: f.bottom + 6, 'text-anchor': 'end', 'font-size': 10, fill: INK.text, transform: `rotate(-60 ${x.toFixed(1)} ${(f.bottom + 6).toFixed(1)})` }));
+      const text = labels[row].length > 22 ? labels[row].slice(0, 21) + '…' : labels[row];
+      body.push(svgEl.text(text, { x: f.left - 4, y: f.y(i) + 3.2, 'text-anchor': 'end', 'font-size': 9.5, fill: INK.text }));
+      if (i % colEvery !== 0) return;
+      const x = f.x(i) + 3.2;
+      body.push(svgEl.text(text, { x, y: f.bottom + 5, 'text-anchor': 'end', 'font-size': 9.5, fill: INK.text, transform: `rotate(-90 ${x.toFixed(1)} ${(f.bottom + 5).toFixed(1)})` }));
     });
   }
   for (const r of runs) {
@@ -124,19 +136,28 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
     const x0 = f.x(r.from - 0.5);
     const x1 = f.x(r.to + 0.5);
     const colour = segmentColour(r.segment);
-    body.push(svgEl.rect({ x: f.right + 4, y: y0, width: 14, height: y1 - y0, fill: colour }));
+    body.push(svgEl.rect({ x: f.right + 4, y: y0, width: 16, height: y1 - y0, fill: colour }));
     body.push(svgEl.rect({ x: x0, y: f.top - 16, width: x1 - x0, height: 12, fill: colour }));
-    if (y1 - y0 >= 14) body.push(svgEl.text(String(r.segment + 1), { x: f.right + 11, y: (y0 + y1) / 2 + 4, 'text-anchor': 'middle', 'font-size': 10, 'font-weight': 700, fill: textOn(colour) }));
+    if (y1 - y0 >= 14) body.push(svgEl.text(String(r.segment + 1), { x: f.right + 12, y: (y0 + y1) / 2 + 4, 'text-anchor': 'middle', 'font-size': 10, 'font-weight': 700, fill: textOn(colour) }));
   }
-  // Colour key.
-  const kx = f.right + (runs.length ? 44 : 30);
+  // The cut: a white line across the matrix wherever one segment's rows end and the next begin.
+  for (const r of runs.slice(1)) {
+    const px = f.x(r.from - 0.5);
+    const py = f.y(r.from - 0.5);
+    body.push(svgEl.line({ x1: px, x2: px, y1: f.top, y2: f.bottom, stroke: '#ffffff', 'stroke-width': 1.6 }));
+    body.push(svgEl.line({ x1: f.left, x2: f.right, y1: py, y2: py, stroke: '#ffffff', 'stroke-width': 1.6 }));
+  }
+  // Colour key, under everything: 0 (alike) on the left, the largest dissimilarity on the right.
+  const keyY = f.bottom + colRoom + 14;
+  const keyW = Math.min(320, matrixW);
   for (let t = 0; t < 40; t++) {
     const [r, g, b] = rampColour(t / 39);
-    body.push(svgEl.rect({ x: kx, y: f.top + (t * (f.bottom - f.top)) / 40, width: 16, height: (f.bottom - f.top) / 40 + 0.5, fill: `rgb(${r},${g},${b})` }));
+    body.push(svgEl.rect({ x: f.left + (t * keyW) / 40, y: keyY, width: keyW / 40 + 0.5, height: 10, fill: `rgb(${r},${g},${b})` }));
   }
-  body.push(svgEl.text('0 (alike)', { x: kx + 20, y: f.top + 9, 'font-size': 10.5, fill: INK.text }));
-  body.push(svgEl.text(`${Number(max.toPrecision(3))}`, { x: kx + 20, y: f.bottom - 2, 'font-size': 10.5, fill: INK.text }));
-  body.push(svgEl.text('dissimilarity', { x: kx + 36, y: f.top + (f.bottom - f.top) / 2, 'font-size': 11, fill: INK.muted, transform: `rotate(-90 ${kx + 36} ${f.top + (f.bottom - f.top) / 2})`, 'text-anchor': 'middle' }));
+  body.push(svgEl.text('0 alike', { x: f.left, y: keyY + 24, 'font-size': 10.5, fill: INK.text }));
+  body.push(svgEl.text(`${Number(max.toPrecision(3))} different`, { x: f.left + keyW, y: keyY + 24, 'text-anchor': 'end', 'font-size': 10.5, fill: INK.text }));
+  body.push(svgEl.text('dissimilarity', { x: f.left + keyW + 12, y: keyY + 9, 'font-size': 11, fill: INK.muted }));
+  const height = keyY + 34;
   const still = svgDocument(width, height, title, body);
 
   if (n > LIVE_MAX_ROWS) {
@@ -160,17 +181,18 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
       colorscale: RAMP.map((c, i) => [i / (RAMP.length - 1), c]),
       zmin: 0,
       zmax: max,
-      colorbar: { title: { text: 'dissimilarity', side: 'right' }, thickness: 14 },
+      // Lying under the matrix, 0 (alike) on the left: the same way as the still's key.
+      colorbar: { orientation: 'h', x: 0, xanchor: 'left', y: -140 / (Math.max(640, (n <= 80 ? n * ROW_PX : 0) + 300) - 186), yanchor: 'top', len: 0.5, thickness: 12, title: { text: 'dissimilarity (0: alike)', side: 'top' } },
     },
   ];
-  const axis = (extra: object) =>
+  const axis = (every: number, extra: object) =>
     axisStyle('', {
       tickmode: 'array',
-      tickvals: showLabels ? order.map((_, i) => i) : [],
-      ticktext: showLabels ? names : [],
+      tickvals: showLabels ? order.map((_, i) => i).filter((i) => i % every === 0) : [],
+      ticktext: showLabels ? names.filter((_, i) => i % every === 0) : [],
       showgrid: false,
       zeroline: false,
-      tickfont: { size: 10 },
+      tickfont: { size: 9.5 },
       ...extra,
     });
   // Strips in data units just outside the matrix, so they stay beside it when the cells are kept square.
@@ -179,16 +201,23 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
   const reach = runs.length ? gap + band : 0;
   const strips = runs.flatMap((r) => [
     { type: 'rect', x0: n - 0.5 + gap, x1: n - 0.5 + gap + band, y0: r.from - 0.5, y1: r.to + 0.5, fillcolor: segmentColour(r.segment), line: { width: 0 } },
-    { type: 'rect', x0: r.from - 0.5, x1: r.to + 0.5, y0: -0.5 - gap, y1: -0.5 - gap - band, fillcolor: segmentColour(r.segment), line: { width: 0 } },
+    { type: 'rect', x0: r.from - 0.5, x1: r.to + 0.5, y0: -0.5 - gap / 2, y1: -0.5 - gap / 2 - band / 2, fillcolor: segmentColour(r.segment), line: { width: 0 } },
   ]);
   const stripNumbers = runs
     .filter((r) => r.to - r.from + 1 >= n / 40)
     .map((r) => ({ x: n - 0.5 + gap + band / 2, y: (r.from + r.to) / 2, text: `<b>${r.segment + 1}</b>`, showarrow: false, font: { size: 10, color: textOn(segmentColour(r.segment)) } }));
-  const layout = baseLayout(640, {
-    shapes: strips,
+  const cutLines = runs.slice(1).flatMap((r) => [
+    { type: 'line', x0: r.from - 0.5, x1: r.from - 0.5, y0: -0.5, y1: n - 0.5, line: { color: '#ffffff', width: 1.6 } },
+    { type: 'line', y0: r.from - 0.5, y1: r.from - 0.5, x0: -0.5, x1: n - 0.5, line: { color: '#ffffff', width: 1.6 } },
+  ]);
+  // Rows at least ROW_PX apart (cells may be taller than wide); columns thinned to fit 760 px.
+  const liveHeight = Math.max(640, (showLabels ? n * ROW_PX : 0) + 300);
+  const layout = baseLayout(liveHeight, {
+    shapes: [...strips, ...cutLines],
     annotations: stripNumbers,
-    xaxis: axis({ scaleanchor: 'y', constrain: 'domain', range: [-0.5, n - 0.5 + reach] }),
-    yaxis: axis({ range: [n - 0.5, -0.5 - reach], constrain: 'domain' }),
+    xaxis: axis(colEvery || 1, { range: [-0.5, n - 0.5 + reach], tickangle: -90 }),
+    yaxis: axis(1, { range: [n - 0.5, -0.5 - reach / 2] }),
+    margin: { l: 64, r: 24, t: 16, b: 170 },
     plot_bgcolor: '#ffffff',
   });
   return makeView({ kind: 'heatmap', title, caption, still, plot: { data, layout } });

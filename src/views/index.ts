@@ -14,3 +14,4 @@ export { profileCardsView } from './cards';
 export type { CardsOptions } from './cards';
 export { SEGMENT_COLOURS, segmentColour } from './palette';
 export { viewsPage, saveViewsPage } from './page';
+export { driftView } from './drift';

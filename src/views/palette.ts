@@ -23,8 +23,9 @@ export const INK = {
   paper: '#ffffff',
   panel: '#f6f7f9',
   accent: '#b8324a', // marks a recommendation or a cut line
-  above: '#1a6699', // bars above the whole
-  below: '#d9822b', // bars below the whole
+  // Above / below the whole: two neutral inks (dark and light slate), so no bar reads as a segment.
+  above: '#3f4a56',
+  below: '#a9b2bc',
 } as const;
 
 /** Colour of segment `s` (0-based). Past eight segments the colours repeat; numbers tell them apart. */

@@ -3,7 +3,7 @@
 import { compactLabels } from '../core/assignment';
 import { checkOptions } from '../core/options';
 import { Matrix } from '../core/matrix';
-import { axisStyle, baseLayout, everyNth, kindOf, namesFrom, plotText, refuse, svgLegend } from './common';
+import { axisStyle, baseLayout, everyNth, kindOf, namesFrom, plotText, refuse, svgLegend, svgLegendLines } from './common';
 import { INK, segmentColour, textOn } from './palette';
 import { extent, frame, pathData, svgDocument, svgEl } from './svg';
 import { makeView, View } from './view';
@@ -123,44 +123,81 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
     'the large numbered discs mark segment centres. Segments that overlap here may still be apart in the components not shown.' +
     (opts.loadings ? ' Arrows point the way each variable grows.' : '');
 
-  // Static stand-in.
+  // Static stand-in, equal units on both axes (a biplot): the plot area takes the data's aspect,
+  // within limits; past them the shorter axis is widened instead.
   // Labelled arrow tips reach a little further so their labels stay inside the frame.
-  const xs = extent([...x, ...cx, ...arrows.map((a) => (a.labelled ? a.ax * 1.35 : a.ax))]);
-  const ys = extent([...y, ...cy, ...arrows.map((a) => a.ay)]);
-  const width = 900;
-  const height = 560;
-  const f = frame({ width, height: height - 30, x: { domain: xs, title: xTitle }, y: { domain: ys, title: yTitle } });
+  let xs = extent([...x, ...cx, ...arrows.map((a) => (a.labelled ? a.ax * 1.35 : a.ax))]);
+  let ys = extent([...y, ...cy, ...arrows.map((a) => a.ay * 1.1)]);
+  const width = 760;
+  const margin = { left: 64, right: 20, top: 16, bottom: 52 };
+  const plotW = width - margin.left - margin.right;
+  const [minH, maxH] = [300, 620];
+  let plotH = (plotW * (ys[1] - ys[0])) / (xs[1] - xs[0]);
+  if (plotH < minH) {
+    plotH = minH;
+    const half = ((xs[1] - xs[0]) * (minH / plotW)) / 2;
+    const mid = (ys[0] + ys[1]) / 2;
+    ys = [mid - half, mid + half];
+  } else if (plotH > maxH) {
+    plotH = maxH;
+    const half = ((ys[1] - ys[0]) * (plotW / maxH)) / 2;
+    const mid = (xs[0] + xs[1]) / 2;
+    xs = [mid - half, mid + half];
+  }
+  const legendLines = svgLegendLines(k, names, width - 80);
+  const frameH = plotH + margin.top + margin.bottom;
+  const height = frameH + 10 + legendLines * 20;
+  const f = frame({ width, height: frameH, margin, x: { domain: xs, title: xTitle }, y: { domain: ys, title: yTitle } });
   const body = [...f.under];
   const stride = Math.max(1, Math.ceil(n / MAX_STATIC_POINTS));
   for (let i = 0; i < n; i += stride) {
-    body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: n > 1500 ? 2.2 : 3.4, fill: segmentColour(labels[i]), 'fill-opacity': 0.72 }));
+    body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: n > 1500 ? 2 : 3.2, fill: segmentColour(labels[i]), 'fill-opacity': 0.72 }));
   }
+  // Arrow labels go where they cover no centre disc: first beside the tip, else the other side
+  // or above / below it; the discs are drawn last, so no label can hide one.
+  const discs = Array.from({ length: k }, (_, s) => [f.x(cx[s]), f.y(cy[s])] as const);
+  const taken: { x0: number; x1: number; y0: number; y1: number }[] = [];
+  const clashes = (b: { x0: number; x1: number; y0: number; y1: number }) =>
+    discs.some(([px, py]) => px + 13 > b.x0 && px - 13 < b.x1 && py + 13 > b.y0 && py - 13 < b.y1) ||
+    taken.some((t) => t.x1 > b.x0 && t.x0 < b.x1 && t.y1 > b.y0 && t.y0 < b.y1);
   const arrowLabels: string[] = [];
+  const livePlace = new Map<string, { x: number; y: number; anchor: 'left' | 'right' }>();
   for (const a of arrows) {
     body.push(svgEl.line({ x1: f.x(0), y1: f.y(0), x2: f.x(a.ax), y2: f.y(a.ay), stroke: INK.text, 'stroke-width': 1.3 }));
     body.push(svgEl.circle({ cx: f.x(a.ax), cy: f.y(a.ay), r: 2.5, fill: INK.text }));
     if (!a.labelled) continue;
+    const tx = f.x(a.ax);
+    const ty = f.y(a.ay);
+    const w = a.name.length * 6.3 + 4;
+    const right = a.ax >= 0;
+    const tries: [number, number, 'start' | 'end'][] = [
+      [right ? tx + 4 : tx - 4, a.ay >= 0 ? ty - 4 : ty + 12, right ? 'start' : 'end'],
+      [right ? tx + 4 : tx - 4, a.ay >= 0 ? ty + 12 : ty - 4, right ? 'start' : 'end'],
+      [right ? tx - 4 : tx + 4, a.ay >= 0 ? ty - 4 : ty + 12, right ? 'end' : 'start'],
+      [tx, ty - 26, right ? 'start' : 'end'],
+      [tx, ty + 28, right ? 'start' : 'end'],
+    ];
+    const box = ([lx, ly, anchor]: [number, number, 'start' | 'end']) => ({ x0: anchor === 'start' ? lx : lx - w, x1: anchor === 'start' ? lx + w : lx, y0: ly - 11, y1: ly + 3 });
+    const pick = tries.find((t) => !clashes(box(t))) ?? tries[0];
+    taken.push(box(pick));
+    // The live chart puts the label at the same place, in data units (both charts keep equal units).
+    const b = box(pick);
+    livePlace.set(a.name, {
+      x: xs[0] + ((pick[2] === 'start' ? b.x0 : b.x1) - f.left) / (f.right - f.left) * (xs[1] - xs[0]),
+      y: ys[0] + (f.bottom - (b.y0 + b.y1) / 2) / (f.bottom - f.top) * (ys[1] - ys[0]),
+      anchor: pick[2] === 'start' ? 'left' : 'right',
+    });
     arrowLabels.push(
-      svgEl.text(a.name, {
-        x: f.x(a.ax) + (a.ax >= 0 ? 4 : -4),
-        y: f.y(a.ay) + (a.ay >= 0 ? -4 : 12),
-        'text-anchor': a.ax >= 0 ? 'start' : 'end',
-        'font-size': 11,
-        fill: INK.text,
-        stroke: '#ffffff',
-        'stroke-width': 3,
-        'paint-order': 'stroke',
-      }),
+      svgEl.text(a.name, { x: pick[0], y: pick[1], 'text-anchor': pick[2], 'font-size': 11, fill: INK.text, stroke: '#ffffff', 'stroke-width': 3, 'paint-order': 'stroke' }),
     );
   }
+  body.push(...arrowLabels);
   for (let s = 0; s < k; s++) {
-    const px = f.x(cx[s]);
-    const py = f.y(cy[s]);
+    const [px, py] = discs[s];
     body.push(svgEl.circle({ cx: px, cy: py, r: 10, fill: segmentColour(s), stroke: '#ffffff', 'stroke-width': 2.5 }));
     body.push(svgEl.text(String(s + 1), { x: px, y: py + 4, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: textOn(segmentColour(s)) }));
   }
-  body.push(...arrowLabels); // above the centre discs
-  body.push(...svgLegend(k, 64, height - 10, names));
+  body.push(...svgLegend(k, 64, frameH + 14, names, width - 80));
   const still = svgDocument(width, height, title, body);
   const notes = stride > 1 ? [`${n} rows: the static picture draws ${everyNth(stride)} row; the live chart draws all.`] : [];
   if (unlabelled.length) notes.push(`Short arrows, unlabelled (little weight on these two components): ${unlabelled.join(', ')}.`);
@@ -207,19 +244,19 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const annotations = arrows.flatMap((a) => [
     { x: a.ax, y: a.ay, ax: 0, ay: 0, axref: 'x', ayref: 'y', showarrow: true, arrowhead: 2, arrowwidth: 1.3, arrowcolor: INK.text, text: '' },
     ...(a.labelled ? [{
-      x: a.ax,
-      y: a.ay,
+      x: livePlace.get(a.name)!.x,
+      y: livePlace.get(a.name)!.y,
       showarrow: false,
       text: plotText(a.name),
-      xanchor: a.ax >= 0 ? 'left' : 'right',
-      yanchor: a.ay >= 0 ? 'bottom' : 'top',
+      xanchor: livePlace.get(a.name)!.anchor,
+      yanchor: 'middle',
       font: { size: 11, color: INK.text },
-      bgcolor: 'rgba(255,255,255,0.8)',
     }] : []),
   ]);
-  const layout = baseLayout(560, {
-    xaxis: axisStyle(xTitle),
-    yaxis: axisStyle(yTitle),
+  const layout = baseLayout(600, {
+    xaxis: axisStyle(xTitle, { constrain: 'domain' }),
+    // Equal units on both axes: a biplot's angles and lengths mean something.
+    yaxis: axisStyle(yTitle, { scaleanchor: 'x', scaleratio: 1, constrain: 'domain' }),
     annotations,
     hovermode: 'closest',
     legend: { orientation: 'h', y: -0.16, x: 0, title: { text: 'segment' } },

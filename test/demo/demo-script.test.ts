@@ -50,7 +50,7 @@ describe('npm run demo', () => {
 
   it('the report holds every view, the named cards, the write-up and the caution', () => {
     const page = fs.readFileSync(path.join(first, 'report.html'), 'utf8');
-    for (const kind of ['k-evidence', 'projection', 'silhouette', 'profile-cards', 'dendrogram']) {
+    for (const kind of ['k-evidence', 'projection', 'silhouette', 'profile-cards', 'dendrogram', 'drift']) {
       expect(page, kind).toContain(`data-view="${kind}"`);
     }
     for (const title of ['Weekday peak commuters', 'Students topping up', 'Long-distance regulars', 'Weekend and off-peak riders', 'Occasional newcomers']) {
@@ -62,6 +62,9 @@ describe('npm run demo', () => {
     // One story: the evidence view's headline, the text and the fitted k agree (issue 16, item 7).
     expect(page).toContain('<h3>k = 5 recommended: every segment stable');
     expect(page).toMatch(/How many segments<\/h2><p>k = 5 recommended[^<]*We fit k = 5, as recommended/);
+    expect(page).toContain("Next month's pass holders");
+    // The caution once: the write-up's, not the cards' own line as well.
+    expect(page.match(/protected attributes/gi)).toHaveLength(1);
     // Station names from demo-data/stations.csv label the dendrogram.
     const station = fs.readFileSync(path.join(root, 'demo-data', 'stations.csv'), 'utf8').split('\n')[1].split(',')[0];
     expect(page).toContain(station);

@@ -36,7 +36,7 @@ describe('one page holding every view (hostile strings in ids, names and levels)
     page.on('request', (r) => requests.push(r.url()));
     await page.goto('file://' + file);
     const charts = await page.locator('.kinsort-view .ks-live').count();
-    expect(charts).toBe(6); // all but the cards
+    expect(charts).toBe(4); // all but the cards, silhouettes and dendrogram (SVG only)
     await page.waitForFunction((n) => document.querySelectorAll('[data-drawn="plotly"]').length === n, charts, { timeout: 45_000 });
     const state = await page.evaluate(() => ({
       pwned: (window as unknown as { __pwned?: number }).__pwned,
@@ -46,8 +46,8 @@ describe('one page holding every view (hostile strings in ids, names and levels)
     }));
     expect(state.pwned).toBeUndefined();
     expect(state.images).toBe(0);
-    expect(state.plots).toBe(6);
-    expect(state.hiddenStills).toBe(6);
+    expect(state.plots).toBe(4);
+    expect(state.hiddenStills).toBe(4);
     // Offline: the only request is the page itself.
     expect(requests.filter((u) => !u.startsWith('file://') && !u.startsWith('data:'))).toEqual([]);
     await context.close();

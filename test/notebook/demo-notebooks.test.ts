@@ -151,7 +151,9 @@ describe('the demo notebooks in the tslab kernel', () => {
         const page = await context.newPage();
         await page.goto(file);
         const charts = await page.locator('figure.kinsort-view .ks-live').count();
-        expect(charts).toBeGreaterThanOrEqual(name === '01-pass-holder-segments' ? 3 : 2);
+        // Live charts: evidence for k and projection in notebook 1, the heatmap in notebook 2 (the
+        // silhouettes, dendrogram and cards are SVG / HTML only).
+        expect(charts).toBeGreaterThanOrEqual(name === '01-pass-holder-segments' ? 2 : 1);
         if (js) {
           await page.waitForFunction((n) => document.querySelectorAll('[data-drawn="plotly"]').length === n, charts, { timeout: 60_000 });
           expect(await page.locator('figure.kinsort-view .js-plotly-plot').count()).toBe(charts);
@@ -159,7 +161,7 @@ describe('the demo notebooks in the tslab kernel', () => {
           const stills = await page.evaluate(
             () => Array.from(document.querySelectorAll('.ks-static > svg')).filter((e) => e.getBoundingClientRect().height > 100).length,
           );
-          expect(stills).toBe(charts);
+          expect(stills).toBeGreaterThanOrEqual(charts);
           expect(await page.locator('[data-drawn="plotly"]').count()).toBe(0);
           expect(await page.locator('.ks-static .ks-card').count()).toBeGreaterThanOrEqual(5);
         }

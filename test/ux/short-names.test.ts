@@ -1,5 +1,5 @@
-// Segment names too long for the silhouette's label box were cut mid-word with no mark
-// ("Weekday peak commu"); now cut at a word with an ellipsis, in the live chart and the still.
+// Segment names in the silhouette view were cut mid-word with no mark ("Weekday peak commu"), then
+// at 15 characters; now they run on two lines, shortened at a word with an ellipsis only past that.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { study } from '../../src';
@@ -25,13 +25,15 @@ describe('shortName', () => {
 });
 
 describe('silhouette labels', () => {
-  it('show a long segment name shortened with an ellipsis, not cut mid-word', () => {
+  it('show a segment name whole, on two lines when long, shortened at a word only past two lines', () => {
     const records = Array.from({ length: 24 }, (_, i) => ({ id: `r${i}`, a: (i % 2) * 5 + i * 0.01, b: i % 3 }));
     const seg = study(records, { id: 'id' }).prepare().kmeans({ k: 2, seed: 1 });
     seg.name(1, { title: 'Weekday peak commuters' });
     const html = seg.silhouette().html();
-    expect(html).toContain('Weekday peak…');
-    expect(html).not.toContain('Weekday peak commu<');
-    expect(html).not.toMatch(/Weekday peak commu(?!ters)/);
+    expect(html).toContain('>Weekday peak commuters<');
+    seg.name(2, { title: 'Occasional weekend riders from the outer zones who top up by card' });
+    const long = seg.silhouette().html();
+    expect(long).toContain('>Occasional weekend<');
+    expect(long).toContain('>riders from the outer…<');
   });
 });

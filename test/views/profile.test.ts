@@ -77,7 +77,7 @@ describe('profileSegments behaviour', () => {
       used: { a: [1, 2, 3, 4, 5, 6], b: [0, 0, 0, 1, 1, 2], c: ['x', 'x', 'y', 'y', 'y', 'y'] },
       top: 2,
     });
-    expect(p[0].typical).toEqual({ row: 1, id: undefined, how: 'given' });
+    expect(p[0].typical).toEqual({ row: 1, id: undefined, how: 'given', values: { a: 2, b: 0, c: 'x' } });
     expect(p[1].title).toBe('Far');
     expect(p[0].title).toBeUndefined();
     expect(p[1].stability).toEqual({ jaccard: 0.55, reading: 'doubtful' });

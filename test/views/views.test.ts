@@ -43,7 +43,8 @@ describe('every view', () => {
     // Offline: no external script, stylesheet or font.
     expect(page).not.toMatch(/<script[^>]+src=/i);
     expect(page).not.toMatch(/<link[^>]+href=/i);
-    if (view.kind !== 'profile-cards') {
+    // Cards, silhouettes and dendrograms are plain HTML / SVG only; every other view also has a live chart.
+    if (!['profile-cards', 'silhouette', 'dendrogram'].includes(view.kind)) {
       expect(page.split('window.__kinsortDefine=window.define').length - 1).toBe(1);
       expect(fragment).toContain('class="ks-live" hidden');
     }
@@ -62,21 +63,29 @@ describe('every view', () => {
 
 describe('dendrogramView', () => {
   const v = allViews(false);
-  it('draws one link per merge, coloured by the cut, with a cut line and numbered badges', () => {
-    const svg = dendrogramView(v.tree, { k: 3 }).svg();
+  it('draws one join per merge in ink, the cut as a line, numbered segment tabs, every leaf labelled beside it', () => {
+    const svg = dendrogramView(v.tree, { k: 3, labelled: 100 }).svg();
     expect((svg.match(/<path d=/g) ?? []).length).toBe(v.rows.length - 1);
-    expect(svg).toContain('stroke-dasharray="6 4"');
+    expect(svg).toContain('cut: 3 segments');
     for (const s of ['1', '2', '3']) expect(svg).toMatch(new RegExp(`font-weight="700" fill="#[0-9a-f]{6}">${s}</text>`));
+    for (const id of v.ids) expect(svg).toContain(`>${id}</text>`);
   });
 
-  it('stands upright for few leaves, lies down and thins labels for hundreds', () => {
-    const small = sampleData(30);
-    const upright = dendrogramView(agglomerate(small.rows, { method: 'average' }));
-    expect(upright.svg()).toContain('rotate(-60');
+  it('past the labelled limit draws the top of the tree down to numbered branches, and one branch on request', () => {
     const big = sampleData(450);
-    const view = dendrogramView(agglomerate(big.rows, { method: 'ward' }), { k: 4 });
-    expect(view.svg()).not.toContain('rotate(-60');
-    expect(view.fragment()).toMatch(/450 leaves: every (second|third|\d+(st|nd|rd|th)) label is printed/);
+    const tree = { ...agglomerate(big.rows, { method: 'ward' }), labels: big.ids };
+    const cut = agglomerate(big.rows, { method: 'ward' });
+    const whole = { ...tree, cut: cut.cut.bind(cut) };
+    const view = dendrogramView(whole, { k: 4, branches: 12 });
+    const svg = view.svg();
+    const marks = [...svg.matchAll(/<text[^>]*>branch (\d+) · (\d+) rows · segment \d</g)];
+    expect(marks.map((m) => Number(m[1]))).toEqual(Array.from({ length: 12 }, (_, i) => i + 1));
+    expect(marks.reduce((a, m) => a + Number(m[2]), 0)).toBe(450);
+    expect(view.fragment()).toContain('dendrogram({ branch: j, k: 4 })');
+    const first = Number(marks[0][2]);
+    const one = dendrogramView(whole, { k: 4, branches: 12, branch: 1 }).svg();
+    expect(one).toContain(`branch 1 of 12 (${first} rows)`);
+    if (first <= 80) expect((one.match(/>PH-\d+<\/text>/g) ?? []).length).toBe(first);
   });
 
   it('refuses a k-means result and suggests the agglomerate step', () => {
