@@ -12,6 +12,7 @@ export * from './measure';
 export * from './methods/partition';
 export * from './methods/hierarchy';
 export * from './methods/project';
+export * from './methods/variables';
 export * from './assess';
 export * from './segments';
 export * from './views';

@@ -1,0 +1,39 @@
+# Reference for variableTree(): R's cor / hclust / cutree on hierarchies of the COLUMNS of open
+# datasets that R ships (datasets::mtcars, Henderson & Velleman 1981; datasets::swiss, Mosteller &
+# Tukey 1977; datasets::longley, Longley 1967). Dissimilarity 1 - r^2 (squared) or 1 - |r|
+# (absolute), r Pearson or Spearman (average ranks for ties, as cor() does).
+# Run: Rscript test/reference/variable_tree.R
+datasets <- list(mtcars = datasets::mtcars, swiss = datasets::swiss, longley = datasets::longley)
+choices <- list(
+  list(similarity = "pearson", strength = "squared", method = "average", r = "average"),
+  list(similarity = "pearson", strength = "absolute", method = "average", r = "average"),
+  list(similarity = "spearman", strength = "squared", method = "complete", r = "complete"),
+  list(similarity = "spearman", strength = "absolute", method = "single", r = "single"),
+  list(similarity = "pearson", strength = "squared", method = "weighted", r = "mcquitty"),
+  list(similarity = "pearson", strength = "absolute", method = "complete", r = "complete")
+)
+num <- function(v) paste0("[", paste(sprintf("%.17g", v), collapse = ","), "]")
+int <- function(v) paste0("[", paste(as.integer(v), collapse = ","), "]")
+str <- function(v) paste0("[", paste0('"', v, '"', collapse = ","), "]")
+sets <- c()
+for (name in names(datasets)) {
+  x <- as.matrix(datasets[[name]])
+  runs <- c()
+  for (ch in choices) {
+    r <- cor(x, method = ch$similarity)
+    d <- if (ch$strength == "squared") 1 - r^2 else 1 - abs(r)
+    h <- hclust(as.dist(d), ch$r)
+    cuts <- sapply(2:(ncol(x) - 1), function(k) int(cutree(h, k)))
+    runs <- c(runs, sprintf(
+      '{"similarity":"%s","strength":"%s","method":"%s","rMethod":"%s","call":"hclust(as.dist(%s), \\"%s\\")","heightsSorted":%s,"cuts":[%s]}',
+      ch$similarity, ch$strength, ch$method, ch$r,
+      if (ch$strength == "squared") sprintf("1 - cor(X, method = \\\"%s\\\")^2", ch$similarity) else sprintf("1 - abs(cor(X, method = \\\"%s\\\"))", ch$similarity),
+      ch$r, num(sort(h$height)), paste(cuts, collapse = ",")))
+  }
+  rows <- paste0("[", paste(apply(x, 1, num), collapse = ","), "]")
+  sets <- c(sets, sprintf('"%s":{"columns":%s,"rows":%s,"runs":[%s]}', name, str(colnames(x)), rows, paste(runs, collapse = ",")))
+}
+json <- sprintf('{"producedBy":"%s, stats::cor, stats::hclust, stats::cutree","sources":{"mtcars":"Henderson & Velleman (1981), R datasets::mtcars","swiss":"Swiss fertility 1888, Mosteller & Tukey (1977), R datasets::swiss","longley":"Longley (1967), R datasets::longley"},"data":{%s}}',
+  R.version.string, paste(sets, collapse = ","))
+here <- dirname(sub("--file=", "", grep("--file=", commandArgs(FALSE), value = TRUE)))
+writeLines(json, file.path(here, "fixtures", "variable_tree.json"))
