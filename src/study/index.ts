@@ -4,4 +4,6 @@ export type { StudyRoles, StudyPrepareOptions } from './study';
 export { Segmentation } from './segmentation';
 export type { SegmentName, SegmentationParts } from './segmentation';
 export { Hierarchy } from './hierarchy';
+export { VariableHierarchy } from './variable-hierarchy';
+export type { LeftOutColumn } from './variable-hierarchy';
 export type { Showable } from './showable';

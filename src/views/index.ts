@@ -14,3 +14,7 @@ export { profileCardsView } from './cards';
 export type { CardsOptions } from './cards';
 export { SEGMENT_COLOURS, segmentColour } from './palette';
 export { viewsPage, saveViewsPage } from './page';
+export { correlationHeatmapView, CORRELATION_GRID_MAX } from './variable-heatmap';
+export type { CorrelationGrid, CorrelationHeatmapOptions } from './variable-heatmap';
+export { variableGroupsView } from './variable-groups';
+export type { VariableGroupLike } from './variable-groups';
