@@ -13,6 +13,7 @@ export * from './methods/partition';
 export * from './methods/hierarchy';
 export * from './methods/project';
 export * from './methods/variables';
+export * from './methods/rules';
 export * from './assess';
 export * from './segments';
 export * from './views';

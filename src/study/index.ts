@@ -6,4 +6,5 @@ export type { SegmentName, SegmentationParts } from './segmentation';
 export { Hierarchy } from './hierarchy';
 export { VariableHierarchy } from './variable-hierarchy';
 export type { LeftOutColumn } from './variable-hierarchy';
+export type { SegmentRulesOptions } from './segment-rules';
 export type { Showable } from './showable';

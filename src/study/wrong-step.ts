@@ -54,6 +54,7 @@ export const SEGMENTATION_CALLS = [
   'assign',
   'members',
   'segmentOf',
+  'rules',
 ] as const;
 
 /** What a hierarchy offers that a segmentation does not, for the guard on a segmentation. */

@@ -18,3 +18,5 @@ export { correlationHeatmapView, CORRELATION_GRID_MAX } from './variable-heatmap
 export type { CorrelationGrid, CorrelationHeatmapOptions } from './variable-heatmap';
 export { variableGroupsView } from './variable-groups';
 export type { VariableGroupLike } from './variable-groups';
+export { rulesView, segmentRulesHtml } from './rules-list';
+export type { RulesLike } from './rules-list';
