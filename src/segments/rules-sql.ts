@@ -1,10 +1,11 @@
 // The rules as one SQL CASE, in portable SQL that DuckDB, PostgreSQL and SQLite read alike:
 // identifiers in double quotes (a quote inside doubled), text in single quotes (doubled inside),
-// thresholds as CAST(… AS DOUBLE PRECISION) so every engine compares in binary doubles exactly as
-// apply() does. Leaves are disjoint and cover every row, so the CASE has one WHEN per leaf and
+// thresholds as approximate (exponent) literals of their shortest round-trip digits, so every
+// engine compares with the same double apply() uses (sql-text.ts). Leaves are disjoint and cover every row, so the CASE has one WHEN per leaf and
 // missing values take the branch written "… OR x IS NULL".
 import { KinsortError } from '../core/errors';
 import { checkOptions } from '../core/options';
+import { doubleLiteral, quoteIdentifier, quoteString } from './sql-text';
 import type { RuleCondition } from './rules-text';
 
 export interface RulesSqlOptions {
@@ -16,26 +17,21 @@ export interface RulesSqlOptions {
   as?: string;
 }
 
-export function quoteIdentifier(name: string): string {
+/** Identifiers and text go through the shared quoting; NUL cannot be written in SQL text at all. */
+function identifier(name: string): string {
   if (typeof name !== 'string' || name === '' || name.includes('\u0000')) {
     throw new KinsortError(`toSql: ${JSON.stringify(name)} cannot be written as an SQL identifier.`, 'bad-option');
   }
-  return `"${name.replace(/"/g, '""')}"`;
+  return quoteIdentifier(name);
 }
 
-export function quoteText(value: string): string {
+function text(value: string): string {
   if (value.includes('\u0000')) throw new KinsortError(`toSql: the level ${JSON.stringify(value)} holds a NUL character, which SQL text cannot.`, 'bad-input');
-  return `'${value.replace(/'/g, "''")}'`;
-}
-
-/** A double as an SQL number that parses back to the same double (shortest round-trip form). */
-export function doubleLiteral(v: number): string {
-  if (!Number.isFinite(v)) throw new KinsortError(`toSql: threshold ${v} is not a finite number.`, 'bad-input');
-  return `CAST(${Object.is(v, -0) ? '0' : String(v)} AS DOUBLE PRECISION)`;
+  return quoteString(value);
 }
 
 export function conditionSql(c: RuleCondition): string {
-  const col = quoteIdentifier(c.column);
+  const col = identifier(c.column);
   let test: string;
   switch (c.test) {
     case 'below':
@@ -45,10 +41,10 @@ export function conditionSql(c: RuleCondition): string {
       test = `${col} >= ${doubleLiteral(c.value)}`;
       break;
     case 'oneOf':
-      test = c.levels.length ? `${col} IN (${c.levels.map(quoteText).join(', ')})` : '1 = 0';
+      test = c.levels.length ? `${col} IN (${c.levels.map(text).join(', ')})` : '1 = 0';
       break;
     case 'noneOf':
-      return c.levels.length ? `(${col} IS NULL OR ${col} NOT IN (${c.levels.map(quoteText).join(', ')}))` : '1 = 1';
+      return c.levels.length ? `(${col} IS NULL OR ${col} NOT IN (${c.levels.map(text).join(', ')}))` : '1 = 1';
   }
   return c.orMissing ? `(${test} OR ${col} IS NULL)` : test;
 }
@@ -65,7 +61,7 @@ export function rulesCase(rules: readonly { segment: number; conditions: readonl
 export function rulesSql(rules: readonly { segment: number; conditions: readonly RuleCondition[] }[], options: RulesSqlOptions): string {
   const opts = checkOptions(options, ['table', 'id', 'as'], 'toSql');
   if (opts.table === undefined) throw new KinsortError('toSql: give the table to read, e.g. { table: "pass_holders" }.', 'bad-option');
-  const table = (typeof opts.table === 'string' ? [opts.table] : [...opts.table]).map(quoteIdentifier).join('.');
-  const id = opts.id === undefined ? '' : `${quoteIdentifier(opts.id)}, `;
-  return `SELECT ${id}${rulesCase(rules)} AS ${quoteIdentifier(opts.as ?? 'segment')}\nFROM ${table}`;
+  const table = (typeof opts.table === 'string' ? [opts.table] : [...opts.table]).map(identifier).join('.');
+  const id = opts.id === undefined ? '' : `${identifier(opts.id)}, `;
+  return `SELECT ${id}${rulesCase(rules)} AS ${identifier(opts.as ?? 'segment')}\nFROM ${table}`;
 }
