@@ -38,6 +38,7 @@ export function segmentRulesHtml(result: RulesLike, segment: number): string {
 const RULES_CSS =
   '.kinsort-view .ks-rules ul{margin:2px 0 4px;padding-left:18px;font-size:13px}' +
   '.kinsort-view .ks-rules li{margin:3px 0}' +
+  '.kinsort-view .ks-rules li .ks-rule-fact{display:block}' +
   '.kinsort-view .ks-rule{font-family:ui-monospace,SFMono-Regular,Menlo,monospace;font-size:12.5px}' +
   '.kinsort-view .ks-rule-fact{color:#5d6670;font-size:12px;margin:0}' +
   '.kinsort-view .ks-rules-segment{margin:10px 0 0;display:flex;gap:8px;align-items:center;font-size:14px;font-weight:600}';
