@@ -44,7 +44,9 @@ export function formatThreshold(v: number): string {
   return exact.length <= 9 ? exact : String(Number(v.toPrecision(6)));
 }
 
-const quoteLevel = (l: string) => (/^[\w .+\-/]*$/.test(l) && l.trim() === l && l !== '' ? l : JSON.stringify(l));
+// Plain level names stand as they are; others (spaces at the ends, punctuation, empty) go in
+// typographic quotes, which read as quotes without escaping what is inside.
+const quoteLevel = (l: string) => (/^[\w .+\-/]*$/.test(l) && l.trim() === l && l !== '' ? l : `“${l}”`);
 
 /** A rule's conditions as one line; numeric bounds on one column merge into a range. */
 export function ruleText(conditions: readonly RuleCondition[], specs: ReadonlyMap<string, RuleColumnSpec>): string {
@@ -96,4 +98,24 @@ export function leafPaths(root: RuleTreeNode, specs: readonly RuleColumnSpec[]):
   };
   walk(root, []);
   return out;
+}
+
+/** The tree as the drawing reads it: each branch labelled with its condition in words. */
+export interface LabelledRuleNode {
+  readonly size: number;
+  readonly segment: number;
+  readonly purity: number;
+  readonly branches?: readonly [{ readonly label: string; readonly node: LabelledRuleNode }, { readonly label: string; readonly node: LabelledRuleNode }];
+}
+
+export function labelledTree(node: RuleTreeNode, specs: readonly RuleColumnSpec[]): LabelledRuleNode {
+  const base = { size: node.size, segment: node.prediction + 1, purity: node.size ? node.counts[node.prediction] / node.size : 0 };
+  if (!node.split) return base;
+  const spec = specs[node.split.column];
+  const byName = new Map([[spec.name, spec]]);
+  const branch = (left: boolean, child: RuleTreeNode) => ({
+    label: ruleText([branchCondition(node.split!, spec, left)], byName),
+    node: labelledTree(child, specs),
+  });
+  return { ...base, branches: [branch(true, node.left!), branch(false, node.right!)] };
 }

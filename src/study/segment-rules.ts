@@ -5,7 +5,8 @@ import { checkOptions } from '../core/options';
 import type { PreparedData } from '../prepare';
 import { fitRules, type RulesOptions, type SegmentRules } from '../segments/rules';
 import { specFromCells } from '../segments/rules-columns';
-import { rulesView } from '../views';
+import { rulesTreeView, rulesView, type View } from '../views';
+import { labelledTree } from '../segments/rules-text';
 import { showable, type Showable } from './showable';
 
 export interface SegmentRulesOptions extends RulesOptions {
@@ -19,7 +20,7 @@ export function segmentRules(
   k: number,
   titles: Readonly<Record<number, string>>,
   options: SegmentRulesOptions,
-): SegmentRules & Showable {
+): SegmentRules & Showable & { drawTree(): View } {
   const opts = checkOptions(options, ['depth', 'minLeaf', 'minSplit', 'columns'], 'rules');
   const prepared = new Map(data.preparation.columns.map((c) => [c.name, c]));
   const names = opts.columns ?? [...data.preparation.columns.map((c) => c.name)];
@@ -41,5 +42,9 @@ export function segmentRules(
     `Depth ${result.tree.depth}, at least ${result.tree.minLeaf} rows per leaf; splits that change no row's segment are pruned.`,
     'A missing value, or a level the rules never saw, follows the branch that held more training rows.',
   ];
-  return showable(result, () => rulesView(result, { notes }));
+  const withTree = Object.assign(result, {
+    /** The rule tree drawn, branches labelled with their conditions, leaves coloured by segment. */
+    drawTree: (): View => rulesTreeView(labelledTree(result.tree.root, result.columns), { names: titles }),
+  });
+  return showable(withTree, () => rulesView(result, { notes }));
 }

@@ -245,7 +245,7 @@ export class Segmentation {
    * Rules that say who is in each segment: a CART tree (Gini) on the original, unscaled columns,
    * one readable rule per leaf, their agreement with the segments, apply() and toSql().
    */
-  rules(options: SegmentRulesOptions = {}): SegmentRules & Showable {
+  rules(options: SegmentRulesOptions = {}): SegmentRules & Showable & { drawTree(): View } {
     return segmentRules(this.data, this.assignment, this.k, this.titles(), options);
   }
 

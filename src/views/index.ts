@@ -20,3 +20,5 @@ export { variableGroupsView } from './variable-groups';
 export type { VariableGroupLike } from './variable-groups';
 export { rulesView, segmentRulesHtml } from './rules-list';
 export type { RulesLike } from './rules-list';
+export { rulesTreeView } from './rules-tree';
+export type { DrawnRuleNode } from './rules-tree';

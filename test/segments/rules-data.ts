@@ -24,7 +24,7 @@ export function trainingRows(): Row[] {
 
 export function newRows(training: Row[]): Row[] {
   return training.slice(0, 240).map((r, i) => {
-    const row = { ...r, holder_id: `NEW-${i}` };
+    const row: Row = { ...r, holder_id: `NEW-${i}` };
     if (i % 7 === 0) row.trips_per_week = null;
     if (i % 11 === 0) row.peak_share = null;
     if (i % 5 === 0) row.home_zone = i % 10 === 0 ? 'Moonbase' : null;

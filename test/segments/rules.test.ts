@@ -9,6 +9,8 @@ import { Client } from 'pg';
 import { study } from '../../src/study';
 import { fitRules, rulesSql, type SegmentRules } from '../../src/segments';
 import { specFromCells } from '../../src/segments/rules-columns';
+import { labelledTree } from '../../src/segments/rules-text';
+import { rulesTreeView } from '../../src/views';
 import { quoteIdentifier, quoteString, doubleLiteral } from '../../src/segments/sql-text';
 import { useServer, serverAvailable } from '../servers/servers';
 import { AWKWARD_ZONE, NUMERIC, TEXT, newRows, trainingRows, type Row } from './rules-data';
@@ -72,7 +74,7 @@ describe('seg.rules()', () => {
 
   it('a zone named with quotes and non-ASCII letters is split on by name and read back exactly', () => {
     expect(zoneRules.agreement.overall).toBe(1);
-    expect(zoneRules.rules.some((r) => r.text.includes(JSON.stringify(AWKWARD_ZONE)))).toBe(true);
+    expect(zoneRules.rules.some((r) => r.text.includes(`“${AWKWARD_ZONE}”`))).toBe(true);
     expect(zoneRules.toSql({ table: 't' })).toContain(`'Harbour''s "Quay" — Süd'`);
   });
 
@@ -92,6 +94,16 @@ describe('seg.rules()', () => {
     const fragment = segmentRulesHtml(rules, 1);
     expect(fragment).toContain('data-segment="1"');
     expect(fragment).not.toContain('"Quay"');
+  });
+
+  it('draws the tree: one box per leaf, branch conditions escaped, names from the segmentation', () => {
+    const svg = rules.drawTree().svg();
+    expect(svg.match(/rows · \d+%/g)).toHaveLength(rules.rules.length);
+    expect(svg).toContain('Weekday &lt;peak');
+    expect(svg).not.toContain('<peak>');
+    const zoneSvg = rulesTreeView(labelledTree(zoneRules.tree.root, zoneRules.columns)).svg();
+    expect(zoneSvg).toContain('“Harbour&#39;s');
+    expect(zoneSvg).toContain('&quot;Quay&quot;');
   });
 });
 
