@@ -12,7 +12,12 @@ import { KinsortError } from '../../../src/core/errors';
 interface Run { similarity: 'pearson' | 'spearman'; strength: 'squared' | 'absolute'; method: 'average'; call: string; heightsSorted: number[]; cuts: number[][] }
 const fixture = JSON.parse(readFileSync(join(__dirname, '../../reference/fixtures/variable_tree.json'), 'utf8')) as {
   producedBy: string;
-  data: Record<string, { columns: string[]; rows: number[][]; runs: Run[] }>;
+  data: Record<string, {
+    columns: string[];
+    rows: number[][];
+    runs: Run[];
+    groups: { k: number; firstComponentShare: number[]; members: { name: string; group: number; sharedWithOwn: number; sharedWithNext: number; unexplainedRatio: number }[] };
+  }>;
 };
 
 describe('variableTree matches R hclust on 1 − r² and 1 − |r| (' + fixture.producedBy + ')', () => {
@@ -30,6 +35,22 @@ describe('variableTree matches R hclust on 1 − r² and 1 − |r| (' + fixture.
         expect(tree.labels).toEqual(set.columns);
       });
     }
+  }
+});
+
+describe('group summaries match R prcomp on the groups of hclust(as.dist(1 - cor(X)^2), "average") cut into 3', () => {
+  for (const [name, set] of Object.entries(fixture.data)) {
+    it(`${name}: first-component shares, R² with own and next group, 1 − R² ratios`, () => {
+      const groups = variableTree(set.rows, { names: set.columns }).groups({ k: set.groups.k });
+      groups.forEach((g, t) => expect(Math.abs(g.firstComponentShare - set.groups.firstComponentShare[t])).toBeLessThan(1e-10));
+      for (const expected of set.groups.members) {
+        const g = groups[expected.group - 1];
+        const m = g.members.find((x) => x.name === expected.name)!;
+        expect(Math.abs(m.sharedWithOwn - expected.sharedWithOwn)).toBeLessThan(1e-10);
+        expect(Math.abs(m.sharedWithNext - expected.sharedWithNext)).toBeLessThan(1e-10);
+        expect(Math.abs(m.unexplainedRatio - expected.unexplainedRatio)).toBeLessThan(1e-9);
+      }
+    });
   }
 });
 
