@@ -16,26 +16,36 @@ function purity(counts: Float64Array, total: number): number {
   return s / total;
 }
 
+/**
+ * `rows`: the node's rows. `sorted`: for numeric and ordinal columns, the node's rows that have a
+ * value, ordered by value then row (kept in order from the root down, so no node sorts again).
+ */
 export function bestSplitOn(
   column: RuleColumn,
   columnIndex: number,
   rows: Int32Array,
+  sorted: Int32Array | undefined,
   target: Int32Array,
   classes: number,
   minLeaf: number,
 ): RuleSplit | undefined {
   return column.kind === 'categorical'
     ? bestLevelSplit(column, columnIndex, rows, target, classes, minLeaf)
-    : bestThreshold(column, columnIndex, rows, target, classes, minLeaf);
+    : bestThreshold(column, columnIndex, sorted!, target, classes, minLeaf);
 }
 
-function bestThreshold(column: RuleColumn, j: number, rows: Int32Array, target: Int32Array, classes: number, minLeaf: number): RuleSplit | undefined {
-  const v = column.values;
+/** Rows with a value in `values`, ordered by value then row: the root's sorted list. */
+export function sortedPresent(values: Float64Array): Int32Array {
   const present: number[] = [];
-  for (const r of rows) if (!Number.isNaN(v[r])) present.push(r);
+  for (let r = 0; r < values.length; r++) if (!Number.isNaN(values[r])) present.push(r);
+  present.sort((a, b) => values[a] - values[b] || a - b);
+  return Int32Array.from(present);
+}
+
+function bestThreshold(column: RuleColumn, j: number, present: Int32Array, target: Int32Array, classes: number, minLeaf: number): RuleSplit | undefined {
+  const v = column.values;
   const n = present.length;
   if (n < 2 * minLeaf) return undefined;
-  present.sort((a, b) => v[a] - v[b] || a - b);
   const all = new Float64Array(classes);
   for (const r of present) all[target[r]]++;
   const base = purity(all, n);

@@ -9,7 +9,7 @@
 // the tree is applied, levels never seen in training) follow the child with more training rows.
 import { KinsortError } from '../../core/errors';
 import { checkInteger, checkOptions } from '../../core/options';
-import { TIE, bestSplitOn } from './best-split';
+import { TIE, bestSplitOn, sortedPresent } from './best-split';
 import type { RuleColumn, RuleSplit, RuleTree, RuleTreeNode } from './types';
 
 export interface ClassificationTreeOptions {
@@ -57,7 +57,9 @@ export function classificationTree(columns: readonly RuleColumn[], target: Int32
     if (t + 1 > classes) classes = t + 1;
   }
 
-  const grow = (rows: Int32Array, id: number, level: number): RuleTreeNode => {
+  // Which child each row of the node being split goes to (1 = left), reused at every node.
+  const side = new Uint8Array(n);
+  const grow = (rows: Int32Array, sorted: (Int32Array | undefined)[], id: number, level: number): RuleTreeNode => {
     const counts = new Array<number>(classes).fill(0);
     for (const r of rows) counts[target[r]]++;
     let prediction = 0;
@@ -66,7 +68,7 @@ export function classificationTree(columns: readonly RuleColumn[], target: Int32
     if (level >= depth || rows.length < minSplit || counts[prediction] === rows.length) return node;
     let best: RuleSplit | undefined;
     columns.forEach((column, j) => {
-      const s = bestSplitOn(column, j, rows, target, classes, minLeaf);
+      const s = bestSplitOn(column, j, rows, sorted[j], target, classes, minLeaf);
       if (s && (!best || s.improvement > best.improvement + TIE)) best = s;
     });
     if (!best) return node;
@@ -74,17 +76,43 @@ export function classificationTree(columns: readonly RuleColumn[], target: Int32
     const values = columns[split.column].values;
     const left: number[] = [];
     const right: number[] = [];
-    for (const r of rows) (goesLeft(split, values[r]) ? left : right).push(r);
+    for (const r of rows) {
+      const l = goesLeft(split, values[r]);
+      side[r] = l ? 1 : 0;
+      (l ? left : right).push(r);
+    }
+    // Each sorted list splits into two, order kept (a stable partition).
+    const sortedLeft: (Int32Array | undefined)[] = [];
+    const sortedRight: (Int32Array | undefined)[] = [];
+    for (const list of sorted) {
+      if (!list) {
+        sortedLeft.push(undefined);
+        sortedRight.push(undefined);
+        continue;
+      }
+      let nl = 0;
+      for (const r of list) nl += side[r];
+      const a = new Int32Array(nl);
+      const b = new Int32Array(list.length - nl);
+      let ia = 0;
+      let ib = 0;
+      for (const r of list) {
+        if (side[r]) a[ia++] = r;
+        else b[ib++] = r;
+      }
+      sortedLeft.push(a);
+      sortedRight.push(b);
+    }
     // Missing values may push a side under minLeaf only by the rows they add, never below it.
     node.split = split;
-    node.left = grow(Int32Array.from(left), 2 * id, level + 1);
-    node.right = grow(Int32Array.from(right), 2 * id + 1, level + 1);
+    node.left = grow(Int32Array.from(left), sortedLeft, 2 * id, level + 1);
+    node.right = grow(Int32Array.from(right), sortedRight, 2 * id + 1, level + 1);
     return node;
   };
 
   const all = new Int32Array(n);
   for (let i = 0; i < n; i++) all[i] = i;
-  const root = grow(all, 1, 0);
+  const root = grow(all, columns.map((c) => (c.kind === 'categorical' ? undefined : sortedPresent(c.values))), 1, 0);
   prune(root);
   return { kind: 'rule-tree', columns: columns.map((c) => ({ name: c.name, kind: c.kind, levels: c.levels })), classes, root, depth, minLeaf, minSplit };
 }
