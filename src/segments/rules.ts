@@ -18,6 +18,8 @@ export interface SegmentRule {
   readonly conditions: readonly RuleCondition[];
   /** The conditions as one line, e.g. "trips_per_week ≥ 9.5 and peak_share < 0.62". */
   readonly text: string;
+  /** The whole rule in words: "trips_per_week ≥ 9.5 and peak_share < 0.62 → segment 2 (Weekday commuters)". */
+  readonly sentence: string;
   /** Training rows in the leaf. */
   readonly size: number;
   /** Share of the leaf's rows that are in `segment`. */
@@ -67,15 +69,21 @@ export function fitRules(training: RulesTraining, options: RulesOptions = {}, wh
   const columns = specs.map((s, j) => ruleColumn(s, codeCells(s, training.cells[j], where, rowName)));
   const tree = classificationTree(columns, assignment, opts);
   const bySpec = new Map(specs.map((s) => [s.name, s]));
-  const rules: SegmentRule[] = leafPaths(tree.root, specs).map(({ leaf, conditions }) => ({
-    segment: leaf.prediction + 1,
-    ...(training.titles?.[leaf.prediction + 1] ? { title: training.titles[leaf.prediction + 1] } : {}),
-    conditions,
-    text: ruleText(conditions, bySpec),
-    size: leaf.size,
-    purity: leaf.size ? leaf.counts[leaf.prediction] / leaf.size : 0,
-    leaf: leaf.id,
-  }));
+  const rules: SegmentRule[] = leafPaths(tree.root, specs).map(({ leaf, conditions }) => {
+    const segment = leaf.prediction + 1;
+    const title = training.titles?.[segment];
+    const text = ruleText(conditions, bySpec);
+    return {
+      segment,
+      ...(title ? { title } : {}),
+      conditions,
+      text,
+      sentence: `${text} → segment ${segment}${title ? ` (${title})` : ''}`,
+      size: leaf.size,
+      purity: leaf.size ? leaf.counts[leaf.prediction] / leaf.size : 0,
+      leaf: leaf.id,
+    };
+  });
 
   const hits = new Array<number>(k).fill(0);
   const sizes = new Array<number>(k).fill(0);

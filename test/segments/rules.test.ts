@@ -39,11 +39,12 @@ describe('seg.rules()', () => {
       expect(r.purity).toBeGreaterThan(0);
       expect(r.purity).toBeLessThanOrEqual(1);
       expect(r.text.length).toBeGreaterThan(5);
+      expect(r.sentence).toBe(`${r.text} → segment ${r.segment}${r.title ? ` (${r.title})` : ''}`);
     }
     // Thresholds in the raw units: trips per week are whole-ish numbers of trips, not z-scores.
     const trips = rules.rules.flatMap((r) => r.conditions).filter((c) => c.column === 'trips_per_week' && 'value' in c);
     for (const c of trips) expect((c as { value: number }).value).toBeGreaterThan(0.5);
-    expect(rules.rules.find((r) => r.segment === 2)?.title ?? 'Weekday <peak> riders').toBe('Weekday <peak> riders');
+    for (const r of rules.rules.filter((x) => x.segment === 2)) expect(r.sentence).toMatch(/→ segment 2 \(Weekday <peak> riders\)$/);
   });
 
   it('agreement equals what apply() gives on the training rows', () => {
