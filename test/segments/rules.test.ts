@@ -7,13 +7,12 @@ import { DuckDBConnection, DuckDBInstance } from '@duckdb/node-api';
 import Database from 'better-sqlite3';
 import { Client } from 'pg';
 import { study } from '../../src/study';
-import { fitRules, rulesSql, type SegmentRules } from '../../src/segments';
-import { specFromCells } from '../../src/segments/rules-columns';
+import { rulesSql, type SegmentRules } from '../../src/segments';
 import { labelledTree } from '../../src/segments/rules-text';
 import { rulesTreeView } from '../../src/views';
 import { quoteIdentifier, quoteString, doubleLiteral } from '../../src/segments/sql-text';
 import { useServer, serverAvailable } from '../servers/servers';
-import { AWKWARD_ZONE, NUMERIC, TEXT, newRows, trainingRows, type Row } from './rules-data';
+import { AWKWARD_ZONE, NUMERIC, TEXT, newRows, trainingRows, zoneRulesFor, type Row } from './rules-data';
 
 const training = trainingRows();
 const fresh = newRows(training);
@@ -21,13 +20,7 @@ const seg = study(training, { id: 'holder_id' }).prepare({ scale: 'zscore', miss
 seg.name(2, { title: 'Weekday <peak> riders' });
 const rules = seg.rules({ depth: 4, minLeaf: 10 });
 
-// Rules that must split on the zone whose name needs quoting (segments made from the zone and trips).
-const zoneTruth = Int32Array.from(training.map((r) => (r.home_zone === AWKWARD_ZONE || r.home_zone === 'Outer Vale' ? 0 : (r.trips_per_week as number) > 10 ? 2 : 1)));
-const zoneSpecs = [specFromCells('home_zone', training.map((r) => r.home_zone)), specFromCells('trips_per_week', training.map((r) => r.trips_per_week))];
-const zoneRules = fitRules(
-  { specs: zoneSpecs, cells: zoneSpecs.map((s) => training.map((r) => r[s.name])), assignment: zoneTruth, k: 3 },
-  { depth: 3, minLeaf: 5 },
-);
+const zoneRules = zoneRulesFor(training);
 
 describe('seg.rules()', () => {
   it('one rule per leaf, in the columns’ units and level names, with size and purity', () => {
