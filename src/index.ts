@@ -12,6 +12,8 @@ export * from './measure';
 export * from './methods/partition';
 export * from './methods/hierarchy';
 export * from './methods/project';
+export * from './methods/variables';
+export * from './methods/rules';
 export * from './assess';
 export * from './segments';
 export * from './engines';

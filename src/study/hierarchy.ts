@@ -32,6 +32,7 @@ export class Hierarchy {
   declare readonly assign: CutTheTreeFirst;
   declare readonly members: CutTheTreeFirst;
   declare readonly segmentOf: CutTheTreeFirst;
+  declare readonly rules: CutTheTreeFirst;
 
   constructor(tree: Tree, data: PreparedData, options: Record<string, unknown>, used?: Dissimilarity) {
     this.tree = tree;

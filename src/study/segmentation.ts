@@ -24,6 +24,8 @@ import { profileCardsView, projectionView, silhouetteView, type View } from '../
 import { showable, type Showable } from './showable';
 import { writeUpMarkdown, type WriteUpContext } from '../segments/write-up';
 import { writeUpPage } from '../views/write-up-page';
+import { segmentRules, type SegmentRulesOptions } from './segment-rules';
+import type { SegmentRules } from '../segments/rules';
 import { HIERARCHY_CALLS, installWrongStepGuards, type AskTheHierarchyInstead } from './wrong-step';
 
 export interface SegmentName {
@@ -339,6 +341,14 @@ export class Segmentation {
       normalizedMutualInfo: normalizedMutualInfo(this.assignment, b),
       table: contingencyTable(this.assignment, b),
     };
+  }
+
+  /**
+   * Rules that say who is in each segment: a CART tree (Gini) on the original, unscaled columns,
+   * one readable rule per leaf, their agreement with the segments, apply() and toSql().
+   */
+  rules(options: SegmentRulesOptions = {}): SegmentRules & Showable & { drawTree(): View } {
+    return segmentRules(this.data, this.assignment, this.k, this.titles(), options);
   }
 
   /** Everything needed to reproduce and apply this segmentation to new rows. */

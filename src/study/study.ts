@@ -18,6 +18,9 @@ import { Segmentation } from './segmentation';
 import { Hierarchy } from './hierarchy';
 import { rowsAt, segmentMeans } from './centres';
 import { ruleAgreement, settleKmeans } from './reproduce';
+import { VariableHierarchy } from './variable-hierarchy';
+import { variableColumns } from './variable-columns';
+import { variableTree, type CorrelationKind, type CorrelationStrength, type VariableLinkage } from '../methods/variables';
 import { installWrongStepGuards, PREPARED_STUDY_CALLS, type PrepareTheStudyFirst } from './wrong-step';
 
 /** Which columns play which part. */
@@ -59,6 +62,7 @@ export class Study {
   declare readonly kmedoids: PrepareTheStudyFirst;
   declare readonly agglomerate: PrepareTheStudyFirst;
   declare readonly project: PrepareTheStudyFirst;
+  declare readonly variableTree: PrepareTheStudyFirst;
 
   constructor(readonly table: Table, readonly roles: StudyRoles) {}
 
@@ -75,7 +79,7 @@ export class Study {
   prepare(options: StudyPrepareOptions = {}): PreparedStudy {
     checkOptions(options, PREPARE_NAMES, 'prepare');
     const data = prepareTable(this.table, { ...this.roles, ...options } as PrepareOptions);
-    return new PreparedStudy(data);
+    return new PreparedStudy(data, { study: this, options: { ...options } });
   }
 }
 
@@ -94,7 +98,12 @@ function progressFor(given: ProgressCallback | undefined, title: string): Progre
 export class PreparedStudy {
   private readonly dissimilarities = new Map<string, Dissimilarity>();
 
-  constructor(readonly data: PreparedData) {}
+  /** The study and options this was prepared from, for use(names): absent when built by hand. */
+  private readonly origin?: { study: Study; options: StudyPrepareOptions };
+
+  constructor(readonly data: PreparedData, origin?: { study: Study; options: StudyPrepareOptions }) {
+    this.origin = origin;
+  }
 
   get ids(): readonly string[] {
     return this.data.ids;
@@ -198,6 +207,32 @@ export class PreparedStudy {
     const progress = progressFor(opts.onProgress, 'Agglomerating');
     const tree = agglomerate(used ?? this.data.matrix, { method: opts.method, ...(progress ? { progress } : {}) });
     return new Hierarchy(tree, this.data, { linkage: opts.method, metric }, used);
+  }
+
+  /**
+   * Which variables go together: a hierarchy of the used columns (unscaled, after imputation and
+   * log), 1 − r² by default. Binary columns enter coded 0/1, ordinal ones by level rank; unordered
+   * categorical columns are left out and listed in `leftOut` with the reason.
+   */
+  variableTree(options: { similarity?: CorrelationKind; strength?: CorrelationStrength; method?: VariableLinkage } = {}): VariableHierarchy {
+    const opts = checkOptions(options, ['similarity', 'strength', 'method'], 'variableTree');
+    const { matrix, leftOut, entered } = variableColumns(this.data.mixed);
+    return new VariableHierarchy(variableTree(matrix, opts), leftOut, entered);
+  }
+
+  /**
+   * The same study prepared again with the same options, using only `columns` (e.g. the
+   * representatives of a variable tree's groups): prepared.use(vars.representatives({ k: 4 })).
+   */
+  use(columns: readonly string[]): PreparedStudy {
+    if (!Array.isArray(columns) || columns.length === 0 || columns.some((c) => typeof c !== 'string')) {
+      throw new KinsortError('use: give a non-empty list of column names, e.g. prepared.use(vars.representatives({ k: 4 })).', 'bad-option');
+    }
+    if (!this.origin) {
+      throw new KinsortError('use: this prepared study was built by hand, not by study(…).prepare(…); start a new study with { use } instead.', 'not-supported');
+    }
+    const { study: from, options } = this.origin;
+    return new Study(from.table, { ...from.roles, use: [...columns] }).prepare(options);
   }
 
   /** Principal components of the prepared rows; `.show()` draws the scree. */

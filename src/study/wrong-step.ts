@@ -37,7 +37,7 @@ export function installWrongStepGuards<T>(proto: T, names: readonly string[], ad
 }
 
 /** What a prepared study offers, for the "prepare first" guard on a study. */
-export const PREPARED_STUDY_CALLS = ['dissimilarity', 'compareK', 'kmeans', 'kmedoids', 'agglomerate', 'project'] as const;
+export const PREPARED_STUDY_CALLS = ['dissimilarity', 'compareK', 'kmeans', 'kmedoids', 'agglomerate', 'project', 'variableTree'] as const;
 
 /** What a segmentation offers that a hierarchy does not, for the "cut first" guard on a hierarchy. */
 export const SEGMENTATION_CALLS = [
@@ -54,6 +54,7 @@ export const SEGMENTATION_CALLS = [
   'assign',
   'members',
   'segmentOf',
+  'rules',
 ] as const;
 
 /** What a hierarchy offers that a segmentation does not, for the guard on a segmentation. */
