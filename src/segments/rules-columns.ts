@@ -3,6 +3,7 @@
 // ordinal cells by rank. Missing cells (and levels the tree never saw) become NaN and follow
 // the larger branch.
 import { KinsortError } from '../core/errors';
+import { cellNumber, type DecimalMark } from '../table/cells';
 import type { Cell } from '../table/types';
 import type { RuleColumn, RuleColumnKind } from '../methods/rules';
 
@@ -14,6 +15,8 @@ export interface RuleColumnSpec {
   readonly levels?: readonly string[];
   /** Whether any training row lacked a value (the rules then say "or missing" where it applies). */
   readonly hadMissing: boolean;
+  /** numeric: the decimal mark the stored preparation reads numbers with (default '.'). */
+  readonly decimalMark?: DecimalMark;
 }
 
 /** The level text of a cell: strings as given, numbers as JavaScript writes them. */
@@ -22,11 +25,18 @@ export function levelText(cell: Cell): string | null {
 }
 
 /** A column's spec from its training cells; `declared` comes from the preparation when known. */
-export function specFromCells(name: string, cells: readonly Cell[], declared?: { type: string; levels: readonly string[] | null }): RuleColumnSpec {
+export function specFromCells(
+  name: string,
+  cells: readonly Cell[],
+  declared?: { type: string; levels: readonly string[] | null },
+  decimalMark: DecimalMark = '.',
+): RuleColumnSpec {
   const hadMissing = cells.some((c) => c === null);
   if (declared?.type === 'ordinal' && declared.levels) return { name, kind: 'ordinal', levels: [...declared.levels], hadMissing };
-  const numeric = declared ? declared.type === 'numeric' : cells.every((c) => c === null || typeof c === 'number');
-  if (numeric) return { name, kind: 'numeric', hadMissing };
+  // Undeclared (profile-only) columns: numeric only when every present cell is a number under the
+  // text rule (table/cells.ts), so codes such as "007" stay levels.
+  const numeric = declared ? declared.type === 'numeric' : cells.every((c) => c === null || cellNumber(c, decimalMark) !== undefined);
+  if (numeric) return { name, kind: 'numeric', hadMissing, ...(decimalMark === ',' ? { decimalMark } : {}) };
   const levels = [...new Set(cells.map(levelText).filter((v): v is string => v !== null))].sort();
   return { name, kind: 'categorical', levels, hadMissing };
 }
@@ -40,13 +50,15 @@ export function codeCells(spec: RuleColumnSpec, cells: readonly Cell[], where: s
     if (cell === null) {
       out[i] = NaN;
     } else if (spec.kind === 'numeric') {
-      if (typeof cell !== 'number' || !Number.isFinite(cell)) {
+      // Cells are text as given (the text rule reads the number) or numbers from records.
+      const value = cellNumber(cell, spec.decimalMark ?? '.');
+      if (value === undefined || !Number.isFinite(value)) {
         throw new KinsortError(
           `${where}: ${rowName(i)}, column "${spec.name}" holds ${JSON.stringify(cell)}; the rules compare this column as a number.`,
           'bad-input',
         );
       }
-      out[i] = cell;
+      out[i] = value;
     } else {
       out[i] = codeOf!.get(levelText(cell)!) ?? NaN;
     }

@@ -15,7 +15,7 @@ const rules = seg.rules({ depth: 4, minLeaf: 10 });
 const zoneRules = zoneRulesFor(training);
 
 function valuesSql(rows: Row[]): string {
-  const cell = (v: Row[string], numeric: boolean) => (v === null || v === undefined ? 'NULL' : numeric ? doubleLiteral(v as number) : quoteString(String(v)));
+  const cell = (v: Row[string], numeric: boolean) => (v === null || v === undefined ? 'NULL' : numeric ? doubleLiteral(Number(v)) : quoteString(String(v)));
   return rows.map((r) => `(${[...TEXT.map((c) => cell(r[c], false)), ...NUMERIC.map((c) => cell(r[c], true))].join(', ')})`).join(', ');
 }
 

@@ -119,7 +119,7 @@ function createTableSql(name: string): string {
 
 function valuesSql(rows: Row[]): string {
   const cell = (v: Row[string], numeric: boolean) =>
-    v === null || v === undefined ? 'NULL' : numeric ? doubleLiteral(v as number) : quoteString(String(v));
+    v === null || v === undefined ? 'NULL' : numeric ? doubleLiteral(Number(v)) : quoteString(String(v));
   return rows.map((r) => `(${[...TEXT.map((c) => cell(r[c], false)), ...NUMERIC.map((c) => cell(r[c], true))].join(', ')})`).join(',\n');
 }
 
