@@ -6,7 +6,8 @@ import * as fs from 'fs';
 import * as path from 'path';
 import { escapeHtml, scriptJson, slug } from './escape';
 import { VIEW_CSS } from './style';
-import { showFragment, plottingScript, savedFileName } from '../notebook/display';
+import { showFragment, plottingScript, savedFileName, jupyterBundle, displayableInKernel } from '../notebook/display';
+import type { ShowRequest } from '../notebook/display';
 
 export interface PlotSpec {
   readonly data: readonly object[];
@@ -57,8 +58,8 @@ export function makeView(parts: ViewParts): View {
   const notes = parts.notes?.length
     ? `<ul class="ks-notes">${parts.notes.map((n) => `<li>${escapeHtml(n)}</li>`).join('')}</ul>`
     : '';
-  const fragment = (): string => {
-    const live = parts.plot
+  const figure = (withLive: boolean): string => {
+    const live = parts.plot && withLive
       ? `<div class="ks-live" hidden></div>` +
         `<script type="application/json" class="ks-spec">${scriptJson({ ...parts.plot, config: PLOT_CONFIG })}</script>` +
         `<script>${DRAW_SCRIPT.replace('__ID__', JSON.stringify(id))}</script>`
@@ -70,11 +71,19 @@ export function makeView(parts: ViewParts): View {
       `<div class="ks-static">${parts.still}</div>${live}${notes}${parts.after ?? ''}</figure>`
     );
   };
+  const fragment = (): string => figure(true);
   const html = (): string =>
     `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width">` +
     `<title>${escapeHtml(parts.title)}</title>${parts.plot ? plottingScript() : ''}</head>` +
     `<body style="margin:24px;background:#fbfbfc">${fragment()}</body></html>`;
-  return {
+  const request = (): ShowRequest => ({
+    fragment: fragment(),
+    still: () => figure(false),
+    needsPlotting: parts.plot !== undefined,
+    fileName: savedFileName(parts.title),
+    page: html,
+  });
+  const view: View = {
     kind: parts.kind,
     title: parts.title,
     caption: parts.caption,
@@ -88,12 +97,9 @@ export function makeView(parts: ViewParts): View {
       return target;
     },
     show(): void {
-      showFragment({
-        fragment: fragment(),
-        needsPlotting: parts.plot !== undefined,
-        fileName: savedFileName(parts.title),
-        page: html,
-      });
+      showFragment(request());
     },
   };
+  // Deno's notebook kernel draws a cell's value through this method.
+  return displayableInKernel(view, () => jupyterBundle(request(), parts.title));
 }
