@@ -49,8 +49,9 @@ export function progressHtml(title: string | undefined, e: ProgressEvent): strin
 export interface ProgressDisplayOptions {
   /** Minimum milliseconds between redraws (default 120); the last step is always drawn. */
   every?: number;
-  /** Where to write outside the kernel (default process.stderr). */
-  stream?: NodeJS.WriteStream | { isTTY?: boolean; write(s: string): unknown };
+  /** Where to write outside the kernel (default process.stderr). Typed by shape, so the shipped
+   * types need no @types/node. */
+  stream?: { isTTY?: boolean; write(s: string): unknown };
 }
 
 /** A ProgressCallback that draws itself in place. */
