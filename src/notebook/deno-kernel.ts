@@ -1,9 +1,11 @@
-// Deno's built-in Jupyter kernel. Deno.jupyter.display sends display_data (and, with
-// `update`, update_display_data for the same display_id) and returns a promise; we do not make
-// callers await it, so a failed send is reported once on stderr instead of as an unhandled
-// rejection. Deno sends these messages when its event loop next turns: progress of a
-// synchronous computation therefore arrives when the cell ends, and the entry then shows the
-// final state, as in tslab.
+// Deno's built-in Jupyter kernel. Deno.jupyter.display sends display_data (and, with `update`,
+// update_display_data for the same display_id) and returns a promise. Deno only sends while its
+// event loop turns, and a cell with nothing left to await ends at once: a display not yet sent
+// then arrives after the cell is over and a headless run (nbconvert) drops it. So every send is
+// kept until it settles, and `settled()` gives one promise for all of them: a view left as a
+// cell's value waits for it before it is drawn, and `await view.show()` waits for it too.
+// Progress of a synchronous computation therefore arrives when the cell ends, showing its final
+// state.
 import type { NotebookKernel } from './kernel';
 
 export interface DenoJupyter {
@@ -16,13 +18,24 @@ export function denoJupyter(): DenoJupyter | undefined {
   return j && typeof j.display === 'function' ? j : undefined;
 }
 
+const pending = new Set<Promise<void>>();
 let warned = false;
-function settle(p: Promise<void>): void {
-  p.catch((e: unknown) => {
+
+/** Keep `p` until it settles; a failed send is reported once on stderr, never thrown. */
+function track(p: Promise<void>): Promise<void> {
+  const kept = p.catch((e: unknown) => {
     if (warned) return;
     warned = true;
     console.error(`kinsort: the Deno kernel did not take a display (${e instanceof Error ? e.message : String(e)}).`);
   });
+  pending.add(kept);
+  void kept.then(() => pending.delete(kept));
+  return kept;
+}
+
+/** Settles when every display sent so far (and any sent meanwhile) has been taken by the kernel. */
+async function settled(): Promise<void> {
+  while (pending.size > 0) await Promise.all([...pending]);
 }
 
 let entries = 0;
@@ -32,13 +45,14 @@ export function denoKernel(): NotebookKernel | undefined {
   if (!j) return undefined;
   return {
     name: 'deno',
-    html: (s) => settle(j.display({ 'text/html': s }, { raw: true })),
+    html: (s) => track(j.display({ 'text/html': s }, { raw: true })),
+    settled,
     entry: () => {
       const id = `kinsort-${Date.now().toString(36)}-${++entries}`;
       let shown = false;
       return {
         html: (s) => {
-          settle(j.display({ 'text/html': s }, { raw: true, display_id: id, update: shown }));
+          void track(j.display({ 'text/html': s }, { raw: true, display_id: id, update: shown }));
           shown = true;
         },
       };

@@ -73,12 +73,32 @@ export function notebookHtml(request: ShowRequest): string {
   return request.fragment;
 }
 
+/** What a kernel gets from a value's display method: a MIME bundle, now or later. */
+export type KernelBundle = Record<string, string> | Promise<Record<string, string>>;
+
 /**
  * The MIME bundle for a kernel that asks the value itself how to draw it (Deno reads the method
- * at Symbol.for('Jupyter.display') on a cell's result).
+ * at Symbol.for('Jupyter.display') on a cell's result). Given synchronously: Deno 2.9 run
+ * headless loses a cell's value now and then when this method returns a promise, and also when
+ * the value is as large as the plotting bundle. So when the bundle is still due, it goes out
+ * first as a display of its own, and the value carries only the view.
  */
-export function jupyterBundle(request: ShowRequest, title: string): Record<string, string> {
+export function jupyterBundle(request: ShowRequest, title: string): KernelBundle {
+  const kernel = currentKernel();
+  if (kernel?.settled && !isLightNotebook() && request.needsPlotting && !plottingSent) {
+    plottingSent = true;
+    void kernel.html(plottingScript());
+    return { 'text/html': request.fragment, 'text/plain': title };
+  }
   return { 'text/html': notebookHtml(request), 'text/plain': title };
+}
+
+/**
+ * After show(): in Deno's kernel, a promise that settles once the display has been sent (a cell
+ * that awaits it keeps its output in a headless run); elsewhere nothing to wait for.
+ */
+export function displaysSent(): Promise<void> | undefined {
+  return currentKernel()?.settled?.();
 }
 
 export function showFragment(request: ShowRequest): string | undefined {
@@ -124,13 +144,13 @@ const JUPYTER_DISPLAY = Symbol.for('Jupyter.display');
  * Give `target` the display method Deno's kernel calls when `target` is a cell's value (not
  * enumerable: it shows in no listing, copy or JSON). Returns `target`.
  */
-export function displayableInKernel<T extends object>(target: T, bundle: () => Record<string, string>): T {
+export function displayableInKernel<T extends object>(target: T, bundle: () => KernelBundle): T {
   Object.defineProperty(target, JUPYTER_DISPLAY, { value: bundle, enumerable: false, configurable: true });
   return target;
 }
 
 /** The display method `displayableInKernel` gave `source`, if any. */
-export function kernelDisplayOf(source: object): (() => Record<string, string>) | undefined {
+export function kernelDisplayOf(source: object): (() => KernelBundle) | undefined {
   const f = (source as Record<symbol, unknown>)[JUPYTER_DISPLAY];
-  return typeof f === 'function' ? (f as () => Record<string, string>) : undefined;
+  return typeof f === 'function' ? (f as () => KernelBundle) : undefined;
 }

@@ -2,8 +2,8 @@
 // progress in place, and a light mode that leaves the plotting bundle out.
 export { insideNotebookKernel, currentKernel } from './kernel';
 export type { NotebookKernel, KernelEntry } from './kernel';
-export { showFragment, resendPlotting, savedFileName, VIEWS_FOLDER, lightNotebook, isLightNotebook, jupyterBundle, notebookHtml, displayableInKernel, kernelDisplayOf } from './display';
-export type { ShowRequest } from './display';
+export { showFragment, resendPlotting, savedFileName, VIEWS_FOLDER, lightNotebook, isLightNotebook, jupyterBundle, notebookHtml, displayableInKernel, kernelDisplayOf, displaysSent } from './display';
+export type { ShowRequest, KernelBundle } from './display';
 export { plottingScript } from './plotting';
 export { progressDisplay, progressHtml } from './progress';
 export type { ProgressDisplayOptions } from './progress';

@@ -13,10 +13,12 @@ export interface KernelEntry {
 
 export interface NotebookKernel {
   readonly name: 'tslab' | 'deno';
-  /** Show HTML as a new output of the running cell. */
-  html(s: string): void;
+  /** Show HTML as a new output of the running cell (Deno: settled once the kernel took it). */
+  html(s: string): void | Promise<void>;
   /** A new output that each html() call replaces. */
   entry(): KernelEntry;
+  /** Deno: settles when every display sent so far was taken (see deno-kernel.ts). */
+  settled?(): Promise<void>;
 }
 
 interface TslabModule {

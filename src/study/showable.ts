@@ -6,8 +6,11 @@ import { displayableInKernel, kernelDisplayOf } from '../notebook/display';
 export interface Showable {
   /** The view that draws this result. */
   view(): View;
-  /** Draw inline in the notebook kernel; outside it, write an HTML file and say where. */
-  show(): void;
+  /**
+   * Draw inline in the notebook kernel; outside it, write an HTML file and say where. In Deno's
+   * kernel, a promise that settles once the display was sent; elsewhere undefined.
+   */
+  show(): Promise<void> | undefined;
   /** A complete, self-contained, offline HTML page. */
   html(): string;
   /** Write the self-contained HTML page to `path`; returns the path. */

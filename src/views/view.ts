@@ -6,7 +6,7 @@ import * as fs from 'fs';
 import * as path from 'path';
 import { escapeHtml, scriptJson, slug } from './escape';
 import { VIEW_CSS } from './style';
-import { showFragment, plottingScript, savedFileName, jupyterBundle, displayableInKernel } from '../notebook/display';
+import { showFragment, plottingScript, savedFileName, jupyterBundle, displayableInKernel, displaysSent } from '../notebook/display';
 import type { ShowRequest } from '../notebook/display';
 
 export interface PlotSpec {
@@ -26,8 +26,12 @@ export interface View {
   svg(): string;
   /** Write html() to `file`; returns the absolute path. */
   save(file: string): string;
-  /** Inline in the notebook kernel; elsewhere a file in ./kinsort-views/ and one line saying where. */
-  show(): void;
+  /**
+   * Inline in the notebook kernel; elsewhere a file in ./kinsort-views/ and one line saying where.
+   * In Deno's kernel it returns a promise that settles once the display was sent (`await` it when
+   * the cell has nothing else to wait for); elsewhere undefined.
+   */
+  show(): Promise<void> | undefined;
 }
 
 export interface ViewParts {
@@ -96,8 +100,9 @@ export function makeView(parts: ViewParts): View {
       fs.writeFileSync(target, html());
       return target;
     },
-    show(): void {
+    show(): Promise<void> | undefined {
       showFragment(request());
+      return displaysSent();
     },
   };
   // Deno's notebook kernel draws a cell's value through this method.

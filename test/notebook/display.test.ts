@@ -105,7 +105,8 @@ describe("inside Deno's kernel", () => {
     expect(nb.insideNotebookKernel()).toBe(true);
     expect(nb.currentKernel()?.name).toBe('deno');
     const v = allViews(false);
-    views.screeView(v.projection).show();
+    // show() hands back the send, to await when a cell has nothing else to wait for.
+    await expect(views.screeView(v.projection).show()).resolves.toBeUndefined();
     const evidence = views.kEvidenceView(v.comparison);
     const own = (evidence as unknown as Record<symbol, () => Record<string, string>>)[Symbol.for('Jupyter.display')];
     expect(typeof own).toBe('function');
@@ -119,6 +120,21 @@ describe("inside Deno's kernel", () => {
     // Not enumerable: the value lists, copies and serialises as before.
     expect(Object.keys(evidence)).not.toContain(Symbol.for('Jupyter.display').toString());
     expect(JSON.stringify(Object.keys(evidence))).toBe(JSON.stringify(['kind', 'title', 'caption', 'fragment', 'html', 'svg', 'save', 'show']));
+  });
+
+  it('a cell value that needs the plotting bundle first sends the bundle as its own display, then a small value', async () => {
+    vi.resetModules();
+    const views = await import('../../src/views');
+    const evidence = views.kEvidenceView(allViews(false).comparison);
+    const own = (evidence as unknown as Record<symbol, () => Record<string, string>>)[Symbol.for('Jupyter.display')];
+    // Synchronous: a promise here makes Deno lose the value now and then.
+    const bundle = own.call(evidence);
+    expect(bundle).not.toBeInstanceOf(Promise);
+    expect(deno.calls.length).toBe(1);
+    expect(deno.calls[0].bundle['text/html'].startsWith('<script>window.__kinsortDefine=window.define')).toBe(true);
+    expect(deno.calls[0].bundle['text/html']).not.toContain('<figure');
+    expect(bundle['text/html'].startsWith('<figure class="kinsort-view"')).toBe(true);
+    expect(bundle['text/html'].length).toBeLessThan(500_000);
   });
 
   it('progress opens one display entry and updates it by display_id', async () => {
