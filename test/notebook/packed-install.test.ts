@@ -177,7 +177,7 @@ describe('the packed tarball installed into a fresh project', () => {
       path.join(project, 'in-deno.ipynb'),
       notebook({ name: 'deno', display_name: 'Deno', language: 'typescript' }, [
         `import { study, readCsvFile } from 'kinsort';\n${ANALYSIS(CSV)}console.log('sizes', seg.sizes.join(' / '));`,
-        `seg.silhouette().show();\nseg.cards()`,
+        `await seg.silhouette().show();\nseg.cards()`,
       ]),
     );
     const outputs = await execute('in-deno', { ...process.env, JUPYTER_PATH: jupyterPath, DENO_NO_UPDATE_CHECK: '1', DENO_NO_PROMPT: '1' });
