@@ -50,10 +50,28 @@ export function denoKernel(): NotebookKernel | undefined {
     entry: () => {
       const id = `kinsort-${Date.now().toString(36)}-${++entries}`;
       let shown = false;
+      // While one state is on its way, later ones wait and only the newest is sent. During
+      // synchronous work nothing is sent anyway, and a burst of queued updates at the end of a
+      // cell is what makes Deno drop messages (the plotting bundle among them).
+      let sending = false;
+      let next: string | undefined;
+      const send = (s: string): void => {
+        sending = true;
+        const update = shown;
+        shown = true;
+        void track(j.display({ 'text/html': s }, { raw: true, display_id: id, update })).then(() => {
+          sending = false;
+          if (next !== undefined) {
+            const newest = next;
+            next = undefined;
+            send(newest);
+          }
+        });
+      };
       return {
         html: (s) => {
-          void track(j.display({ 'text/html': s }, { raw: true, display_id: id, update: shown }));
-          shown = true;
+          if (sending) next = s;
+          else send(s);
         },
       };
     },

@@ -85,13 +85,15 @@ export type KernelBundle = Record<string, string> | Promise<Record<string, strin
  */
 export function jupyterBundle(request: ShowRequest, title: string): KernelBundle {
   const kernel = currentKernel();
-  if (kernel?.settled && !isLightNotebook() && request.needsPlotting && !plottingSent) {
+  if (kernel?.settled && bundleDue(request)) {
     plottingSent = true;
     void kernel.html(plottingScript());
     return { 'text/html': request.fragment, 'text/plain': title };
   }
   return { 'text/html': notebookHtml(request), 'text/plain': title };
 }
+
+const bundleDue = (request: ShowRequest): boolean => !isLightNotebook() && request.needsPlotting && !plottingSent;
 
 /**
  * After show(): in Deno's kernel, a promise that settles once the display has been sent (a cell

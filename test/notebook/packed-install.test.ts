@@ -60,6 +60,20 @@ function notebook(kernel: { name: string; display_name: string; language: string
   });
 }
 
+/**
+ * Deno 2.9's kernel run headless on an overloaded machine now and then loses a display message
+ * outright (see deno-notebook.test.ts): a run with no error that misses an expected output is
+ * repeated, three runs at most.
+ */
+async function executeComplete(file: string, env: NodeJS.ProcessEnv, complete: (outputs: Output[]) => boolean): Promise<Output[]> {
+  let outputs: Output[] = [];
+  for (let attempt = 1; attempt <= 3; attempt++) {
+    outputs = await execute(file, env);
+    if (outputs.some((o) => o.output_type === 'error') || complete(outputs)) break;
+  }
+  return outputs;
+}
+
 async function execute(file: string, env: NodeJS.ProcessEnv): Promise<Output[]> {
   const wait = ['--ExecutePreprocessor.iopub_timeout=120', '--ExecutePreprocessor.raise_on_iopub_timeout=True'];
   await run('/usr/bin/jupyter', ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', ...wait, '--output', `${file}-run`, `${file}.ipynb`], {
@@ -180,7 +194,8 @@ describe('the packed tarball installed into a fresh project', () => {
         `await seg.silhouette().show();\nseg.cards()`,
       ]),
     );
-    const outputs = await execute('in-deno', { ...process.env, JUPYTER_PATH: jupyterPath, DENO_NO_UPDATE_CHECK: '1', DENO_NO_PROMPT: '1' });
+    const denoEnv = { ...process.env, JUPYTER_PATH: jupyterPath, DENO_NO_UPDATE_CHECK: '1', DENO_NO_PROMPT: '1' };
+    const outputs = await executeComplete('in-deno', denoEnv, (o) => viewsIn(o).length === 2);
     expect(problems(outputs)).toEqual([]);
     expect(viewsIn(outputs)).toEqual(['silhouette', 'profile-cards']);
     const cjs = (await run('node', ['fit.cjs'], { cwd: project })).stdout.trim();
