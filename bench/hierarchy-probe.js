@@ -1,5 +1,5 @@
 // Probe for agglomerate() speed and memory, side by side with SciPy on the same data.
-//   npx tsc -p tsconfig.build.json && node bench/hierarchy-probe.js [ward8000|average5000|ward30000 ...] [--peer-all]
+//   npm run build && node bench/hierarchy-probe.js [ward8000|average5000|ward30000 ...] [--peer-all]
 // Times only the call (median of repeats), as wall-clock and as CPU time (steadier on a shared machine). The data are written to a temp file and the python twin
 // (bench/hierarchy_probe_scipy.py, Debian /usr/bin/python3) times scipy.cluster.hierarchy.linkage on
 // exactly those numbers. ward30000 runs in a child process so its peak RSS is its own.

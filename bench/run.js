@@ -3,7 +3,7 @@
 // kinsort bench: each case on the same data for kinsort and its peers (SciPy, scikit-learn,
 // ml-kmeans, ml-hclust), computation only, medians of several repeats, ratios against targets.
 //
-//   npx tsc -p tsconfig.build.json          # the bench uses dist/, it builds nothing itself
+//   npm run build                           # the bench uses dist/, it builds nothing itself
 //   node --expose-gc bench/run.js [--quick] [--json [FILE]] [--only ID,ID] [--no-python]
 //                                 [--no-scipy-memory] [--no-scaling]
 //
@@ -40,7 +40,7 @@ function parseArgs(argv) {
 
 function loadKinsort() {
   if (!fs.existsSync(path.join(DIST, 'index.js'))) {
-    throw new Error('dist/ is missing: build first with `npx tsc -p tsconfig.build.json`.');
+    throw new Error('dist/ is missing: build first with `npm run build`.');
   }
   return require(DIST);
 }

@@ -82,7 +82,8 @@ export function compiledOnce(bytes: () => Uint8Array): () => WebAssembly.Module 
   return () => {
     if (compiled === undefined) {
       try {
-        const b = bytes();
+        // Built from number arrays, so never shared memory (the type only says "could be").
+        const b = bytes() as Uint8Array<ArrayBuffer>;
         compiled = typeof WebAssembly === 'object' && WebAssembly.validate(b) ? new WebAssembly.Module(b) : null;
       } catch {
         compiled = null;

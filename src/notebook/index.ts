@@ -1,7 +1,9 @@
-// The display adapter: inline in the notebook kernel, pages on disk elsewhere, progress in place.
-export { insideNotebookKernel } from './kernel';
-export { showFragment, resendPlotting, savedFileName, VIEWS_FOLDER } from './display';
-export type { ShowRequest } from './display';
+// The display adapter: inline in a notebook kernel (tslab or Deno), pages on disk elsewhere,
+// progress in place, and a light mode that leaves the plotting bundle out.
+export { insideNotebookKernel, currentKernel } from './kernel';
+export type { NotebookKernel, KernelEntry } from './kernel';
+export { showFragment, resendPlotting, savedFileName, VIEWS_FOLDER, lightNotebook, isLightNotebook, jupyterBundle, notebookHtml, displayableInKernel, kernelDisplayOf, displaysSent } from './display';
+export type { ShowRequest, KernelBundle } from './display';
 export { plottingScript } from './plotting';
 export { progressDisplay, progressHtml } from './progress';
 export type { ProgressDisplayOptions } from './progress';

@@ -5,7 +5,8 @@
 import { saveText } from '../core/save-file';
 import { escapeHtml, scriptJson, slug } from './escape';
 import { VIEW_CSS } from './style';
-import { showFragment, plottingScript, savedFileName } from '../notebook/display';
+import { showFragment, plottingScript, savedFileName, jupyterBundle, displayableInKernel, displaysSent } from '../notebook/display';
+import type { ShowRequest } from '../notebook/display';
 
 export interface PlotSpec {
   readonly data: readonly object[];
@@ -24,8 +25,12 @@ export interface View {
   svg(): string;
   /** Write html() to `file`; returns the absolute path. */
   save(file: string): string;
-  /** Inline in the notebook kernel; elsewhere a file in ./kinsort-views/ and one line saying where. */
-  show(): void;
+  /**
+   * Inline in the notebook kernel; elsewhere a file in ./kinsort-views/ and one line saying where.
+   * In Deno's kernel it returns a promise that settles once the display was sent (`await` it when
+   * the cell has nothing else to wait for); elsewhere undefined.
+   */
+  show(): Promise<void> | undefined;
 }
 
 export interface ViewParts {
@@ -56,8 +61,8 @@ export function makeView(parts: ViewParts): View {
   const notes = parts.notes?.length
     ? `<ul class="ks-notes">${parts.notes.map((n) => `<li>${escapeHtml(n)}</li>`).join('')}</ul>`
     : '';
-  const fragment = (): string => {
-    const live = parts.plot
+  const figure = (withLive: boolean): string => {
+    const live = parts.plot && withLive
       ? `<div class="ks-live" hidden></div>` +
         `<script type="application/json" class="ks-spec">${scriptJson({ ...parts.plot, config: PLOT_CONFIG })}</script>` +
         `<script>${DRAW_SCRIPT.replace('__ID__', JSON.stringify(id))}</script>`
@@ -69,11 +74,19 @@ export function makeView(parts: ViewParts): View {
       `<div class="ks-static">${parts.still}</div>${live}${notes}${parts.after ?? ''}</figure>`
     );
   };
+  const fragment = (): string => figure(true);
   const html = (): string =>
     `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width">` +
     `<title>${escapeHtml(parts.title)}</title>${parts.plot ? plottingScript() : ''}</head>` +
     `<body style="margin:24px;background:#fbfbfc">${fragment()}</body></html>`;
-  return {
+  const request = (): ShowRequest => ({
+    fragment: fragment(),
+    still: () => figure(false),
+    needsPlotting: parts.plot !== undefined,
+    fileName: savedFileName(parts.title),
+    page: html,
+  });
+  const view: View = {
     kind: parts.kind,
     title: parts.title,
     caption: parts.caption,
@@ -83,13 +96,11 @@ export function makeView(parts: ViewParts): View {
     save(file: string): string {
       return saveText(file, html(), `the view "${parts.title}"`);
     },
-    show(): void {
-      showFragment({
-        fragment: fragment(),
-        needsPlotting: parts.plot !== undefined,
-        fileName: savedFileName(parts.title),
-        page: html,
-      });
+    show(): Promise<void> | undefined {
+      showFragment(request());
+      return displaysSent();
     },
   };
+  // Deno's notebook kernel draws a cell's value through this method.
+  return displayableInKernel(view, () => jupyterBundle(request(), parts.title));
 }

@@ -60,6 +60,124 @@ describe('inside the notebook kernel', () => {
   });
 });
 
+describe('progress text', () => {
+  it('says the title once when the task has the same name (no "k-means restarts · k-means restarts")', async () => {
+    const { progressHtml } = await import('../../src/notebook');
+    const h = progressHtml('k-means restarts', { task: 'k-means restarts', done: 5, total: 5, detail: 'k = 5' });
+    expect(h.split('k-means restarts').length - 1).toBe(1);
+    expect(h).toContain('k = 5');
+    const written: string[] = [];
+    const p = progressDisplay('K-means restarts', { every: 0, stream: { isTTY: true, write: (s: string) => written.push(s) } });
+    p({ task: 'k-means restarts', done: 1, total: 1, detail: 'k = 5' });
+    expect(written[0].toLowerCase().split('k-means restarts').length - 1).toBe(1);
+    // Different words all stay.
+    expect(progressHtml('Comparing k', { task: 'k-means restarts', done: 1, total: 2, detail: 'k = 3' })).toMatch(/Comparing k<\/b> · k-means restarts · k = 3/);
+  });
+});
+
+// A stand-in for Deno's kernel: Deno.jupyter.display records each call and its options.
+function fakeDeno() {
+  const calls: { bundle: Record<string, string>; options: { raw?: boolean; update?: boolean; display_id?: string } }[] = [];
+  const jupyter = {
+    display: (bundle: Record<string, string>, options = {}) => {
+      calls.push({ bundle, options });
+      return Promise.resolve();
+    },
+  };
+  return { calls, jupyter };
+}
+
+describe("inside Deno's kernel", () => {
+  let deno: ReturnType<typeof fakeDeno>;
+  beforeEach(() => {
+    deno = fakeDeno();
+    (globalThis as Record<string, unknown>).Deno = { jupyter: deno.jupyter };
+  });
+  afterEach(() => {
+    delete (globalThis as Record<string, unknown>).Deno;
+    delete process.env.KINSORT_LIGHT;
+  });
+
+  it('show() displays raw HTML, the bundle with the first chart only; a view as a cell value draws through Symbol.for("Jupyter.display")', async () => {
+    vi.resetModules();
+    const views = await import('../../src/views');
+    const nb = await import('../../src/notebook');
+    expect(nb.insideNotebookKernel()).toBe(true);
+    expect(nb.currentKernel()?.name).toBe('deno');
+    const v = allViews(false);
+    // show() hands back the send, to await when a cell has nothing else to wait for.
+    await expect(views.screeView(v.projection).show()).resolves.toBeUndefined();
+    const evidence = views.kEvidenceView(v.comparison);
+    const own = (evidence as unknown as Record<symbol, () => Record<string, string>>)[Symbol.for('Jupyter.display')];
+    expect(typeof own).toBe('function');
+    const bundle = own.call(evidence);
+    expect(deno.calls.length).toBe(1);
+    expect(deno.calls[0].options.raw).toBe(true);
+    expect(deno.calls[0].bundle['text/html']).toContain('window.__kinsortDefine=window.define');
+    expect(bundle['text/html']).toContain('data-view="k-evidence"');
+    expect(bundle['text/html']).not.toContain('window.__kinsortDefine');
+    expect(bundle['text/plain']).toBe(evidence.title);
+    // Not enumerable: the value lists, copies and serialises as before.
+    expect(Object.keys(evidence)).not.toContain(Symbol.for('Jupyter.display').toString());
+    expect(JSON.stringify(Object.keys(evidence))).toBe(JSON.stringify(['kind', 'title', 'caption', 'fragment', 'html', 'svg', 'save', 'show']));
+  });
+
+  it('a cell value that needs the plotting bundle first sends the bundle as its own display, then a small value', async () => {
+    vi.resetModules();
+    const views = await import('../../src/views');
+    const evidence = views.kEvidenceView(allViews(false).comparison);
+    const own = (evidence as unknown as Record<symbol, () => Record<string, string>>)[Symbol.for('Jupyter.display')];
+    // Synchronous: a promise here makes Deno lose the value now and then.
+    const bundle = own.call(evidence);
+    expect(bundle).not.toBeInstanceOf(Promise);
+    expect(deno.calls.length).toBe(1);
+    expect(deno.calls[0].bundle['text/html'].startsWith('<script>window.__kinsortDefine=window.define')).toBe(true);
+    expect(deno.calls[0].bundle['text/html']).not.toContain('<figure');
+    expect(bundle['text/html'].startsWith('<figure class="kinsort-view"')).toBe(true);
+    expect(bundle['text/html'].length).toBeLessThan(500_000);
+  });
+
+  it('progress opens one display entry and updates it by display_id', async () => {
+    vi.resetModules();
+    const nb = await import('../../src/notebook');
+    const p = nb.progressDisplay('Comparing k', { every: 0 });
+    for (let done = 1; done <= 3; done++) p({ task: 'k-means restarts', done, total: 3 });
+    // The first state goes out at once; the later ones wait for it and only the newest follows.
+    expect(deno.calls.length).toBe(1);
+    await nb.currentKernel()!.settled!();
+    expect(deno.calls.map((c) => c.options.update)).toEqual([false, true]);
+    const ids = new Set(deno.calls.map((c) => c.options.display_id));
+    expect(ids.size).toBe(1);
+    expect([...ids][0]).toMatch(/^kinsort-/);
+    expect(deno.calls[1].bundle['text/html']).toContain('3 of 3 · done');
+  });
+
+  it('light mode: still pictures only, no plotting bundle and no live chart (setting or KINSORT_LIGHT=1)', async () => {
+    for (const how of ['call', 'env'] as const) {
+      vi.resetModules();
+      deno.calls.length = 0;
+      const views = await import('../../src/views');
+      const nb = await import('../../src/notebook');
+      if (how === 'call') expect(nb.lightNotebook()).toBe(true);
+      else process.env.KINSORT_LIGHT = '1';
+      expect(nb.isLightNotebook()).toBe(true);
+      const v = allViews(false);
+      views.screeView(v.projection).show();
+      views.profileCardsView(v.profiles).show();
+      const sent = deno.calls.map((c) => c.bundle['text/html']);
+      expect(sent.length).toBe(2);
+      for (const h of sent) {
+        expect(h).not.toContain('window.__kinsortDefine');
+        expect(h).not.toContain('ks-spec');
+        expect(h).toMatch(/<div class="ks-static"><svg|<div class="ks-static">.*ks-card/s);
+        expect(h.length).toBeLessThan(100_000);
+      }
+      nb.lightNotebook(false);
+      expect(nb.isLightNotebook()).toBe(false);
+    }
+  });
+});
+
 describe('outside the kernel', () => {
   let dir: string;
   let cwd: string;
@@ -73,18 +191,36 @@ describe('outside the kernel', () => {
     fs.rmSync(dir, { recursive: true, force: true });
   });
 
-  it('show() writes a page into kinsort-views/ and prints one line saying where', () => {
+  it('show() writes a page into kinsort-views/ named by its content, the plotting bundle once beside it, and one line saying where', () => {
     const log = vi.spyOn(console, 'log').mockImplementation(() => undefined);
     const v = allViews(false);
-    screeView(v.projection).show();
+    const first = screeView(v.projection);
+    first.show();
     profileCardsView(v.profiles).show();
     expect(log).toHaveBeenCalledTimes(2);
-    const files = fs.readdirSync(path.join(dir, 'kinsort-views'));
-    expect(files.length).toBe(2);
-    expect(files.some((f) => /^\d\d-variance-explained-by-each-principal-component\.html$/.test(f))).toBe(true);
-    expect(String(log.mock.calls[0][0])).toContain(path.join(dir, 'kinsort-views'));
-    const page = fs.readFileSync(path.join(dir, 'kinsort-views', files.find((f) => f.includes('variance'))!), 'utf8');
-    expect(page).toContain('window.__kinsortDefine');
+    const folder = path.join(dir, 'kinsort-views');
+    const files = fs.readdirSync(folder).sort();
+    expect(files.length).toBe(3);
+    const scree = files.find((f) => /^variance-explained-by-each-principal-component-[0-9a-f]{10}\.html$/.test(f));
+    expect(scree).toBeDefined();
+    const bundle = files.find((f) => /^kinsort-plotting-\d+\.\d+\.\d+\.js$/.test(f))!;
+    expect(bundle).toBeDefined();
+    expect(String(log.mock.calls[0][0])).toContain(folder);
+    // The page loads the shared bundle from beside itself instead of carrying 5 MB of its own.
+    const page = fs.readFileSync(path.join(folder, scree!), 'utf8');
+    expect(page).toContain(`<script src="${bundle}"></script>`);
+    expect(page).not.toContain('window.__kinsortDefine');
+    expect(page.length).toBeLessThan(200_000);
+    const script = fs.readFileSync(path.join(folder, bundle), 'utf8');
+    expect(script.startsWith('window.__kinsortDefine=window.define;')).toBe(true);
+    expect(script.length).toBeGreaterThan(1_000_000);
+    // The same view shown again is the same file (same bytes); another view with the same title
+    // is a new file, never written over the first.
+    first.show();
+    expect(fs.readdirSync(folder).length).toBe(3);
+    screeView(v.projection).show();
+    expect(fs.readdirSync(folder).filter((f) => f.startsWith('variance-explained')).length).toBe(2);
+    expect(fs.readFileSync(path.join(folder, scree!), 'utf8')).toBe(page);
     log.mockRestore();
   });
 

@@ -21,7 +21,7 @@ let browser: Browser;
 
 beforeAll(() => {
   if (!fs.existsSync(path.join(repo, 'dist/index.js'))) {
-    execFileSync('npx', ['tsc', '-p', 'tsconfig.build.json'], { cwd: repo, env, stdio: 'inherit' });
+    execFileSync('npm', ['run', 'build'], { cwd: repo, env, stdio: 'inherit' });
   }
   execFileSync('npx', ['tslab', 'install', '--python=/usr/bin/python3'], { cwd: repo, env, stdio: 'ignore' });
   execFileSync('/usr/bin/jupyter', ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', '--output-dir', out, 'views-check.ipynb'], {
