@@ -13,7 +13,7 @@ import { LINKAGE_METHODS } from '../methods/hierarchy';
 import { study } from '../study/study';
 import type { Segmentation } from '../study/segmentation';
 import type { ProgressCallback } from '../core/progress';
-import { loadDefinition } from '../segments/definition-handle';
+import { loadDefinition } from '../study/definition-handle';
 import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
 import { DIALECT_NAMES } from '../engines/dialect';
 import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';

@@ -1,8 +1,6 @@
 // Public surface of segment definitions, assigning new rows and SQL scoring.
 export { buildDefinition } from './definition-build';
 export type { BuildDefinitionInput, DefinitionSegmentInput } from './definition-build';
-export { loadDefinition, definitionHandle } from './definition-handle';
-export type { DefinitionHandle, DriftResult, ScoredOutcome } from './definition-handle';
 export { writeDefinitionJson } from './definition-json';
 export { DEFINITION_FORMAT_VERSION, DEFINITION_KIND, FAR_PERCENTILE } from './definition-types';
 export type { SegmentDefinition, DefinitionSegment, AssignmentRule, DefinitionMetric, DefinitionMethodName } from './definition-types';

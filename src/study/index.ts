@@ -10,3 +10,7 @@ export type { SegmentRulesOptions } from './segment-rules';
 export type { Showable } from './showable';
 export { ruleAgreement, settleKmeans, SETTLE_MAX_STEPS } from './reproduce';
 export type { RuleAgreement, Settled } from './reproduce';
+// The definition handle: load, assign, drift, SQL and views of a definition (it shows views, so it
+// lives in the fluent layer, above views/).
+export { loadDefinition, definitionHandle } from './definition-handle';
+export type { DefinitionHandle, DriftResult, ScoredOutcome } from './definition-handle';

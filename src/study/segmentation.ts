@@ -16,7 +16,7 @@ import { project, type Projection } from '../methods/project';
 import type { Dissimilarity } from '../measure/condensed';
 import { profileSegments, type SegmentProfile } from '../segments/profile';
 import { buildDefinition } from '../segments/definition-build';
-import { definitionHandle, type DefinitionHandle } from '../segments/definition-handle';
+import { definitionHandle, type DefinitionHandle } from './definition-handle';
 import { DEFINITION_METRICS, type DefinitionMethodName, type DefinitionMetric, type TrainingLabels } from '../segments/definition-types';
 import { insideNotebookKernel } from '../notebook';
 import { ruleAgreement, type RuleAgreement } from './reproduce';

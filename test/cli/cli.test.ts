@@ -9,7 +9,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { readCsvFile } from '../../src/table';
 import { prepareTable } from '../../src/prepare';
 import { kmeans } from '../../src/methods/partition';
-import { loadDefinition } from '../../src/segments/definition-exports';
+import { loadDefinition } from '../../src/study/definition-handle';
 import { riders, toCsv } from '../segments/definition-data';
 
 const root = resolve(__dirname, '../..');

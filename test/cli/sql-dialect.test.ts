@@ -5,7 +5,7 @@ import { existsSync, mkdtempSync, writeFileSync } from 'fs';
 import { tmpdir } from 'os';
 import { join, resolve } from 'path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { loadDefinition } from '../../src/segments/definition-exports';
+import { loadDefinition } from '../../src/study/definition-handle';
 import { riders, toCsv } from '../segments/definition-data';
 
 const root = resolve(__dirname, '../..');

@@ -7,7 +7,7 @@ import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
 import { promisify } from 'util';
-import { loadDefinition } from '../../src/segments';
+import { loadDefinition } from '../../src/study/definition-handle';
 
 const run = promisify(execFile);
 const root = path.join(__dirname, '..', '..');

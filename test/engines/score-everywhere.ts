@@ -2,7 +2,7 @@
 // with assign's, row by row: the same segment (or NULL where assign refuses the row) and the same
 // distance to 1e-9 relative.
 import { expect } from 'vitest';
-import type { DefinitionHandle } from '../../src/segments/definition-exports';
+import type { DefinitionHandle } from '../../src/study/definition-handle';
 import type { TestEngine } from './adapters';
 
 export type TextRows = readonly (readonly (string | null)[])[];

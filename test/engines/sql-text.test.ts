@@ -4,7 +4,8 @@
 import { describe, expect, it } from 'vitest';
 import { kmeans } from '../../src/methods/partition';
 import { prepareTable } from '../../src/prepare';
-import { buildDefinition, loadDefinition } from '../../src/segments/definition-exports';
+import { buildDefinition } from '../../src/segments/definition-exports';
+import { loadDefinition } from '../../src/study/definition-handle';
 import type { SegmentDefinition } from '../../src/segments/definition-types';
 import { definitionToSql, SQL_MAX_SEGMENTS } from '../../src/segments/sql';
 import { dialectNamed } from '../../src/engines/dialects';

@@ -1,6 +1,6 @@
 // Loader messages read as sentences: a key that is absent is called missing.
 import { describe, expect, it } from 'vitest';
-import { loadDefinition } from '../../src/segments/definition-handle';
+import { loadDefinition } from '../../src/study/definition-handle';
 
 describe('loadDefinition messages', () => {
   it('says the "kind" key is missing when a JSON object is not a definition', () => {

@@ -3,7 +3,8 @@
 import { describe, expect, it } from 'vitest';
 import Database from 'better-sqlite3';
 import { prepareTable } from '../../src/prepare';
-import { buildDefinition, loadDefinition, writeDefinitionJson } from '../../src/segments/definition-exports';
+import { buildDefinition, writeDefinitionJson } from '../../src/segments/definition-exports';
+import { loadDefinition } from '../../src/study/definition-handle';
 import { decileCuts, stabilityIndex } from '../../src/segments/training-distributions';
 import { KinsortError } from '../../src/core/errors';
 

@@ -10,8 +10,9 @@ import { DuckDBConnection, DuckDBInstance } from '@duckdb/node-api';
 import { prepareTable } from '../../src/prepare';
 import type { PrepareOptions } from '../../src/prepare';
 import { kmeans, kmedoids } from '../../src/methods/partition';
-import { buildDefinition, loadDefinition } from '../../src/segments/definition-exports';
-import type { DefinitionHandle } from '../../src/segments/definition-exports';
+import { buildDefinition } from '../../src/segments/definition-exports';
+import { loadDefinition } from '../../src/study/definition-handle';
+import type { DefinitionHandle } from '../../src/study/definition-handle';
 import { dialectNamed } from '../../src/engines/dialects';
 
 const { doubleLiteral, quoteIdentifier, quoteString } = dialectNamed('duckdb');

@@ -9,7 +9,7 @@ import { kmeans, kmedoids } from '../../src/methods/partition';
 import { agglomerate } from '../../src/methods/hierarchy';
 import { silhouette } from '../../src/assess/silhouette';
 import { dissimilarity } from '../../src/measure/dissimilarity';
-import { loadDefinition } from '../../src/segments';
+import { loadDefinition } from '../../src/study/definition-handle';
 
 function riders(n: number, seed = 1) {
   const r = createRandom(seed);
