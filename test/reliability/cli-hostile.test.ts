@@ -105,7 +105,8 @@ describe('ids with line breaks and terminal escapes are escaped when echoed', ()
     expect(assign.stdout).toContain('no segment for x\\e[2J\\nkinsort fit: forged line');
     const dup = riders(10, 5).map((r, i) => ({ ...r, rider: i < 2 ? evil : r.rider }));
     writeFileSync(at('evil-dup.csv'), toCsv(dup));
-    expectOneLineRefusal(kinsort('fit', at('evil-dup.csv'), ...USE, '--out', at('d.json')), 'x\\e[2J');
+    // Escaped either by the terminal escaper (\e) or inside the message's quoted id (\u001b): never raw.
+    expectOneLineRefusal(kinsort('fit', at('evil-dup.csv'), ...USE, '--out', at('d.json')), /x\\(e|u001b)\[2J/);
   });
 });
 

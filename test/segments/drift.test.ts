@@ -56,7 +56,7 @@ describe('drift of new rows, worked by hand', () => {
     db.exec('CREATE TABLE fresh (id TEXT, x REAL)');
     const insert = db.prepare('INSERT INTO fresh VALUES (?, ?)');
     for (const r of fresh) insert.run(r.id, r.x);
-    const scored = db.prepare(handle.toSql({ table: 'fresh' })).all() as { id: string; segment: number; far: number }[];
+    const scored = db.prepare(handle.toSql({ table: 'fresh', dialect: 'sqlite' })).all() as { id: string; segment: number; far: number }[];
     db.close();
     const fromSql = handle.drift(fresh, { scored });
     const inMemory = handle.assign(fresh).drift();

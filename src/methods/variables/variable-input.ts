@@ -1,6 +1,7 @@
 // What a variable tree reads: numeric rows with column names, or a table whose columns are
 // numeric, binary (two levels, coded 0/1) or ordinal (level ranks). Unordered categorical and text
 // columns are refused with the reason: a correlation needs an order or exactly two levels.
+import { cellNumber } from '../../table/cells';
 import { KinsortError } from '../../core/errors';
 import { createMatrix, isMatrix, toMatrix, type Matrix, type RowsInput } from '../../core/matrix';
 import { isTable, type Table, type TableColumn } from '../../table/types';
@@ -43,7 +44,9 @@ function fromTable(table: Table, columns: readonly string[] | undefined, where: 
     let code: (v: number | string) => number;
     if (type === 'numeric') {
       entered.push('numeric');
-      code = (v) => (typeof v === 'number' ? v : NaN);
+      // Table cells are text as given; the text rule (table/cells.ts) reads the number.
+      const mark = table.decimalMark ?? '.';
+      code = (v) => cellNumber(v, mark) ?? NaN;
     } else if (type === 'binary') {
       const levels = [...new Set(c.values.filter((v) => v !== null).map(String))].sort();
       entered.push(`binary: "${levels[0]}" = 0, "${levels[1]}" = 1`);
