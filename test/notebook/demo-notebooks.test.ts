@@ -95,9 +95,9 @@ describe('the demo notebooks in the tslab kernel', () => {
     expect(bad.map((o) => `${o.ename ?? o.name}: ${o.evalue ?? text(o.text).slice(0, 300)}`)).toEqual([]);
   });
 
-  it('01: shows the k evidence, projection, silhouette and cards inline, the bundle once, and saves the definition', () => {
+  it('01: shows the variable tree, the k evidence, projection, silhouette, cards and rules inline, the bundle once, and saves the definition', () => {
     const kinds = outputsOf('01-pass-holder-segments').flatMap((o) => [...html(o).matchAll(/data-view="([^"]+)"/g)].map((m) => m[1]));
-    expect(kinds).toEqual(['k-evidence', 'projection', 'silhouette', 'profile-cards', 'profile-cards']);
+    expect(kinds).toEqual(['dendrogram', 'variable-groups', 'k-evidence', 'projection', 'silhouette', 'profile-cards', 'profile-cards', 'segment-rules']);
     const bundles = outputsOf('01-pass-holder-segments').map((o) => html(o).split('window.__kinsortDefine=window.define').length - 1);
     expect(bundles.reduce((a, b) => a + b, 0)).toBe(1);
     const s = streams('01-pass-holder-segments');
@@ -125,6 +125,10 @@ describe('the demo notebooks in the tslab kernel', () => {
     expect(s).toMatch(/unseen level: PH-\d+ has fare_type = "youth"/);
     expect(s).toMatch(/missing avg_trip_km: \d+ filled with the training median/);
     expect(s).toContain('Same segment for 300 of 300 holders');
+    expect(s).toContain('SQLite: same segment for 300 of 300 holders.');
+    const kinds = outputsOf('03-scoring-next-month').flatMap((o) => [...html(o).matchAll(/data-view="([^"]+)"/g)].map((m) => m[1]));
+    expect(kinds.filter((k) => k === 'drift').length).toBe(2);
+    expect(kinds.length).toBeGreaterThanOrEqual(3);
   });
 
   it('03 run on its own (no saved definition): fits the same recipe in place, and SQL still agrees', () => {
