@@ -10,10 +10,27 @@ export default tseslint.config(
   {
     languageOptions: {
       globals: {
-        process: 'readonly', console: 'readonly', require: 'readonly', module: 'writable', __dirname: 'readonly',
-        Buffer: 'readonly', setTimeout: 'readonly', clearTimeout: 'readonly', setImmediate: 'readonly',
-        URL: 'readonly', TextDecoder: 'readonly', TextEncoder: 'readonly', performance: 'readonly', globalThis: 'readonly',
-        WebAssembly: 'readonly', queueMicrotask: 'readonly', structuredClone: 'readonly', SharedArrayBuffer: 'readonly', Atomics: 'readonly',
+        process: 'readonly',
+        console: 'readonly',
+        require: 'readonly',
+        module: 'writable',
+        __dirname: 'readonly',
+        Buffer: 'readonly',
+        setTimeout: 'readonly',
+        clearTimeout: 'readonly',
+        setImmediate: 'readonly',
+        URL: 'readonly',
+        TextDecoder: 'readonly',
+        TextEncoder: 'readonly',
+        performance: 'readonly',
+        globalThis: 'readonly',
+        WebAssembly: 'readonly',
+        global: 'readonly',
+        __filename: 'readonly',
+        queueMicrotask: 'readonly',
+        structuredClone: 'readonly',
+        SharedArrayBuffer: 'readonly',
+        Atomics: 'readonly',
       },
     },
     rules: {
@@ -23,7 +40,16 @@ export default tseslint.config(
       '@typescript-eslint/no-require-imports': 'off',
       // Deliberate `as never` / any at a few boundaries (kernels, plotting) are named where they are.
       '@typescript-eslint/no-explicit-any': 'off',
+      // Escaping code and its tests match control characters on purpose (terminal, SQL, CSV rules).
+      'no-control-regex': 'off',
+      // `cond ? expect(a)… : expect(b)…` in tests is a statement on purpose.
+      '@typescript-eslint/no-unused-expressions': ['error', { allowTernary: true }],
     },
+  },
+  {
+    // Tests write numbers beyond double precision on purpose (ids and cells that must stay text).
+    files: ['test/**/*.ts'],
+    rules: { 'no-loss-of-precision': 'off' },
   },
   {
     // The core: one seeded generator (src/random.ts), never Math.random().

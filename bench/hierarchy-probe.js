@@ -47,7 +47,12 @@ function timeOurs(data, n, d, method, repeats) {
     const c = process.cpuUsage(c0);
     cpu.push((c.user + c.system) / 1e6);
   }
-  return { seconds: median(times), cpuSeconds: median(cpu), top: tree.merges[n - 2].height, maxRssMB: process.resourceUsage().maxRSS / 1024 };
+  return {
+    seconds: median(times),
+    cpuSeconds: median(cpu),
+    top: tree.merges[n - 2].height,
+    maxRssMB: process.resourceUsage().maxRSS / 1024,
+  };
 }
 
 if (process.argv[2] === '--child') {
@@ -69,15 +74,21 @@ for (const name of chosen) {
   const file = join(tmpdir(), `kinsort-hierarchy-${name}.f64`);
   writeFileSync(file, Buffer.from(data.buffer));
   const ours = c.child
-    ? JSON.parse(execFileSync(process.execPath, [__filename, '--child', file, c.n, c.d, c.method], { encoding: 'utf8', maxBuffer: 1 << 20 }))
+    ? JSON.parse(
+        execFileSync(process.execPath, [__filename, '--child', file, c.n, c.d, c.method], { encoding: 'utf8', maxBuffer: 1 << 20 }),
+      )
     : timeOurs(data, c.n, c.d, c.method, c.repeats);
   if (c.peerOptional && !peerAll) {
-    console.log(`${name.padEnd(12)} wall: kinsort ${ours.seconds.toFixed(3)} s  cpu: kinsort ${ours.cpuSeconds.toFixed(3)} s  ` +
-      `kinsort peak RSS ${ours.maxRssMB.toFixed(0)} MB  (SciPy skipped; --peer-all runs it)`);
+    console.log(
+      `${name.padEnd(12)} wall: kinsort ${ours.seconds.toFixed(3)} s  cpu: kinsort ${ours.cpuSeconds.toFixed(3)} s  ` +
+        `kinsort peak RSS ${ours.maxRssMB.toFixed(0)} MB  (SciPy skipped; --peer-all runs it)`,
+    );
     continue;
   }
   const peer = JSON.parse(
-    execFileSync('/usr/bin/python3', [join(__dirname, 'hierarchy_probe_scipy.py'), file, c.n, c.d, c.method, c.repeats], { encoding: 'utf8' }),
+    execFileSync('/usr/bin/python3', [join(__dirname, 'hierarchy_probe_scipy.py'), file, c.n, c.d, c.method, c.repeats], {
+      encoding: 'utf8',
+    }),
   );
   const ratio = ours.seconds / peer.seconds;
   const cpuRatio = ours.cpuSeconds / peer.cpuSeconds;

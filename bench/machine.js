@@ -5,8 +5,11 @@ const os = require('os');
 
 function cpuModel() {
   try {
-    const line = fs.readFileSync('/proc/cpuinfo', 'utf8').split('\n').find((l) => l.startsWith('model name'));
-    return line ? line.split(':')[1].trim() : os.cpus()[0]?.model ?? 'unknown';
+    const line = fs
+      .readFileSync('/proc/cpuinfo', 'utf8')
+      .split('\n')
+      .find((l) => l.startsWith('model name'));
+    return line ? line.split(':')[1].trim() : (os.cpus()[0]?.model ?? 'unknown');
   } catch {
     return os.cpus()[0]?.model ?? 'unknown';
   }

@@ -29,7 +29,9 @@ function toMarkdown(lines) {
       `Run of ${machine.date} (${machine.mode}); load average at start ${machine.loadAverage.map((x) => x.toFixed(1)).join(' ')}.`,
       '',
       `- ${machine.cpus} cores, ${machine.cpuModel}, ${machine.memoryGB} GB memory (${machine.availableMB} MB available at start)`,
-      `- node ${machine.node}; npm peers ${Object.entries(machine.npmPeers).map(([k, v]) => `${k} ${v}`).join(', ')}`,
+      `- node ${machine.node}; npm peers ${Object.entries(machine.npmPeers)
+        .map(([k, v]) => `${k} ${v}`)
+        .join(', ')}`,
       py
         ? `- python ${py.python}, numpy ${py.numpy}, SciPy ${py.scipy}, scikit-learn ${py.sklearn}; BLAS ${py.blasKernel}` +
             (py.threadpools ? `; thread pools ${py.threadpools.map((p) => `${p.internal_api} × ${p.num_threads}`).join(', ')}` : '')
@@ -79,7 +81,11 @@ if (require.main === module) {
     process.stderr.write('usage: node bench/markdown.js RESULTS.jsonl\n');
     process.exit(2);
   }
-  const lines = fs.readFileSync(file, 'utf8').trim().split('\n').map((l) => JSON.parse(l));
+  const lines = fs
+    .readFileSync(file, 'utf8')
+    .trim()
+    .split('\n')
+    .map((l) => JSON.parse(l));
   process.stdout.write(toMarkdown(lines));
 }
 

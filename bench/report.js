@@ -26,7 +26,11 @@ function formatMs(ms) {
 
 function table(headers, rows) {
   const widths = headers.map((h, c) => Math.max(h.length, ...rows.map((row) => row[c].length)));
-  const line = (cells) => cells.map((cell, c) => cell.padEnd(widths[c])).join(' | ').trimEnd();
+  const line = (cells) =>
+    cells
+      .map((cell, c) => cell.padEnd(widths[c]))
+      .join(' | ')
+      .trimEnd();
   return [line(headers), widths.map((w) => '-'.repeat(w)).join('-|-'), ...rows.map(line)].join('\n');
 }
 
@@ -63,7 +67,9 @@ function machineText(m) {
         `${m.python.sklearn}; BLAS ${m.python.blasKernel}` +
         (m.python.threadpools ? `; thread pools: ${m.python.threadpools.map((p) => `${p.internal_api} ${p.num_threads}`).join(', ')}` : '')
       : `python peer: not run (${m.pythonMissing})`,
-    `npm peers: ${Object.entries(m.npmPeers).map(([k, v]) => `${k} ${v}`).join(', ')}`,
+    `npm peers: ${Object.entries(m.npmPeers)
+      .map(([k, v]) => `${k} ${v}`)
+      .join(', ')}`,
     `mode: ${m.mode}; load average at start ${m.loadAverage.map((x) => x.toFixed(2)).join(' ')}`,
   ];
   return lines.join('\n');

@@ -33,7 +33,8 @@ function parseArgs(argv) {
     else if (a === '--no-scaling') args.scaling = false;
     else if (a === '--only') args.only = new Set((argv[++i] ?? '').split(','));
     else if (a === '--json') args.json = argv[i + 1] && !argv[i + 1].startsWith('--') ? argv[++i] : '-';
-    else throw new Error(`unknown argument ${a}; allowed: --quick, --json [FILE], --only IDS, --no-python, --no-scipy-memory, --no-scaling`);
+    else
+      throw new Error(`unknown argument ${a}; allowed: --quick, --json [FILE], --only IDS, --no-python, --no-scipy-memory, --no-scaling`);
   }
   return args;
 }
@@ -101,7 +102,11 @@ async function main() {
       progress(`${c.id} ${set.n} × ${set.d}: kinsort, ${c.peers.map((p) => p.tool).join(', ')}, interleaved`);
       const tools = [{ run: (t) => timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, t), warmUp: c.warmUp }];
       for (const peer of c.peers) {
-        if (peer.python) tools.push({ run: (t) => timePython(python, peer.python, set, (args.quick && peer.quickParams) || peer.params, t), warmUp: c.warmUp });
+        if (peer.python)
+          tools.push({
+            run: (t) => timePython(python, peer.python, set, (args.quick && peer.quickParams) || peer.params, t),
+            warmUp: c.warmUp,
+          });
         else if (peer.npm) tools.push({ run: (t) => timeNpm((r) => peer.npm(npmPeers, r), nested, t), maxRepeats: peer.repeats });
         else if (set.n > hclustMaxRows) {
           const note = hclustSkipNote(set.n, hclustMaxRows, hclustMeasured[peer.hclust]);
@@ -124,7 +129,15 @@ async function main() {
     if (args.scaling) {
       progress('scaling: n, 2n, 4n');
       const cases = MAIN_CASES.filter((c) => wanted(c.id));
-      scaling = await runScaling({ kinsort, cases, scaling: SCALING, quick: args.quick, python, seed: SEED, timing: { repeats: args.quick ? 1 : 3, budgetMs: 10_000 } });
+      scaling = await runScaling({
+        kinsort,
+        cases,
+        scaling: SCALING,
+        quick: args.quick,
+        python,
+        seed: SEED,
+        timing: { repeats: args.quick ? 1 : 3, budgetMs: 10_000 },
+      });
     }
 
     const lines = [machine, ...rows, ...scaling].map((r) => JSON.stringify(r, finiteOrNull)).join('\n') + '\n';
@@ -142,7 +155,10 @@ async function main() {
 }
 
 function hclustSkipNote(n, maxRows, measured) {
-  const estimate = measured && Number.isFinite(measured.ms) ? ` (it took ${Math.round(measured.ms)} ms at n = ${measured.n}; cubic growth gives about ${seconds(measured.ms * (n / measured.n) ** 3)} here)` : '';
+  const estimate =
+    measured && Number.isFinite(measured.ms)
+      ? ` (it took ${Math.round(measured.ms)} ms at n = ${measured.n}; cubic growth gives about ${seconds(measured.ms * (n / measured.n) ** 3)} here)`
+      : '';
   return `ml-hclust skipped above n = ${maxRows}: it is cubic in n${estimate}`;
 }
 

@@ -24,9 +24,27 @@ async function runScaling({ kinsort, cases, scaling, quick, python, seed, timing
       mine.push((await timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, timing)).ms);
       if (pythonPeer) theirs.push((await timePython(python, pythonPeer.python, set, pythonPeer.params, timing)).ms);
     }
-    rows.push({ type: 'scaling', case: c.id, title: c.title, d, tool: 'kinsort', sizes, ms: mine, growthPerDoubling: growthPerDoubling(mine) });
+    rows.push({
+      type: 'scaling',
+      case: c.id,
+      title: c.title,
+      d,
+      tool: 'kinsort',
+      sizes,
+      ms: mine,
+      growthPerDoubling: growthPerDoubling(mine),
+    });
     if (pythonPeer) {
-      rows.push({ type: 'scaling', case: c.id, title: c.title, d, tool: pythonPeer.tool, sizes, ms: theirs, growthPerDoubling: growthPerDoubling(theirs) });
+      rows.push({
+        type: 'scaling',
+        case: c.id,
+        title: c.title,
+        d,
+        tool: pythonPeer.tool,
+        sizes,
+        ms: theirs,
+        growthPerDoubling: growthPerDoubling(theirs),
+      });
     }
   }
   return rows;

@@ -15,7 +15,9 @@ const folder = join(__dirname, '..', 'src', 'methods', 'partition', 'kernels');
 async function assembleKernels() {
   const wabt = await require('wabt')();
   const out = {};
-  for (const file of readdirSync(folder).filter((f) => f.endsWith('.wat')).sort()) {
+  for (const file of readdirSync(folder)
+    .filter((f) => f.endsWith('.wat'))
+    .sort()) {
     const module = wabt.parseWat(file, readFileSync(join(folder, file), 'utf8'), { simd: true });
     try {
       module.resolveNames();

@@ -40,9 +40,7 @@ const isRoot = () => typeof process.getuid === 'function' && process.getuid() ==
 /** PostgreSQL refuses to run as root: as root, its programs run as the `postgres` user. */
 function asPostgresUser(program, args, options = {}) {
   const file = path.join(POSTGRES_BIN, program);
-  return isRoot()
-    ? execFileSync('runuser', ['-u', 'postgres', '--', file, ...args], options)
-    : execFileSync(file, args, options);
+  return isRoot() ? execFileSync('runuser', ['-u', 'postgres', '--', file, ...args], options) : execFileSync(file, args, options);
 }
 
 function postgresAvailable() {
@@ -73,7 +71,9 @@ async function startPostgres() {
   asPostgresUser('initdb', ['-D', data, '-U', 'kinsort', '--auth=trust', '-E', 'UTF8', '--locale=C.UTF-8'], { stdio: 'pipe' });
   const port = await freePort();
   const options = `-p ${port} -k ${folder} -c listen_addresses=127.0.0.1 -c fsync=off -c synchronous_commit=off -c full_page_writes=off`;
-  asPostgresUser('pg_ctl', ['-D', data, '-l', path.join(folder, 'server.log'), '-o', options, '-w', '-t', '60', 'start'], { stdio: 'pipe' });
+  asPostgresUser('pg_ctl', ['-D', data, '-l', path.join(folder, 'server.log'), '-o', options, '-w', '-t', '60', 'start'], {
+    stdio: 'pipe',
+  });
   const info = {
     kind: 'postgres',
     folder,
@@ -90,9 +90,7 @@ async function startPostgres() {
 function clickhouseConfig(folder, shard, ports, shardPorts) {
   const dir = path.join(folder, `shard${shard}`);
   for (const sub of ['data', 'tmp', 'user_files', 'log']) fs.mkdirSync(path.join(dir, sub), { recursive: true });
-  const replicas = shardPorts
-    .map((p) => `      <shard><replica><host>127.0.0.1</host><port>${p}</port></replica></shard>`)
-    .join('\n');
+  const replicas = shardPorts.map((p) => `      <shard><replica><host>127.0.0.1</host><port>${p}</port></replica></shard>`).join('\n');
   const config = `<?xml version="1.0"?>
 <yandex>
   <logger><level>warning</level><log>${dir}/log/server.log</log><errorlog>${dir}/log/error.log</errorlog><console>0</console></logger>
@@ -180,7 +178,12 @@ async function startClickHouse() {
   const pids = [];
   const started = [];
   for (let s = 0; s < 2; s++) {
-    const config = clickhouseConfig(folder, s + 1, ports[s], ports.map((p) => p.tcp));
+    const config = clickhouseConfig(
+      folder,
+      s + 1,
+      ports[s],
+      ports.map((p) => p.tcp),
+    );
     const log = path.join(folder, `shard${s + 1}`, 'log', 'console.log');
     const out = fs.openSync(log, 'a');
     const child = spawn(CLICKHOUSE_SERVER, [`--config-file=${config}`], { detached: true, stdio: ['ignore', out, out] });

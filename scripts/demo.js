@@ -25,7 +25,16 @@ const dataDir = path.join(root, 'demo-data');
 
 // The recipe, shared word for word with notebook 1 (see its Markdown cells for the reasons).
 const SEED = 11;
-const FEATURES = ['trips_per_week', 'peak_share', 'weekend_share', 'avg_trip_km', 'topups_per_month', 'tenure_months', 'fare_type', 'autopay'];
+const FEATURES = [
+  'trips_per_week',
+  'peak_share',
+  'weekend_share',
+  'avg_trip_km',
+  'topups_per_month',
+  'tenure_months',
+  'fare_type',
+  'autopay',
+];
 const PROFILE_ONLY = ['home_zone', 'age_band', 'monthly_spend'];
 const SKEWED = ['trips_per_week', 'avg_trip_km', 'topups_per_month', 'tenure_months'];
 const K = 5;
@@ -33,7 +42,11 @@ const K = 5;
 // Names go to the segment whose card shows the trait, not to a fixed number, so they stay right
 // even if a different seed or a change in the k-means core numbers the segments differently.
 const NAMES = [
-  { trait: ['peak_share', null, +1], title: 'Weekday peak commuters', text: 'Ride most days, mostly at peak, rarely at weekends; mostly adult fares.' },
+  {
+    trait: ['peak_share', null, +1],
+    title: 'Weekday peak commuters',
+    text: 'Ride most days, mostly at peak, rarely at weekends; mostly adult fares.',
+  },
   { trait: ['fare_type', 'student', +1], title: 'Students topping up', text: 'Student fares, many small top-ups, short tenure.' },
   { trait: ['avg_trip_km', null, +1], title: 'Long-distance regulars', text: 'Long trips, long tenure, on autopay; the regional commute.' },
   { trait: ['weekend_share', null, +1], title: 'Weekend and off-peak riders', text: 'Weekend and off-peak trips; more senior fares.' },
@@ -74,7 +87,9 @@ function between(text, start, end) {
 function evidenceInWords(evidence, k, stability) {
   const row = evidence.table.find((r) => r.k === k);
   const sentences = [`${evidence.headline}.`];
-  const coarse = [...new Set([evidence.byCriterion.silhouette, evidence.byCriterion.calinskiHarabasz, evidence.byCriterion.daviesBouldin])].sort((a, b) => a - b);
+  const coarse = [
+    ...new Set([evidence.byCriterion.silhouette, evidence.byCriterion.calinskiHarabasz, evidence.byCriterion.daviesBouldin]),
+  ].sort((a, b) => a - b);
   if (coarse.some((c) => c !== evidence.recommended)) {
     sentences.push(
       `The silhouette, Calinski–Harabasz and Davies–Bouldin favour k = ${coarse.join(' or ')}: they reward the cleanest split, ` +
@@ -123,13 +138,18 @@ function main() {
   const say = (line) => console.log(`  ${line}`);
   console.log('kinsort demo: segmenting the demo pass holders');
 
-  const holders = study(readCsvFile(path.join(dataDir, 'pass-holders.csv')), { id: 'holder_id', use: FEATURES, keep: PROFILE_ONLY })
-    .prepare({ scale: 'robust', log: SKEWED, missing: 'median' });
+  const holders = study(readCsvFile(path.join(dataDir, 'pass-holders.csv')), {
+    id: 'holder_id',
+    use: FEATURES,
+    keep: PROFILE_ONLY,
+  }).prepare({ scale: 'robust', log: SKEWED, missing: 'median' });
   const imputed = holders.report.imputed.map((c) => `${c.count} ${c.column}`).join(', ');
   say(`${holders.report.keptRows} of ${holders.report.inputRows} rows prepared; filled with the median: ${imputed || 'none'}`);
 
   const evidence = holders.compareK({ from: 2, to: 8, seed: SEED, references: 10 });
-  say(`evidence for k: ${evidence.headline}; fitted k = ${K}${evidence.recommended === K ? ' (as recommended)' : ' (the report says why)'}`);
+  say(
+    `evidence for k: ${evidence.headline}; fitted k = ${K}${evidence.recommended === K ? ' (as recommended)' : ' (the report says why)'}`,
+  );
 
   const seg = holders.kmeans({ k: K, seed: SEED, restarts: 25 });
   const medoids = holders.kmedoids({ k: K, seed: SEED });
@@ -142,8 +162,10 @@ function main() {
   const numbers = segmentsByTrait(seg.profiles(), NAMES);
   NAMES.forEach((n, i) => seg.name(numbers[i], { title: n.title, text: n.text }));
 
-  const stations = study(readCsvFile(path.join(dataDir, 'stations.csv')), { id: 'station' })
-    .prepare({ scale: 'zscore', log: ['weekday_boardings', 'weekend_boardings', 'parking_spaces', 'bike_docks'] });
+  const stations = study(readCsvFile(path.join(dataDir, 'stations.csv')), { id: 'station' }).prepare({
+    scale: 'zscore',
+    log: ['weekday_boardings', 'weekend_boardings', 'parking_spaces', 'bike_docks'],
+  });
   const tree = stations.agglomerate({ method: 'ward' });
 
   fs.mkdirSync(outDir, { recursive: true });
@@ -154,8 +176,10 @@ function main() {
   const scored = loadDefinition(definitionFile).assign(readCsvFile(path.join(dataDir, 'pass-holders-next-month.csv')));
   const drift = scored.drift();
   const largest = [...drift.features].sort((a, b) => b.stabilityIndex - a.stabilityIndex)[0];
-  say(`next month: ${drift.scoredRows} of ${drift.inputRows} rows scored; far from every segment ${(drift.far.newShare * 100).toFixed(1)} %; ` +
-    `largest shift ${largest ? `${largest.feature} (stability index ${largest.stabilityIndex.toFixed(3)}, ${largest.reading})` : 'none'}`);
+  say(
+    `next month: ${drift.scoredRows} of ${drift.inputRows} rows scored; far from every segment ${(drift.far.newShare * 100).toFixed(1)} %; ` +
+      `largest shift ${largest ? `${largest.feature} (stability index ${largest.stabilityIndex.toFixed(3)}, ${largest.reading})` : 'none'}`,
+  );
   const driftSection =
     `<h2>Next month's pass holders</h2><p>The saved definition applied to next month's rows, unchanged: how the segments' ` +
     `shares moved, how many rows sit far from every segment, and how far each feature's distribution shifted.</p>` +
@@ -167,7 +191,8 @@ function main() {
   const body = between(writeUp, '<body>', '</body>');
   const cardsAt = body.indexOf('<figure class="kinsort-view"');
   if (cardsAt < 0) throw new Error('kinsort demo: the write-up page holds no cards.');
-  const why = `<p>${escape(evidenceInWords(evidence, K, stability))} k-medoids finds ` +
+  const why =
+    `<p>${escape(evidenceInWords(evidence, K, stability))} k-medoids finds ` +
     `nearly the same split (adjusted Rand index ${escape(agreement.toFixed(2))}).</p>`;
   const views = [evidence.view(), seg.projection({ loadings: true }), sil.view()];
   const hierarchy =
@@ -191,7 +216,9 @@ function main() {
   console.log(`kinsort demo: done in ${((Date.now() - started) / 1000).toFixed(1)} s`);
   console.log(`  report:     ${reportFile}`);
   console.log(`  definition: ${definitionFile}`);
-  console.log(`  apply it:   npx kinsort assign ${path.relative(process.cwd(), definitionFile)} demo-data/pass-holders-next-month.csv --out scored.csv`);
+  console.log(
+    `  apply it:   npx kinsort assign ${path.relative(process.cwd(), definitionFile)} demo-data/pass-holders-next-month.csv --out scored.csv`,
+  );
 }
 
 try {

@@ -49,23 +49,89 @@ const beta = (r, a, b) => {
 
 // Kinds of rider: mixing weight and how each variable is drawn.
 const KINDS = [
-  { name: 'commuter', weight: 0.3, trips: [10, 1.0], peak: [8, 2.5], weekend: [1.2, 12], km: [2.2, 3.5], topups: [2, 0.6], tenure: [3, 14],
-    fare: [0.82, 0.03, 0.05, 0.1], autopay: 0.7, zones: [0.35, 0.35, 0.2, 0.1], ages: [0.05, 0.3, 0.35, 0.25, 0.05] },
-  { name: 'student', weight: 0.2, trips: [7, 1.1], peak: [4, 3], weekend: [2.5, 7], km: [2.5, 2.0], topups: [4, 0.9], tenure: [2, 8],
-    fare: [0.15, 0.8, 0.0, 0.05], autopay: 0.25, zones: [0.5, 0.2, 0.2, 0.1], ages: [0.7, 0.25, 0.04, 0.01, 0.0] },
-  { name: 'leisure', weight: 0.18, trips: [4, 1.0], peak: [1.5, 6], weekend: [5, 4], km: [2.5, 3.0], topups: [2.5, 0.8], tenure: [2.5, 12],
-    fare: [0.55, 0.1, 0.25, 0.1], autopay: 0.35, zones: [0.3, 0.25, 0.3, 0.15], ages: [0.15, 0.25, 0.25, 0.2, 0.15] },
-  { name: 'occasional', weight: 0.2, trips: [1.6, 1.2], peak: [2, 3], weekend: [2, 3], km: [2, 3.0], topups: [1.2, 0.7], tenure: [1.5, 10],
-    fare: [0.6, 0.1, 0.2, 0.1], autopay: 0.15, zones: [0.25, 0.25, 0.25, 0.25], ages: [0.15, 0.2, 0.2, 0.25, 0.2] },
-  { name: 'regional', weight: 0.12, trips: [8, 1.0], peak: [6, 2.5], weekend: [1.2, 10], km: [6, 4.0], topups: [2, 0.6], tenure: [4, 15],
-    fare: [0.85, 0.02, 0.08, 0.05], autopay: 0.8, zones: [0.05, 0.1, 0.25, 0.6], ages: [0.03, 0.27, 0.4, 0.25, 0.05] },
+  {
+    name: 'commuter',
+    weight: 0.3,
+    trips: [10, 1.0],
+    peak: [8, 2.5],
+    weekend: [1.2, 12],
+    km: [2.2, 3.5],
+    topups: [2, 0.6],
+    tenure: [3, 14],
+    fare: [0.82, 0.03, 0.05, 0.1],
+    autopay: 0.7,
+    zones: [0.35, 0.35, 0.2, 0.1],
+    ages: [0.05, 0.3, 0.35, 0.25, 0.05],
+  },
+  {
+    name: 'student',
+    weight: 0.2,
+    trips: [7, 1.1],
+    peak: [4, 3],
+    weekend: [2.5, 7],
+    km: [2.5, 2.0],
+    topups: [4, 0.9],
+    tenure: [2, 8],
+    fare: [0.15, 0.8, 0.0, 0.05],
+    autopay: 0.25,
+    zones: [0.5, 0.2, 0.2, 0.1],
+    ages: [0.7, 0.25, 0.04, 0.01, 0.0],
+  },
+  {
+    name: 'leisure',
+    weight: 0.18,
+    trips: [4, 1.0],
+    peak: [1.5, 6],
+    weekend: [5, 4],
+    km: [2.5, 3.0],
+    topups: [2.5, 0.8],
+    tenure: [2.5, 12],
+    fare: [0.55, 0.1, 0.25, 0.1],
+    autopay: 0.35,
+    zones: [0.3, 0.25, 0.3, 0.15],
+    ages: [0.15, 0.25, 0.25, 0.2, 0.15],
+  },
+  {
+    name: 'occasional',
+    weight: 0.2,
+    trips: [1.6, 1.2],
+    peak: [2, 3],
+    weekend: [2, 3],
+    km: [2, 3.0],
+    topups: [1.2, 0.7],
+    tenure: [1.5, 10],
+    fare: [0.6, 0.1, 0.2, 0.1],
+    autopay: 0.15,
+    zones: [0.25, 0.25, 0.25, 0.25],
+    ages: [0.15, 0.2, 0.2, 0.25, 0.2],
+  },
+  {
+    name: 'regional',
+    weight: 0.12,
+    trips: [8, 1.0],
+    peak: [6, 2.5],
+    weekend: [1.2, 10],
+    km: [6, 4.0],
+    topups: [2, 0.6],
+    tenure: [4, 15],
+    fare: [0.85, 0.02, 0.08, 0.05],
+    autopay: 0.8,
+    zones: [0.05, 0.1, 0.25, 0.6],
+    ages: [0.03, 0.27, 0.4, 0.25, 0.05],
+  },
 ];
 const FARES = ['adult', 'student', 'senior', 'reduced'];
 const ZONES = ['Central', 'Northbank', 'Eastfield', 'Outer Vale'];
 const AGES = ['16-24', '25-39', '40-54', '55-66', '67+'];
 
 function passHolder(r, id, options = {}) {
-  const kind = KINDS[pick(r, KINDS.map((k) => k.weight))];
+  const kind =
+    KINDS[
+      pick(
+        r,
+        KINDS.map((k) => k.weight),
+      )
+    ];
   const trips = gamma(r, kind.trips[0], kind.trips[1]);
   const fareIndex = pick(r, kind.fare);
   const row = {
@@ -123,15 +189,91 @@ for (let i = 0; i < 300; i++) next.push(passHolder(nextRandom, `PH-${String(1200
 addNoise(nextRandom, next);
 
 // --- stations: invented names, labelled, for a readable dendrogram ---------------------------
-const FIRST = ['Ash', 'Bram', 'Cor', 'Dun', 'Elm', 'Fen', 'Gal', 'Hol', 'Ives', 'Kel', 'Lark', 'Mor', 'Nether', 'Oak', 'Pell', 'Quill', 'Rook', 'Sel', 'Thorn', 'Wex'];
+const FIRST = [
+  'Ash',
+  'Bram',
+  'Cor',
+  'Dun',
+  'Elm',
+  'Fen',
+  'Gal',
+  'Hol',
+  'Ives',
+  'Kel',
+  'Lark',
+  'Mor',
+  'Nether',
+  'Oak',
+  'Pell',
+  'Quill',
+  'Rook',
+  'Sel',
+  'Thorn',
+  'Wex',
+];
 const SECOND = ['ford', 'bury', 'mead', 'wick', 'ham', 'ley', 'gate', 'stow', 'brook', 'field'];
 const SUFFIX = ['', '', '', ' Quay', ' Junction', ' Park', ' Road', ' Cross'];
 const STATION_KINDS = [
-  { name: 'city core', count: 12, weekday: [9000, 0.35], weekendRatio: [0.55, 0.1], peak: [0.42, 0.05], transfer: [0.45, 0.1], parking: [0, 20], bikes: [40, 12], km: [1.2, 0.8], lines: [4, 1.2] },
-  { name: 'inner residential', count: 16, weekday: [3200, 0.35], weekendRatio: [0.45, 0.08], peak: [0.55, 0.05], transfer: [0.15, 0.06], parking: [30, 25], bikes: [18, 8], km: [5, 1.8], lines: [2, 0.7] },
-  { name: 'park and ride', count: 10, weekday: [2600, 0.3], weekendRatio: [0.25, 0.07], peak: [0.68, 0.05], transfer: [0.08, 0.04], parking: [450, 150], bikes: [6, 4], km: [16, 5], lines: [1.4, 0.5] },
-  { name: 'leisure and events', count: 8, weekday: [1800, 0.45], weekendRatio: [1.3, 0.25], peak: [0.3, 0.06], transfer: [0.12, 0.05], parking: [120, 80], bikes: [25, 10], km: [7, 3], lines: [1.8, 0.6] },
-  { name: 'rural halt', count: 14, weekday: [350, 0.5], weekendRatio: [0.5, 0.15], peak: [0.5, 0.08], transfer: [0.05, 0.03], parking: [25, 15], bikes: [2, 2], km: [28, 8], lines: [1, 0.3] },
+  {
+    name: 'city core',
+    count: 12,
+    weekday: [9000, 0.35],
+    weekendRatio: [0.55, 0.1],
+    peak: [0.42, 0.05],
+    transfer: [0.45, 0.1],
+    parking: [0, 20],
+    bikes: [40, 12],
+    km: [1.2, 0.8],
+    lines: [4, 1.2],
+  },
+  {
+    name: 'inner residential',
+    count: 16,
+    weekday: [3200, 0.35],
+    weekendRatio: [0.45, 0.08],
+    peak: [0.55, 0.05],
+    transfer: [0.15, 0.06],
+    parking: [30, 25],
+    bikes: [18, 8],
+    km: [5, 1.8],
+    lines: [2, 0.7],
+  },
+  {
+    name: 'park and ride',
+    count: 10,
+    weekday: [2600, 0.3],
+    weekendRatio: [0.25, 0.07],
+    peak: [0.68, 0.05],
+    transfer: [0.08, 0.04],
+    parking: [450, 150],
+    bikes: [6, 4],
+    km: [16, 5],
+    lines: [1.4, 0.5],
+  },
+  {
+    name: 'leisure and events',
+    count: 8,
+    weekday: [1800, 0.45],
+    weekendRatio: [1.3, 0.25],
+    peak: [0.3, 0.06],
+    transfer: [0.12, 0.05],
+    parking: [120, 80],
+    bikes: [25, 10],
+    km: [7, 3],
+    lines: [1.8, 0.6],
+  },
+  {
+    name: 'rural halt',
+    count: 14,
+    weekday: [350, 0.5],
+    weekendRatio: [0.5, 0.15],
+    peak: [0.5, 0.08],
+    transfer: [0.05, 0.03],
+    parking: [25, 15],
+    bikes: [2, 2],
+    km: [28, 8],
+    lines: [1, 0.3],
+  },
 ];
 const stationRandom = random.fork('stations');
 const usedNames = new Set();

@@ -28,10 +28,18 @@ function views() {
     keep: ['home_zone', 'age_band', 'monthly_spend'],
   }).prepare({ scale: 'robust', log: ['trips_per_week', 'avg_trip_km', 'topups_per_month', 'tenure_months'], missing: 'median' });
   const seg = holders.kmeans({ k: 5, seed: 11, restarts: 25 });
-  const titles = ['Weekday peak commuters', 'Students topping up', 'Long-distance regulars', 'Weekend and off-peak riders', 'Occasional newcomers'];
+  const titles = [
+    'Weekday peak commuters',
+    'Students topping up',
+    'Long-distance regulars',
+    'Weekend and off-peak riders',
+    'Occasional newcomers',
+  ];
   titles.forEach((title, s) => seg.name(s + 1, { title }));
-  const stations = study(readCsvFile(data('stations.csv')), { id: 'station' })
-    .prepare({ scale: 'zscore', log: ['weekday_boardings', 'weekend_boardings', 'parking_spaces', 'bike_docks'] });
+  const stations = study(readCsvFile(data('stations.csv')), { id: 'station' }).prepare({
+    scale: 'zscore',
+    log: ['weekday_boardings', 'weekend_boardings', 'parking_spaces', 'bike_docks'],
+  });
   const tree = stations.agglomerate({ method: 'ward' });
   const scored = seg.definition().assign(readCsvFile(data('pass-holders-next-month.csv')));
   return {

@@ -41,10 +41,7 @@ function seedToWords(seed: Seed | undefined): [number, number] {
   if (seed === undefined) return [DEFAULT_SEED, 0];
   if (typeof seed === 'string') return [hashString(seed), hashString('#' + seed)];
   if (typeof seed !== 'number' || !Number.isSafeInteger(seed)) {
-    throw new KinsortError(
-      `seed must be a whole number (or a string); got ${String(seed)}.`,
-      'bad-seed',
-    );
+    throw new KinsortError(`seed must be a whole number (or a string); got ${String(seed)}.`, 'bad-seed');
   }
   const negative = seed < 0 ? 1 : 0;
   const magnitude = Math.abs(seed);

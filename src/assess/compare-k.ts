@@ -108,7 +108,18 @@ export interface CompareKResult {
 }
 
 const COMPARE_K_OPTIONS = [
-  'from', 'to', 'seed', 'restarts', 'references', 'gap', 'stability', 'predictionStrength', 'resamples', 'sampleRows', 'silhouetteRows', 'onProgress',
+  'from',
+  'to',
+  'seed',
+  'restarts',
+  'references',
+  'gap',
+  'stability',
+  'predictionStrength',
+  'resamples',
+  'sampleRows',
+  'silhouetteRows',
+  'onProgress',
 ] as const;
 
 /** The recommendation rule (kept under its former name for callers that quote it). */
@@ -210,7 +221,11 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
 
   if (usePrediction) {
     const random = createRandom(seed).fork('prediction strength');
-    const strengths = predictionStrengthAcrossK(sample ? takeRows(m, sample) : m, ks, { splits: PREDICTION_SPLITS, restarts: Math.min(restarts, RESAMPLE_RESTARTS), random });
+    const strengths = predictionStrengthAcrossK(sample ? takeRows(m, sample) : m, ks, {
+      splits: PREDICTION_SPLITS,
+      restarts: Math.min(restarts, RESAMPLE_RESTARTS),
+      random,
+    });
     for (let t = 0; t < table.length; t++) table[t] = { ...table[t], predictionStrength: strengths[t] };
     step('prediction strength');
   }
@@ -273,7 +288,13 @@ function gapOnAllRows(m: Matrix, gapKs: number[], withinByK: Map<number, number>
     }
     return Math.log(withinByK.get(k)!);
   });
-  return gapFromDataFit(m, gapKs, logW, { references: s.references, seed: s.seed, restarts: REFERENCE_RESTARTS, onProgress: s.onReference }, where);
+  return gapFromDataFit(
+    m,
+    gapKs,
+    logW,
+    { references: s.references, seed: s.seed, restarts: REFERENCE_RESTARTS, onProgress: s.onReference },
+    where,
+  );
 }
 
 /**
@@ -290,7 +311,13 @@ function gapOnSample(sample: Matrix, gapKs: number[], centresByK: Map<number, nu
     s.onExtraK(`k = ${k} (gap only)`);
     return Math.log(withinForK(sample, k, s.seed, s.restarts));
   });
-  return gapFromDataFit(sample, gapKs, logW, { references: s.references, seed: s.seed, restarts: REFERENCE_RESTARTS, onProgress: s.onReference }, where);
+  return gapFromDataFit(
+    sample,
+    gapKs,
+    logW,
+    { references: s.references, seed: s.seed, restarts: REFERENCE_RESTARTS, onProgress: s.onReference },
+    where,
+  );
 }
 
 /** Sorted indices of a seeded sample of `limit` rows, or undefined when all rows fit. */
@@ -336,6 +363,9 @@ function predictionPick(table: readonly CompareKRow[]): { predictionStrength?: n
 
 function stabilityPick(table: readonly CompareKRow[]): { stability?: number } {
   if (table.some((r) => r.weakestStability === undefined)) return {};
-  const pick = stabilitySuggestion(table.map((r) => r.k), table.map((r) => r.weakestStability!));
+  const pick = stabilitySuggestion(
+    table.map((r) => r.k),
+    table.map((r) => r.weakestStability!),
+  );
   return pick === undefined ? {} : { stability: pick };
 }

@@ -12,7 +12,7 @@ import { STABLE_FROM } from './stability';
 
 export const K_CHOICE_RULE =
   `Among the k at which every segment is stable (weakest bootstrap Jaccard ≥ ${STABLE_FROM}, Hennig 2007, common practice), ` +
-  'the gap statistic\'s k is recommended, else the bend of the within-segment sum of squares, else the k with the highest average silhouette. ' +
+  "the gap statistic's k is recommended, else the bend of the within-segment sum of squares, else the k with the highest average silhouette. " +
   'When the gap statistic picks k = 1 the rows are no tighter in segments than structureless reference data, and k = 1 (no clustering structure) is recommended.';
 
 export interface KChoiceInput {
@@ -42,8 +42,10 @@ export function chooseK(input: KChoiceInput): KChoice {
   const noneStable = input.weakestStability !== undefined && stable.length === 0;
   if (input.gap === 1) return { recommended: 1, noStructure: true, candidates: stable, noneStable };
   const candidates = stable.length ? stable : [...ks];
-  if (input.gap !== undefined && candidates.includes(input.gap)) return { recommended: input.gap, noStructure: false, candidates, noneStable };
-  if (input.knee !== undefined && candidates.includes(input.knee)) return { recommended: input.knee, noStructure: false, candidates, noneStable };
+  if (input.gap !== undefined && candidates.includes(input.gap))
+    return { recommended: input.gap, noStructure: false, candidates, noneStable };
+  if (input.knee !== undefined && candidates.includes(input.knee))
+    return { recommended: input.knee, noStructure: false, candidates, noneStable };
   const silhouetteAt = (k: number) => input.silhouette[ks.indexOf(k)];
   let best = candidates[0];
   for (const k of candidates) if (silhouetteAt(k) > silhouetteAt(best)) best = k;

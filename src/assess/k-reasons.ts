@@ -31,7 +31,6 @@ export function headlineFor(choice: KChoice, by: CompareKByCriterion, withStabil
   return `k = ${k} recommended: every segment stable, ${why}`;
 }
 
-
 function fmt(v: number): string {
   if (!Number.isFinite(v)) return String(v);
   const a = Math.abs(v);
@@ -61,7 +60,9 @@ export function explain(
       (stable.length
         ? `Stability: every segment comes back (weakest bootstrap Jaccard ≥ ${STABLE_FROM}) at k = ${list(stable)}`
         : `Stability: no k in ${range} has every segment stable; the best is k = ${mostStable.k} (weakest Jaccard ${fmt(mostStable.weakestStability!)})`) +
-        (stable.length && firstUnstable ? `; at k = ${firstUnstable.k} the weakest segment reaches ${fmt(firstUnstable.weakestStability!)}` : '') +
+        (stable.length && firstUnstable
+          ? `; at k = ${firstUnstable.k} the weakest segment reaches ${fmt(firstUnstable.weakestStability!)}`
+          : '') +
         ` (${how.resamples} bootstrap resamples ${onRows}, Hennig 2007).`,
     );
   }
@@ -76,8 +77,13 @@ export function explain(
   if (gap) {
     const refs = `${gap.references} reference sets ${onRows}`;
     if (by.gap === 1) {
-      reasons.push(`The gap statistic picks k = 1: the rows are not clearly tighter in segments than uniform reference data, so any segmentation may be arbitrary (${refs}).`);
-    } else if (by.gap === table[table.length - 1].k && gap.table.every((r, t) => t + 1 >= gap.table.length || r.gap < gap.table[t + 1].gap - gap.table[t + 1].se)) {
+      reasons.push(
+        `The gap statistic picks k = 1: the rows are not clearly tighter in segments than uniform reference data, so any segmentation may be arbitrary (${refs}).`,
+      );
+    } else if (
+      by.gap === table[table.length - 1].k &&
+      gap.table.every((r, t) => t + 1 >= gap.table.length || r.gap < gap.table[t + 1].gap - gap.table[t + 1].se)
+    ) {
       reasons.push(`The gap statistic is still rising at k = ${by.gap}, the largest k tried; more segments may be worth trying (${refs}).`);
     } else {
       reasons.push(`The gap statistic levels off at k = ${by.gap}: ${gap.rule}, with ${refs}.`);
@@ -110,13 +116,15 @@ export function explain(
       'No clustering structure: the gap statistic found the rows no tighter in segments than structureless reference data, so k = 1 is recommended. ' +
         'Segments at any k would be cuts through one cloud' +
         (by.stability !== undefined ? ', however reproducibly they fall (such cuts can be stable too)' : '') +
-        '. ' + K_CHOICE_RULE,
+        '. ' +
+        K_CHOICE_RULE,
     );
   } else {
     reasons.push(
       `Recommended: k = ${choice.recommended}` +
         (choice.noneStable ? ', with caution: no k has every segment stable, so the segments may not be reproducible' : '') +
-        '. ' + K_CHOICE_RULE,
+        '. ' +
+        K_CHOICE_RULE,
     );
     const width = at(choice.recommended)?.silhouette;
     if (width !== undefined && width < 0.25) {

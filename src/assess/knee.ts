@@ -31,7 +31,10 @@ export function findKnee(xs: ArrayLike<number>, values: ArrayLike<number>, optio
   const curve = checkChoice(opts.curve ?? 'convex', KNEE_CURVES, `${where} curve`);
   const sensitivity = checkNumber(opts.sensitivity ?? 1, `${where}: sensitivity`, 0);
   if (!isArrayLike(xs) || !isArrayLike(values)) {
-    throw new KinsortError(`${where}: give the x values and the curve values as two lists of numbers, e.g. findKnee([2, 3, 4], [90, 40, 35]).`, 'bad-argument');
+    throw new KinsortError(
+      `${where}: give the x values and the curve values as two lists of numbers, e.g. findKnee([2, 3, 4], [90, 40, 35]).`,
+      'bad-argument',
+    );
   }
   const n = xs.length;
   if (values.length !== n) {

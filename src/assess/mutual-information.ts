@@ -23,11 +23,7 @@ function entropy(sizes: Float64Array, n: number): number {
 }
 
 /** NMI of two assignments of the same rows, in [0, 1]; labels may be any whole numbers. */
-export function normalizedMutualInfo(
-  a: AssignmentInput,
-  b: AssignmentInput,
-  options?: NormalizedMutualInfoOptions,
-): number {
+export function normalizedMutualInfo(a: AssignmentInput, b: AssignmentInput, options?: NormalizedMutualInfoOptions): number {
   const opts = checkOptions(options, ['average'], 'normalizedMutualInfo');
   const average = checkChoice(opts.average ?? 'arithmetic', MUTUAL_INFORMATION_AVERAGES, 'normalizedMutualInfo average');
   const t = flatContingency(a, b, 'normalizedMutualInfo');
@@ -45,7 +41,13 @@ export function normalizedMutualInfo(
   const ha = entropy(t.rowSums, n);
   const hb = entropy(t.colSums, n);
   const normaliser =
-    average === 'arithmetic' ? (ha + hb) / 2 : average === 'geometric' ? Math.sqrt(ha * hb) : average === 'min' ? Math.min(ha, hb) : Math.max(ha, hb);
+    average === 'arithmetic'
+      ? (ha + hb) / 2
+      : average === 'geometric'
+        ? Math.sqrt(ha * hb)
+        : average === 'min'
+          ? Math.min(ha, hb)
+          : Math.max(ha, hb);
   // Rounding can push the ratio a hair above 1.
   return Math.min(1, mi / normaliser);
 }

@@ -143,8 +143,16 @@ export function sumsFromRows(m: Matrix, labels: Int32Array, k: number, metric: S
 }
 
 function squaredTile(
-  x: Float64Array, d: number, labels: Int32Array, k: number, sums: Float64Array,
-  i0: number, i1: number, j0: number, j1: number, root: boolean,
+  x: Float64Array,
+  d: number,
+  labels: Int32Array,
+  k: number,
+  sums: Float64Array,
+  i0: number,
+  i1: number,
+  j0: number,
+  j1: number,
+  root: boolean,
 ): void {
   for (let i = i0; i < i1; i++) {
     const li = labels[i];
@@ -172,8 +180,15 @@ function squaredTile(
 }
 
 function manhattanTile(
-  x: Float64Array, d: number, labels: Int32Array, k: number, sums: Float64Array,
-  i0: number, i1: number, j0: number, j1: number,
+  x: Float64Array,
+  d: number,
+  labels: Int32Array,
+  k: number,
+  sums: Float64Array,
+  i0: number,
+  i1: number,
+  j0: number,
+  j1: number,
 ): void {
   for (let i = i0; i < i1; i++) {
     const li = labels[i];

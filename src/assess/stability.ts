@@ -128,7 +128,10 @@ export function bootstrapStability(
     const compact = compactLabels(opts.assignment, n, where);
     k = compact.k;
     if (opts.k !== undefined && opts.k !== k) {
-      throw new KinsortError(`${where}: k = ${opts.k} but the assignment given has ${k} segments; leave k out or make them agree.`, 'bad-k');
+      throw new KinsortError(
+        `${where}: k = ${opts.k} but the assignment given has ${k} segments; leave k out or make them agree.`,
+        'bad-k',
+      );
     }
     original = compact.labels;
   } else {

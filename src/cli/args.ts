@@ -78,10 +78,7 @@ export function integerOption(value: string | undefined, name: string, command: 
 export function exactPositionals(positionals: string[], names: readonly string[], command: string): string[] {
   if (positionals.length !== names.length) {
     const shown = positionals.length === 0 ? 'none' : positionals.map((p) => `"${p}"`).join(', ');
-    throw new KinsortError(
-      `${command}: expected ${names.join(' and ')}; got ${shown}. Run "kinsort ${command} --help".`,
-      'bad-argument',
-    );
+    throw new KinsortError(`${command}: expected ${names.join(' and ')}; got ${shown}. Run "kinsort ${command} --help".`, 'bad-argument');
   }
   return positionals;
 }

@@ -87,7 +87,8 @@ function flagChoice<T extends string>(command: string, flag: string, value: unkn
     return checkChoice(value, allowed, what);
   } catch (e) {
     if (!(e instanceof KinsortError)) throw e;
-    const known = flag === 'metric' && !(allowed as readonly string[]).includes(String(value)) ? METRIC_ELSEWHERE.get(String(value)) ?? '' : '';
+    const known =
+      flag === 'metric' && !(allowed as readonly string[]).includes(String(value)) ? (METRIC_ELSEWHERE.get(String(value)) ?? '') : '';
     throw new KinsortError(`${command} --${flag}: ${e.message}${known}`, e.code);
   }
 }
@@ -95,7 +96,10 @@ function flagChoice<T extends string>(command: string, flag: string, value: unkn
 // Metrics the library has but a definition file cannot carry: say so, and where they do work.
 // A Map: the user's word is looked up, and a plain object would answer "constructor" too.
 const METRIC_ELSEWHERE: ReadonlyMap<string, string> = new Map([
-  ['gower', ' Gower k-medoids runs in the fluent layer (prepared.kmedoids({ k, metric: \'gower\' })), but a definition file assigns new rows and writes SQL with the metrics above only.'],
+  [
+    'gower',
+    " Gower k-medoids runs in the fluent layer (prepared.kmedoids({ k, metric: 'gower' })), but a definition file assigns new rows and writes SQL with the metrics above only.",
+  ],
   ['cosine', ' A definition file assigns new rows and writes SQL with the metrics above only.'],
   ['correlation', ' A definition file assigns new rows and writes SQL with the metrics above only.'],
   ['chebyshev', ' A definition file assigns new rows and writes SQL with the metrics above only.'],
@@ -107,10 +111,21 @@ function refuse(message: string): never {
 }
 
 const FIT_OPTIONS = {
-  id: { type: 'string' }, use: { type: 'string' }, keep: { type: 'string' }, method: { type: 'string' },
-  k: { type: 'string' }, linkage: { type: 'string' }, metric: { type: 'string' }, scale: { type: 'string' },
-  missing: { type: 'string' }, log: { type: 'string' }, seed: { type: 'string' }, restarts: { type: 'string' },
-  note: { type: 'string' }, out: { type: 'string' }, silhouette: { type: 'string' },
+  id: { type: 'string' },
+  use: { type: 'string' },
+  keep: { type: 'string' },
+  method: { type: 'string' },
+  k: { type: 'string' },
+  linkage: { type: 'string' },
+  metric: { type: 'string' },
+  scale: { type: 'string' },
+  missing: { type: 'string' },
+  log: { type: 'string' },
+  seed: { type: 'string' },
+  restarts: { type: 'string' },
+  note: { type: 'string' },
+  out: { type: 'string' },
+  silhouette: { type: 'string' },
 } as const;
 
 const SILHOUETTE_CHOICES = ['sample', 'full'] as const;
@@ -118,7 +133,7 @@ const SILHOUETTE_CHOICES = ['sample', 'full'] as const;
 export function fitCommand(args: string[], io: Io): number {
   const c = 'fit';
   const { values, positionals } = parseCommandArgs(c, args, FIT_OPTIONS);
-  if (values.help) return io.out(FIT_HELP), 0;
+  if (values.help) return (io.out(FIT_HELP), 0);
   const [dataPath] = exactPositionals(positionals, ['DATA.csv'], c);
   const method = flagChoice(c, 'method', requireString(values, 'method', c), DEFINITION_METHODS, 'method');
   const k = integerOption(requireString(values, 'k', c), 'k', c, 1)!;
@@ -128,7 +143,8 @@ export function fitCommand(args: string[], io: Io): number {
   const keep = values.keep === undefined ? undefined : listOption(optionalString(values, 'keep')!, 'keep', c);
   const log = values.log === undefined ? undefined : listOption(optionalString(values, 'log')!, 'log', c);
   const scale = values.scale === undefined ? undefined : flagChoice(c, 'scale', values.scale, SCALE_METHODS, 'scale');
-  const missing = values.missing === undefined ? undefined : flagChoice(c, 'missing', values.missing, MISSING_POLICIES, 'missing-value policy');
+  const missing =
+    values.missing === undefined ? undefined : flagChoice(c, 'missing', values.missing, MISSING_POLICIES, 'missing-value policy');
   const metric = values.metric === undefined ? undefined : flagChoice(c, 'metric', values.metric, DEFINITION_METRICS, 'metric');
   if (values.linkage !== undefined && method !== 'hierarchy') {
     throw new KinsortError(`fit: --linkage applies to --method hierarchy only.`, 'bad-option');
@@ -138,7 +154,8 @@ export function fitCommand(args: string[], io: Io): number {
   }
   const seed = integerOption(optionalString(values, 'seed'), 'seed', c, 0);
   const restarts = integerOption(optionalString(values, 'restarts'), 'restarts', c, 1);
-  const silhouetteRows = values.silhouette === undefined ? 'sample' : flagChoice(c, 'silhouette', values.silhouette, SILHOUETTE_CHOICES, 'silhouette choice');
+  const silhouetteRows =
+    values.silhouette === undefined ? 'sample' : flagChoice(c, 'silhouette', values.silhouette, SILHOUETTE_CHOICES, 'silhouette choice');
   refuseOverwritingInput(c, out, [['data file', dataPath]]);
 
   // The same fluent calls a notebook makes, so the command and a notebook write the same file.
@@ -146,9 +163,9 @@ export function fitCommand(args: string[], io: Io): number {
   const linkage = values.linkage === undefined ? 'ward' : flagChoice(c, 'linkage', values.linkage, LINKAGE_METHODS, 'linkage');
   const seg =
     method === 'kmeans'
-      ? (metric === undefined || metric === 'euclidean'
-          ? prepared.kmeans({ k, seed, restarts })
-          : refuse('fit: k-means works with euclidean distance only; drop --metric or use --method kmedoids.'))
+      ? metric === undefined || metric === 'euclidean'
+        ? prepared.kmeans({ k, seed, restarts })
+        : refuse('fit: k-means works with euclidean distance only; drop --metric or use --method kmedoids.')
       : method === 'kmedoids'
         ? prepared.kmedoids({ k, metric })
         : prepared.agglomerate({ method: linkage, metric, onProgress: hierarchyProgress(prepared.data.matrix.rows, io) }).cut({ k });
@@ -157,10 +174,13 @@ export function fitCommand(args: string[], io: Io): number {
 
   const report = prepared.report;
   const lines = [
-    `kinsort fit: ${report.keptRows} of ${report.inputRows} rows, ${prepared.featureNames.length} prepared feature${prepared.featureNames.length === 1 ? "" : "s"}, ${method} with k = ${k}`,
+    `kinsort fit: ${report.keptRows} of ${report.inputRows} rows, ${prepared.featureNames.length} prepared feature${prepared.featureNames.length === 1 ? '' : 's'}, ${method} with k = ${k}`,
   ];
   if (report.dropped.length > 0) {
-    const shown = report.dropped.slice(0, 5).map((d) => `${d.id} (${d.reason})`).join('; ');
+    const shown = report.dropped
+      .slice(0, 5)
+      .map((d) => `${d.id} (${d.reason})`)
+      .join('; ');
     lines.push(`dropped ${report.dropped.length} row(s): ${shown}${report.dropped.length > 5 ? '; …' : ''}`);
   }
   for (const imp of report.imputed) lines.push(`imputed ${imp.count} missing value(s) in ${imp.column} with ${imp.value}`);
@@ -197,11 +217,15 @@ function summarySilhouette(seg: Segmentation, metric: 'euclidean' | 'manhattan' 
 export function assignCommand(args: string[], io: Io): number {
   const c = 'assign';
   const { values, positionals } = parseCommandArgs(c, args, { out: { type: 'string' }, for: { type: 'string' } });
-  if (values.help) return io.out(ASSIGN_HELP), 0;
+  if (values.help) return (io.out(ASSIGN_HELP), 0);
   const [defPath, dataPath] = exactPositionals(positionals, ['DEF.json', 'DATA.csv'], c);
   const out = optionalString(values, 'out');
   const target = values.for === undefined ? 'spreadsheet' : flagChoice(c, 'for', values.for, CSV_TARGETS, 'output target');
-  if (out !== undefined) refuseOverwritingInput(c, out, [['definition file', defPath], ['data file', dataPath]]);
+  if (out !== undefined)
+    refuseOverwritingInput(c, out, [
+      ['definition file', defPath],
+      ['data file', dataPath],
+    ]);
   const handle = loadDefinition(defPath);
   // Read the file under the definition's stored schema (missing markers, decimal mark), never the defaults.
   const prep = handle.definition.preparation as { missingMarkers?: string[]; decimalMark?: '.' | ',' };
@@ -224,9 +248,12 @@ export function assignCommand(args: string[], io: Io): number {
 export function sqlCommand(args: string[], io: Io): number {
   const c = 'sql';
   const { values, positionals } = parseCommandArgs(c, args, {
-    table: { type: 'string' }, 'id-column': { type: 'string' }, dialect: { type: 'string' }, out: { type: 'string' },
+    table: { type: 'string' },
+    'id-column': { type: 'string' },
+    dialect: { type: 'string' },
+    out: { type: 'string' },
   });
-  if (values.help) return io.out(SQL_HELP), 0;
+  if (values.help) return (io.out(SQL_HELP), 0);
   const [defPath] = exactPositionals(positionals, ['DEF.json'], c);
   const table = requireString(values, 'table', c);
   const given = optionalString(values, 'dialect');

@@ -86,16 +86,9 @@ export function didYouMean(name: string, candidates: readonly string[]): string 
 }
 
 /** Refuse a value that is not one of the allowed names, listing them and suggesting the closest. */
-export function checkChoice<T extends string>(
-  value: unknown,
-  allowed: readonly T[],
-  what: string,
-): T {
+export function checkChoice<T extends string>(value: unknown, allowed: readonly T[], what: string): T {
   if (typeof value === 'string' && (allowed as readonly string[]).includes(value)) return value as T;
   const shown = typeof value === 'string' ? `"${value}"` : String(value);
   const hint = typeof value === 'string' ? didYouMean(value, allowed) : '';
-  throw new KinsortError(
-    `Unknown ${what} ${shown}.${hint} Valid ${what}s: ${allowed.join(', ')}.`,
-    'bad-option',
-  );
+  throw new KinsortError(`Unknown ${what} ${shown}.${hint} Valid ${what}s: ${allowed.join(', ')}.`, 'bad-option');
 }

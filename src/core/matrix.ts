@@ -100,10 +100,7 @@ export function toMatrix(input: RowsInput, options: ToMatrixOptions = {}): Matri
       for (let j = 0; j < cols; j++) {
         const v = row[j];
         if (typeof v !== 'number') {
-          throw new KinsortError(
-            `${what}: row ${i + 1}, column ${j + 1} holds ${JSON.stringify(v)}, not a number.`,
-            'bad-input',
-          );
+          throw new KinsortError(`${what}: row ${i + 1}, column ${j + 1} holds ${JSON.stringify(v)}, not a number.`, 'bad-input');
         }
         data[i * cols + j] = v;
       }

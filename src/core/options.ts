@@ -5,11 +5,7 @@ import { KinsortError, didYouMean } from './errors';
  * Throw when `options` holds a key outside `allowed`. `where` names the call, e.g. "kmeans".
  * Returns the options (or an empty object) so calls can be chained.
  */
-export function checkOptions<T extends object>(
-  options: T | undefined | null,
-  allowed: readonly string[],
-  where: string,
-): T {
+export function checkOptions<T extends object>(options: T | undefined | null, allowed: readonly string[], where: string): T {
   if (options === undefined || options === null) return {} as T;
   if (typeof options !== 'object' || Array.isArray(options)) {
     throw new KinsortError(`${where}: options must be an object; got ${describe(options)}.`, 'bad-option');

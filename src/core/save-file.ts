@@ -9,11 +9,15 @@ import { KinsortError } from './errors';
 function failure(file: string, what: string, e: unknown): KinsortError {
   const code = (e as NodeJS.ErrnoException).code;
   const why =
-    code === 'EISDIR' ? 'it is a folder' :
-    code === 'ENOTDIR' ? 'part of the path is a file, not a folder' :
-    code === 'EACCES' || code === 'EPERM' ? 'permission denied' :
-    code === 'ENOENT' ? 'the folder cannot be created there' :
-    (e as Error).message;
+    code === 'EISDIR'
+      ? 'it is a folder'
+      : code === 'ENOTDIR'
+        ? 'part of the path is a file, not a folder'
+        : code === 'EACCES' || code === 'EPERM'
+          ? 'permission denied'
+          : code === 'ENOENT'
+            ? 'the folder cannot be created there'
+            : (e as Error).message;
   return new KinsortError(`cannot write ${what} to "${file}": ${why}${code ? ` (${code})` : ''}.`, 'bad-input');
 }
 
@@ -33,7 +37,10 @@ function makeFolders(folder: string): void {
 /** Write `text` to `file` (UTF-8), creating missing folders; returns the absolute path. */
 export function saveText(file: unknown, text: string, what = 'the file'): string {
   if (typeof file !== 'string' || file.trim() === '') {
-    throw new KinsortError(`save: give a file path for ${what}; got ${typeof file === 'string' ? 'an empty string' : typeof file}.`, 'bad-argument');
+    throw new KinsortError(
+      `save: give a file path for ${what}; got ${typeof file === 'string' ? 'an empty string' : typeof file}.`,
+      'bad-argument',
+    );
   }
   if (file.includes('\u0000')) throw new KinsortError(`save: the path for ${what} holds a NUL character.`, 'bad-argument');
   const target = path.resolve(file);

@@ -15,7 +15,6 @@ export function workerPool(start: (threads: typeof import('worker_threads')) => 
     get() {
       if (pooled || failed) return pooled;
       try {
-        // eslint-disable-next-line @typescript-eslint/no-var-requires
         const worker = start(require('worker_threads') as typeof import('worker_threads'));
         worker.unref();
         const drop = () => {
@@ -41,9 +40,8 @@ export function workerPool(start: (threads: typeof import('worker_threads')) => 
  */
 export function sharedMemoryReleaser(): () => void {
   try {
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
     require('v8').setFlagsFromString('--expose-gc');
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
+
     const gc = require('vm').runInNewContext('gc');
     return typeof gc === 'function' ? () => gc() : () => undefined;
   } catch {

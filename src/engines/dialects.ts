@@ -17,7 +17,10 @@ function standardString(text: string): string {
 function exponentDigits(value: number): string {
   if (!Number.isFinite(value)) {
     // Reached from a damaged or overflowing definition (e.g. a farBeyond of 1e308 squared).
-    throw new KinsortError(`SQL: a figure of the definition comes out as ${value}, which SQL cannot hold; check the definition file.`, 'bad-definition');
+    throw new KinsortError(
+      `SQL: a figure of the definition comes out as ${value}, which SQL cannot hold; check the definition file.`,
+      'bad-definition',
+    );
   }
   const text = String(value === 0 ? 0 : value).toUpperCase();
   return text.includes('E') ? text.replace('E+', 'E') : text + 'E0';

@@ -6,10 +6,16 @@ import { KinsortError } from '../core/errors';
 export function checkSqlText(text: string, what: string): string {
   if (typeof text !== 'string') throw new KinsortError(`SQL: ${what} is not text.`, 'bad-definition');
   if (text.includes('\u0000')) {
-    throw new KinsortError(`SQL: ${what} ${JSON.stringify(text.slice(0, 80))} holds the character U+0000, which SQL text cannot carry.`, 'not-supported');
+    throw new KinsortError(
+      `SQL: ${what} ${JSON.stringify(text.slice(0, 80))} holds the character U+0000, which SQL text cannot carry.`,
+      'not-supported',
+    );
   }
   if (/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/.test(text)) {
-    throw new KinsortError(`SQL: ${what} ${JSON.stringify(text.slice(0, 80))} holds an unpaired surrogate (not valid Unicode), which SQL text cannot carry unchanged.`, 'not-supported');
+    throw new KinsortError(
+      `SQL: ${what} ${JSON.stringify(text.slice(0, 80))} holds an unpaired surrogate (not valid Unicode), which SQL text cannot carry unchanged.`,
+      'not-supported',
+    );
   }
   return text;
 }

@@ -43,12 +43,7 @@ export function isDissimilarity(value: unknown): value is Dissimilarity {
 }
 
 /** Wrap a condensed array (taken as is, not copied) as a Dissimilarity. No validation. */
-export function makeDissimilarity(
-  size: number,
-  condensed: Float64Array,
-  metric: string,
-  labels?: readonly string[],
-): Dissimilarity {
+export function makeDissimilarity(size: number, condensed: Float64Array, metric: string, labels?: readonly string[]): Dissimilarity {
   return {
     kind: 'dissimilarity',
     size,
@@ -66,10 +61,7 @@ export function makeDissimilarity(
  * Wrap a condensed array given by the caller (e.g. computed elsewhere). Checks that its length
  * fits some n, that values are finite and non-negative, and that labels match n.
  */
-export function fromCondensed(
-  values: ArrayLike<number>,
-  options?: { labels?: readonly string[]; metric?: string },
-): Dissimilarity {
+export function fromCondensed(values: ArrayLike<number>, options?: { labels?: readonly string[]; metric?: string }): Dissimilarity {
   const opts = checkOptions(options, ['labels', 'metric'], 'fromCondensed');
   const n = sizeFromCondensedLength(values.length);
   if (n < 2) {
@@ -112,7 +104,6 @@ let pairBudgetBytes = defaultBudget();
 function defaultBudget(): number {
   let total = 8 * 1024 ** 3;
   try {
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
     total = require('os').totalmem();
   } catch {
     /* not in Node: keep the fixed default */

@@ -18,22 +18,23 @@ const WHERE = 'crossDistances';
  * `out[i * b.rows + j]` = dissimilarity of row i of `a` and row j of `b` (a.rows × b.rows,
  * row-major). Any row metric except gower, which needs the ranges of a whole table.
  */
-export function crossDistances(
-  a: RowsInput,
-  b: RowsInput,
-  metric: RowMetric = 'euclidean',
-  options?: CrossDistanceOptions,
-): Float64Array {
+export function crossDistances(a: RowsInput, b: RowsInput, metric: RowMetric = 'euclidean', options?: CrossDistanceOptions): Float64Array {
   const opts = checkOptions(options, ['p', 'weights'], WHERE);
   const m = checkMetric(metric, WHERE);
   if (m === 'gower') {
-    throw new KinsortError(`${WHERE}: gower needs the column ranges of one whole table; compute dissimilarity on a mixed table instead.`, 'not-supported');
+    throw new KinsortError(
+      `${WHERE}: gower needs the column ranges of one whole table; compute dissimilarity on a mixed table instead.`,
+      'not-supported',
+    );
   }
   const p = checkExponent(m, opts.p, WHERE);
   const ma = toMatrix(a, { what: `${WHERE} (first rows)` });
   const mb = toMatrix(b, { what: `${WHERE} (second rows)` });
   if (ma.cols !== mb.cols) {
-    throw new KinsortError(`${WHERE}: the first rows have ${ma.cols} columns but the second rows have ${mb.cols}; both need the same columns.`, 'bad-input');
+    throw new KinsortError(
+      `${WHERE}: the first rows have ${ma.cols} columns but the second rows have ${mb.cols}; both need the same columns.`,
+      'bad-input',
+    );
   }
   const weights = checkWeights(m, opts.weights, ma.cols, WHERE);
   if (m === 'cosine' || m === 'correlation') {

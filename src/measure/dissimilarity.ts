@@ -6,15 +6,7 @@ import { checkOptions } from '../core/options';
 import { Dissimilarity, guardPairwise, makeDissimilarity } from './condensed';
 import { euclideanCondensed } from './parallel';
 import { gowerDissimilarity } from './gower';
-import {
-  MetricName,
-  PairKernel,
-  checkExponent,
-  checkMetric,
-  checkWeights,
-  cosineFromParts,
-  distanceFunction,
-} from './metrics';
+import { MetricName, PairKernel, checkExponent, checkMetric, checkWeights, cosineFromParts, distanceFunction } from './metrics';
 
 export interface DissimilarityOptions {
   /** euclidean (default for number rows), sqeuclidean, manhattan, chebyshev, minkowski, cosine, correlation, gower (default for a mixed table). */
@@ -52,7 +44,9 @@ export function dissimilarity(input: RowsInput | MixedTable, options?: Dissimila
   const m = toMatrix(input, { what: WHERE, finite: metric !== 'gower' });
   if (m.cols === 0) throw new KinsortError(`${WHERE}: the rows have no columns.`, 'empty');
   if (metric === 'gower') return gowerDissimilarity(numericTable(m), opts.weights, WHERE);
-  const weights = checkWeights(metric, opts.weights, m.cols, WHERE, (j) => (m.colNames?.[j] ? `column "${m.colNames[j]}"` : `column ${j + 1}`));
+  const weights = checkWeights(metric, opts.weights, m.cols, WHERE, (j) =>
+    m.colNames?.[j] ? `column "${m.colNames[j]}"` : `column ${j + 1}`,
+  );
   guardPairwise(m.rows, WHERE);
   const pairs = (m.rows * (m.rows - 1)) / 2;
   const fast = (metric === 'euclidean' || metric === 'sqeuclidean') && !weights;

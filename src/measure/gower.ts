@@ -93,7 +93,10 @@ function columnWeights(columns: readonly MixedColumn[], where: string): Float64A
   for (let t = 0; t < columns.length; t++) {
     const v = columns[t].weight ?? 1;
     if (typeof v !== 'number' || !Number.isFinite(v) || v < 0) {
-      throw new KinsortError(`${where}: column "${columns[t].name}" has weight ${describe(v)}; weights must be finite numbers ≥ 0.`, 'bad-option');
+      throw new KinsortError(
+        `${where}: column "${columns[t].name}" has weight ${describe(v)}; weights must be finite numbers ≥ 0.`,
+        'bad-option',
+      );
     }
     w[t] = v;
   }

@@ -4,15 +4,7 @@ import { KinsortError, checkChoice } from '../core/errors';
 import { describe } from '../core/options';
 import { squaredDistance } from './squared-distance';
 
-export const ROW_METRICS = [
-  'euclidean',
-  'sqeuclidean',
-  'manhattan',
-  'chebyshev',
-  'minkowski',
-  'cosine',
-  'correlation',
-] as const;
+export const ROW_METRICS = ['euclidean', 'sqeuclidean', 'manhattan', 'chebyshev', 'minkowski', 'cosine', 'correlation'] as const;
 export type RowMetric = (typeof ROW_METRICS)[number];
 
 export const METRICS = [...ROW_METRICS, 'gower'] as const;
@@ -43,10 +35,7 @@ export function checkMetric(metric: unknown, where: string): MetricName {
 export function checkExponent(metric: MetricName, p: unknown, where: string): number | undefined {
   if (metric !== 'minkowski') {
     if (p !== undefined) {
-      throw new KinsortError(
-        `${where}: option p (${describe(p)}) applies only to metric "minkowski", not "${metric}".`,
-        'bad-option',
-      );
+      throw new KinsortError(`${where}: option p (${describe(p)}) applies only to metric "minkowski", not "${metric}".`, 'bad-option');
     }
     return undefined;
   }
@@ -75,7 +64,10 @@ export function checkWeights(
     );
   }
   if (!Array.isArray(weights) && !ArrayBuffer.isView(weights)) {
-    throw new KinsortError(`${where}: weights must be an array of ${dims} numbers, one per column; got ${describe(weights)}.`, 'bad-option');
+    throw new KinsortError(
+      `${where}: weights must be an array of ${dims} numbers, one per column; got ${describe(weights)}.`,
+      'bad-option',
+    );
   }
   const w = weights as ArrayLike<unknown>;
   if (w.length !== dims) {
@@ -86,7 +78,10 @@ export function checkWeights(
   for (let j = 0; j < dims; j++) {
     const v = w[j];
     if (typeof v !== 'number' || !Number.isFinite(v) || v < 0) {
-      throw new KinsortError(`${where}: the weight of ${columnName(j)} is ${describe(v)}; weights must be finite numbers ≥ 0.`, 'bad-option');
+      throw new KinsortError(
+        `${where}: the weight of ${columnName(j)} is ${describe(v)}; weights must be finite numbers ≥ 0.`,
+        'bad-option',
+      );
     }
     out[j] = v;
     if (v > 0) any = true;
@@ -104,7 +99,10 @@ export function checkWeights(
 export function distanceFunction(metric: RowMetric | string, p?: number, weights?: ArrayLike<number>): PairKernel {
   const m = checkMetric(metric, 'distanceFunction');
   if (m === 'gower') {
-    throw new KinsortError('distanceFunction: gower needs the whole table (column ranges); call dissimilarity on a mixed table.', 'not-supported');
+    throw new KinsortError(
+      'distanceFunction: gower needs the whole table (column ranges); call dissimilarity on a mixed table.',
+      'not-supported',
+    );
   }
   const exponent = checkExponent(m, p, 'distanceFunction');
   const w = weights === undefined ? undefined : Float64Array.from(weights);

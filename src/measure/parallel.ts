@@ -6,7 +6,15 @@
 // as plain JavaScript (euclideanKernel.ts) otherwise; both give the same numbers.
 import { releaseSharedSource, workerPool } from '../core/worker-pool';
 import { finish, pairSum, squaredDifferencesRows } from './euclideanKernel';
-import { fillPairsInputs, instantiatePairs, pairsLayout, pairsModule, pairsRowsWasm, type PairsFunction, type PairsLayout } from './wasmPairs';
+import {
+  fillPairsInputs,
+  instantiatePairs,
+  pairsLayout,
+  pairsModule,
+  pairsRowsWasm,
+  type PairsFunction,
+  type PairsLayout,
+} from './wasmPairs';
 
 /** Below this many rows a worker's hand-over costs more than it saves. */
 const MIN_ROWS_FOR_WORKER = 3000;
@@ -21,7 +29,6 @@ let threadsWanted = defaultThreads();
 
 function defaultThreads(): number {
   try {
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
     const os = require('os');
     const count = typeof os.availableParallelism === 'function' ? os.availableParallelism() : os.cpus().length;
     return Math.min(2, Math.max(1, count));
@@ -108,7 +115,9 @@ function wasmCondensed(
   const view = new Float64Array(memory.buffer);
   fillPairsInputs(view, data, n, d, layout);
   const job: WasmJob = { kind: 'wasm', module, memory, n, d, root, dataAt: layout.dataAt, pairedAt: layout.pairedAt };
-  runChunks(n, shareWork ? job : undefined, (from, to) => pairsRowsWasm(measure, view, n, d, root, layout.dataAt, layout.pairedAt, from, to));
+  runChunks(n, shareWork ? job : undefined, (from, to) =>
+    pairsRowsWasm(measure, view, n, d, root, layout.dataAt, layout.pairedAt, from, to),
+  );
   lastShare.wasm = true;
   const out = new Float64Array(memory.buffer, 0, pairs);
   // Many columns and few rows: the copies of the rows would outweigh the result; keep only the result.

@@ -20,10 +20,20 @@ export function squaredDistance(a: Float64Array, ao: number, b: Float64Array, bo
  * it at every column, and each is still summed in column order (the same number as alone).
  */
 export function fourDistances(
-  a: Float64Array, a0: number, a1: number, a2: number, a3: number,
-  b: Float64Array, b0: number, b1: number, b2: number, b3: number,
-  d: number, out: Float64Array,
-): void { // prettier-ignore
+  a: Float64Array,
+  a0: number,
+  a1: number,
+  a2: number,
+  a3: number,
+  b: Float64Array,
+  b0: number,
+  b1: number,
+  b2: number,
+  b3: number,
+  d: number,
+  out: Float64Array,
+): void {
+  // prettier-ignore
   let s0 = 0, s1 = 0, s2 = 0, s3 = 0; // prettier-ignore
   for (let j = 0; j < d; j++) {
     let e = a[a0 + j] - b[b0 + j];
@@ -46,7 +56,15 @@ export function fourDistances(
  * out[0..3] and out[4..7]. Eight independent sums keep the adder busy and each loaded value
  * serves several pairs, while every distance is still summed in column order.
  */
-export function twoByFour(rows: Float64Array, a0: number, a1: number, others: Float64Array, b0: number, d: number, out: Float64Array): void {
+export function twoByFour(
+  rows: Float64Array,
+  a0: number,
+  a1: number,
+  others: Float64Array,
+  b0: number,
+  d: number,
+  out: Float64Array,
+): void {
   const b1 = b0 + d;
   const b2 = b1 + d;
   const b3 = b2 + d;
@@ -92,7 +110,15 @@ const quad = new Float64Array(4);
  * Squared distance of rows [lo, hi) (n × d, row-major) to the one point at `point[at..at + d)`,
  * into out[i], four rows at a time (fourDistances).
  */
-export function distancesToPoint(rows: Float64Array, d: number, lo: number, hi: number, point: Float64Array, at: number, out: Float64Array): void {
+export function distancesToPoint(
+  rows: Float64Array,
+  d: number,
+  lo: number,
+  hi: number,
+  point: Float64Array,
+  at: number,
+  out: Float64Array,
+): void {
   let i = lo;
   for (; i + 3 < hi; i += 4) {
     const b0 = i * d;

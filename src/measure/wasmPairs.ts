@@ -20,7 +20,33 @@
 //
 // All addresses are bytes into one shared memory laid out by `pairsLayout`.
 import {
-  localGet, localSet, localTee, i32Const, I32_ADD, I32_SUB, I32_SHL, I32_LT_U, I32_EQZ, F64_LOAD, V128_LOAD, v128Store, V128_ZERO, F64X2_SPLAT, F64X2_SQRT, F64X2_ADD, F64X2_SUB, F64X2_MUL, BLOCK, LOOP, IF, END, brIf, oneFunctionModule, compiledOnce, I32, V128,
+  localGet,
+  localSet,
+  localTee,
+  i32Const,
+  I32_ADD,
+  I32_SUB,
+  I32_SHL,
+  I32_LT_U,
+  I32_EQZ,
+  F64_LOAD,
+  V128_LOAD,
+  v128Store,
+  V128_ZERO,
+  F64X2_SPLAT,
+  F64X2_SQRT,
+  F64X2_ADD,
+  F64X2_SUB,
+  F64X2_MUL,
+  BLOCK,
+  LOOP,
+  IF,
+  END,
+  brIf,
+  oneFunctionModule,
+  compiledOnce,
+  I32,
+  V128,
 } from '../core/wasm-encoding';
 
 /** Byte offsets in the shared memory: the condensed output first, then the rows, then the rows interleaved in pairs. */
@@ -88,7 +114,16 @@ export function pairsRowsWasm(
     memory[k0++] = one(i, i + 1);
     const groups = Math.floor((n - i - 2) / 4);
     if (groups > 0) {
-      pairs(dataAt + i * rowBytes, dataAt + (i + 1) * rowBytes, pairedAt + ((i + 2) / 2) * 2 * rowBytes, groups, rowBytes, k0 * 8, k1 * 8, root ? 1 : 0);
+      pairs(
+        dataAt + i * rowBytes,
+        dataAt + (i + 1) * rowBytes,
+        pairedAt + ((i + 2) / 2) * 2 * rowBytes,
+        groups,
+        rowBytes,
+        k0 * 8,
+        k1 * 8,
+        root ? 1 : 0,
+      );
       k0 += 4 * groups;
       k1 += 4 * groups;
     }
@@ -111,14 +146,27 @@ export function pairsModule(shared: boolean): WebAssembly.Module | undefined {
 }
 
 /** A memory of the layout's size (shared or private, as the module was built) with the module instantiated on it. */
-export function instantiatePairs(module: WebAssembly.Module, layout: PairsLayout, shared: boolean): { memory: WebAssembly.Memory; pairs: PairsFunction } {
+export function instantiatePairs(
+  module: WebAssembly.Module,
+  layout: PairsLayout,
+  shared: boolean,
+): { memory: WebAssembly.Memory; pairs: PairsFunction } {
   const pages = Math.ceil(layout.bytes / 65536);
   const memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared });
   const instance = new WebAssembly.Instance(module, { env: { memory } });
   return { memory, pairs: instance.exports.pairs as PairsFunction };
 }
 
-export type PairsFunction = (a0: number, a1: number, p: number, count: number, rowBytes: number, out0: number, out1: number, root: number) => void;
+export type PairsFunction = (
+  a0: number,
+  a1: number,
+  p: number,
+  count: number,
+  rowBytes: number,
+  out0: number,
+  out1: number,
+  root: number,
+) => void;
 
 // ---- assembling the module (encoding helpers: src/core/wasm-encoding.ts) ----
 
@@ -156,5 +204,14 @@ export function pairsModuleBytes(shared: boolean): Uint8Array {
     ...END,
     ...END,
   ]; // prettier-ignore
-  return oneFunctionModule({ name: 'pairs', params: 8, locals: [[3, I32], [9, V128]], body, sharedMemory: shared });
+  return oneFunctionModule({
+    name: 'pairs',
+    params: 8,
+    locals: [
+      [3, I32],
+      [9, V128],
+    ],
+    body,
+    sharedMemory: shared,
+  });
 }

@@ -49,7 +49,7 @@ function tslabModule(g: TslabGlobal): TslabModule {
     /* fall through to our own require */
   }
   // tslab is an optional peer: present whenever its kernel is the one running this code.
-  // eslint-disable-next-line @typescript-eslint/no-var-requires
+
   cachedTslab ??= require('tslab') as TslabModule;
   return cachedTslab;
 }

@@ -20,7 +20,10 @@ function readBundle(): string {
 export function plottingVersion(): string {
   if (version === undefined) {
     const pkg = path.join(path.dirname(require.resolve('plotly.js-dist-min')), 'package.json');
-    version = String((JSON.parse(fs.readFileSync(pkg, 'utf8')) as { version?: string }).version ?? 'unknown').replace(/[^0-9A-Za-z.-]/g, '');
+    version = String((JSON.parse(fs.readFileSync(pkg, 'utf8')) as { version?: string }).version ?? 'unknown').replace(
+      /[^0-9A-Za-z.-]/g,
+      '',
+    );
   }
   return version;
 }

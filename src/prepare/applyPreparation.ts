@@ -34,7 +34,10 @@ function checkPreparation(p: Preparation): void {
     );
   }
   if (p.textRule !== TEXT_RULE) {
-    throw new KinsortError(`applyPreparation: text rule ${JSON.stringify(p.textRule)} is not one this package knows (it reads "${TEXT_RULE}").`, 'bad-definition');
+    throw new KinsortError(
+      `applyPreparation: text rule ${JSON.stringify(p.textRule)} is not one this package knows (it reads "${TEXT_RULE}").`,
+      'bad-definition',
+    );
   }
 }
 
@@ -68,11 +71,7 @@ export function readUnderSchema(p: Preparation, input: unknown, where: string): 
  * indicators to 0 and is listed in report.unseenLevels; missing cells follow the stored policy
  * ('median' imputes the stored training values).
  */
-export function applyPreparation(
-  preparation: Preparation,
-  input: Table | unknown,
-  options?: ApplyPreparationOptions,
-): PreparedData {
+export function applyPreparation(preparation: Preparation, input: Table | unknown, options?: ApplyPreparationOptions): PreparedData {
   checkPreparation(preparation);
   const opts = checkOptions(options, ['id'], 'applyPreparation');
   const table = readUnderSchema(preparation, input, 'applyPreparation');

@@ -19,12 +19,7 @@ export interface FitContext {
 }
 
 /** The fitted column, or null when it has no spread in the kept rows (constant). */
-export function fitColumn(
-  column: UsedColumn,
-  cells: readonly Cell[],
-  kept: Int32Array,
-  ctx: FitContext,
-): PreparedColumn | null {
+export function fitColumn(column: UsedColumn, cells: readonly Cell[], kept: Int32Array, ctx: FitContext): PreparedColumn | null {
   const { name, type } = column;
   const base = { name, type, log: ctx.log, weight: ctx.weight, fill: ctx.fill };
   const exact = { ...base, levelMatch: 'exact' as const };
@@ -44,7 +39,13 @@ export function fitColumn(
     const { centre, spread, spreadKind } = scaleOf(values, ctx.scale, lo, hi, name, ctx.notes);
     // Values near the ends of double precision overflow (1e300) or underflow (1e-300) in the
     // spread; scaled by it every row would silently become 0 or NaN.
-    if (!Number.isFinite(centre) || !Number.isFinite(spread) || !(spread > 0) || !Number.isFinite(lo / spread) || !Number.isFinite(hi / spread)) {
+    if (
+      !Number.isFinite(centre) ||
+      !Number.isFinite(spread) ||
+      !(spread > 0) ||
+      !Number.isFinite(lo / spread) ||
+      !Number.isFinite(hi / spread)
+    ) {
       throw new KinsortError(
         `column "${name}": its values run from ${lo} to ${hi}, too large or too small in size to scale ` +
           `in double precision (the ${spreadKind === 'none' ? 'centre' : spreadKind} comes out as ${spreadKind === 'none' ? centre : spread}); ` +
@@ -78,7 +79,10 @@ export function fitColumn(
     if (levels.length > 2) {
       throw new KinsortError(
         `column "${name}" is treated as binary but has ${levels.length} distinct values ` +
-          `(${levels.slice(0, 6).map((l) => JSON.stringify(l)).join(', ')}${levels.length > 6 ? ', …' : ''}); ` +
+          `(${levels
+            .slice(0, 6)
+            .map((l) => JSON.stringify(l))
+            .join(', ')}${levels.length > 6 ? ', …' : ''}); ` +
           `declare it categorical in types.`,
         'bad-input',
       );
@@ -142,8 +146,7 @@ function scaleOf(
         return { centre, spread: mad, spreadKind: 'mad' };
       }
       notes.push(
-        `Column "${name}": interquartile range and MAD are both 0, so robust scaling divides by the ` +
-          `standard deviation instead.`,
+        `Column "${name}": interquartile range and MAD are both 0, so robust scaling divides by the ` + `standard deviation instead.`,
       );
       return { centre, spread: sampleSd(values), spreadKind: 'sd' };
     }

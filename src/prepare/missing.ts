@@ -52,8 +52,9 @@ export function applyMissingPolicy(input: MissingInput): MissingOutcome {
     const byColumn = [...countByColumn].map(([n, c]) => `${n} (${c})`).join(', ');
     throw new KinsortError(
       `${input.where(first)}, column "${column}" is missing, and the missing-value policy is 'refuse' ` +
-        `(the default). ${others === 0 ? 'It is the only missing cell' : `There are ${others} other missing ` +
-        `cell(s)`} in the used columns; missing cells per column: ${byColumn}. Choose missing: 'drop' ` +
+        `(the default). ${
+          others === 0 ? 'It is the only missing cell' : `There are ${others} other missing ` + `cell(s)`
+        } in the used columns; missing cells per column: ${byColumn}. Choose missing: 'drop' ` +
         `(rows removed and listed) or 'median' (values imputed and listed), or fill the cells.`,
       'missing-value',
     );

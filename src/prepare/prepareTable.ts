@@ -22,7 +22,17 @@ import {
 } from './types';
 
 const PREPARE_OPTIONS = [
-  'id', 'use', 'keep', 'types', 'ordinalLevels', 'scale', 'log', 'weights', 'missing', 'missingMarkers', 'decimalMark',
+  'id',
+  'use',
+  'keep',
+  'types',
+  'ordinalLevels',
+  'scale',
+  'log',
+  'weights',
+  'missing',
+  'missingMarkers',
+  'decimalMark',
 ];
 
 /**
@@ -39,9 +49,7 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
       'bad-option',
     );
   }
-  const table = isTable(input)
-    ? input
-    : readTable(input, { missingMarkers: opts.missingMarkers, decimalMark: opts.decimalMark });
+  const table = isTable(input) ? input : readTable(input, { missingMarkers: opts.missingMarkers, decimalMark: opts.decimalMark });
   const decimalMark = table.decimalMark ?? '.';
   const scale = checkChoice(opts.scale ?? 'zscore', SCALE_METHODS, 'scale method');
   const policy = checkChoice(opts.missing ?? 'refuse', MISSING_POLICIES, 'missing-value policy');
@@ -83,7 +91,13 @@ export function prepareTable(input: Table | unknown, options?: PrepareOptions): 
     rowCount: table.rowCount,
     ids,
     where,
-    fillFor: (name) => fillValue(roles.use.find((c) => c.name === name)!, raw.get(name)!, where, decimalMark),
+    fillFor: (name) =>
+      fillValue(
+        roles.use.find((c) => c.name === name)!,
+        raw.get(name)!,
+        where,
+        decimalMark,
+      ),
   });
   if (outcome.kept.length === 0) {
     throw new KinsortError(

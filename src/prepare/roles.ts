@@ -60,10 +60,7 @@ export function resolveRoles(table: Table, opts: PrepareOptions): Roles {
         throw new KinsortError(`prepareTable: "${n}" is the id column; it cannot also be a feature in use.`, 'bad-option');
       }
       if (keep.includes(n)) {
-        throw new KinsortError(
-          `prepareTable: "${n}" is in both use and keep; a column is either a feature or profile-only.`,
-          'bad-option',
-        );
+        throw new KinsortError(`prepareTable: "${n}" is in both use and keep; a column is either a feature or profile-only.`, 'bad-option');
       }
     }
   } else {
@@ -122,10 +119,7 @@ export function resolveRoles(table: Table, opts: PrepareOptions): Roles {
     const levels = overrides.levels.get(name) ?? column.ordinalLevels;
     if (type === 'ordinal') {
       if (levels === undefined) {
-        throw new KinsortError(
-          `prepareTable: column "${name}" is ordinal; give its level order in ordinalLevels.`,
-          'bad-option',
-        );
+        throw new KinsortError(`prepareTable: column "${name}" is ordinal; give its level order in ordinalLevels.`, 'bad-option');
       }
       return { name, type, ordinalLevels: [...levels] };
     }

@@ -25,7 +25,6 @@ export function sortedCopy(values: Float64Array): Float64Array {
   return Float64Array.from(values).sort();
 }
 
-
 export function median(values: Float64Array): number {
   return quantileSorted(sortedCopy(values), 0.5);
 }

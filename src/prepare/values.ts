@@ -27,8 +27,7 @@ export function numericCell(
   }
   if (!Number.isFinite(v)) {
     throw new KinsortError(
-      `${where(row)}, column "${column}" is ${v}; only finite numbers can be used (blank the cell to treat it ` +
-        `as missing).`,
+      `${where(row)}, column "${column}" is ${v}; only finite numbers can be used (blank the cell to treat it ` + `as missing).`,
       'not-finite',
     );
   }

@@ -15,7 +15,6 @@ export interface PreparedLimits {
 function defaultBytes(): number {
   let total = 8 * 1024 ** 3;
   try {
-    // eslint-disable-next-line @typescript-eslint/no-var-requires
     total = require('os').totalmem();
   } catch {
     /* not in Node: keep the fixed default */

@@ -142,7 +142,10 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
   if (prepared !== undefined) {
     const m = prepared.matrix;
     if (m.cols !== definition.features.length || m.rows !== good.length) {
-      throw new KinsortError(`assign: the preparation gave ${m.rows} × ${m.cols} values for ${good.length} rows × ${definition.features.length} features.`, 'bad-definition');
+      throw new KinsortError(
+        `assign: the preparation gave ${m.rows} × ${m.cols} values for ${good.length} rows × ${definition.features.length} features.`,
+        'bad-definition',
+      );
     }
     const k = definition.segments.length;
     const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
@@ -159,7 +162,8 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     );
   }
   const notes: string[] = [];
-  if (ignoredColumns.length > 0) notes.push(`Ignored column${ignoredColumns.length > 1 ? 's' : ''} the definition does not use: ${ignoredColumns.join(', ')}.`);
+  if (ignoredColumns.length > 0)
+    notes.push(`Ignored column${ignoredColumns.length > 1 ? 's' : ''} the definition does not use: ${ignoredColumns.join(', ')}.`);
   if (refused.length > 0) notes.push(`${refused.length} row(s) could not be prepared and have no segment; see "refused".`);
   if (unseenLevels.length > 0) {
     const shown = unseenLevels.slice(0, 5).map((u) => `${u.id}: ${u.column} = ${JSON.stringify(u.level)}`);

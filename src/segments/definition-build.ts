@@ -61,8 +61,18 @@ export interface BuildDefinitionInput {
 }
 
 const INPUT_KEYS = [
-  'preparation', 'method', 'centers', 'medoids', 'rule', 'metric', 'segments', 'training', 'evidence', 'note',
-  'packageVersion', 'labels',
+  'preparation',
+  'method',
+  'centers',
+  'medoids',
+  'rule',
+  'metric',
+  'segments',
+  'training',
+  'evidence',
+  'note',
+  'packageVersion',
+  'labels',
 ];
 
 function featureNamesOf(preparation: object, matrix: Matrix): string[] {
@@ -90,7 +100,11 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
     throw new KinsortError(`${where}: "preparation" must be the Preparation object from prepareTable.`, 'bad-argument');
   }
   const methodName = checkChoice(input.method?.name, DEFINITION_METHODS, 'method');
-  const rule = checkChoice(input.rule ?? (methodName === 'kmedoids' ? 'nearest-medoid' : 'nearest-center'), ASSIGNMENT_RULES, 'assignment rule');
+  const rule = checkChoice(
+    input.rule ?? (methodName === 'kmedoids' ? 'nearest-medoid' : 'nearest-center'),
+    ASSIGNMENT_RULES,
+    'assignment rule',
+  );
   // Medoids are compared under the metric they were chosen with; centres (k-means, a hierarchy
   // cut) always under Euclidean distance in the prepared space.
   const optionMetric = (input.method?.options as { metric?: unknown } | undefined)?.metric;
@@ -107,13 +121,19 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
   const matrix = toMatrix(input.training?.matrix as Matrix, { what: `${where}: training rows` });
   const ids = input.training.ids;
   if (!Array.isArray(ids) || ids.length !== matrix.rows) {
-    throw new KinsortError(`${where}: ${Array.isArray(ids) ? ids.length : 'no'} training ids for ${matrix.rows} training rows.`, 'bad-input');
+    throw new KinsortError(
+      `${where}: ${Array.isArray(ids) ? ids.length : 'no'} training ids for ${matrix.rows} training rows.`,
+      'bad-input',
+    );
   }
   const { labels, k, sizes } = compactLabels(input.training.assignment, matrix.rows, `${where}: training assignment`);
   const dims = matrix.cols;
   const features = featureNamesOf(input.preparation, matrix);
   if (features.length !== dims) {
-    throw new KinsortError(`${where}: the preparation names ${features.length} features but the training rows have ${dims} columns.`, 'bad-input');
+    throw new KinsortError(
+      `${where}: the preparation names ${features.length} features but the training rows have ${dims} columns.`,
+      'bad-input',
+    );
   }
 
   let centerRows: number[][];
@@ -208,8 +228,18 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
       labels: trainingLabels,
     },
     trainingDistributions: trainingDistributions(
-      matrix.data, matrix.rows, dims,
-      nearestCenters(matrix.data, matrix.rows, flatCenters, k, dims, metric, segments.map((s) => s.farBeyond)).far,
+      matrix.data,
+      matrix.rows,
+      dims,
+      nearestCenters(
+        matrix.data,
+        matrix.rows,
+        flatCenters,
+        k,
+        dims,
+        metric,
+        segments.map((s) => s.farBeyond),
+      ).far,
     ),
     evidence: input.evidence === undefined ? undefined : (sortedKeys(finiteOrNull(input.evidence)) as { [key: string]: JsonValue }),
   };

@@ -35,11 +35,7 @@ function write(value: unknown, indent: string, path: string): string {
   const entries = Object.entries(value as Record<string, unknown>).filter(([, v]) => v !== undefined);
   if (entries.length === 0) return '{}';
   return (
-    '{\n' +
-    entries.map(([k, v]) => inner + JSON.stringify(k) + ': ' + write(v, inner, `${path}.${k}`)).join(',\n') +
-    '\n' +
-    indent +
-    '}'
+    '{\n' + entries.map(([k, v]) => inner + JSON.stringify(k) + ': ' + write(v, inner, `${path}.${k}`)).join(',\n') + '\n' + indent + '}'
   );
 }
 

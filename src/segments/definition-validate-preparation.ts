@@ -15,18 +15,37 @@ import {
 const COLUMN_TYPES: readonly string[] = PREPARED_COLUMN_TYPES;
 const SPREAD_KINDS: readonly string[] = PREPARED_SPREAD_KINDS;
 export const PREPARATION_KEYS = [
-  'columns', 'constantColumns', 'decimalMark', 'featureNames', 'format', 'idColumn', 'keep', 'missing',
-  'missingMarkers', 'scale', 'textRule', 'version',
+  'columns',
+  'constantColumns',
+  'decimalMark',
+  'featureNames',
+  'format',
+  'idColumn',
+  'keep',
+  'missing',
+  'missingMarkers',
+  'scale',
+  'textRule',
+  'version',
 ];
 export const PREPARED_COLUMN_KEYS = [
-  'centre', 'features', 'fill', 'levelMatch', 'levels', 'log', 'name', 'spread', 'spreadKind', 'type', 'weight',
+  'centre',
+  'features',
+  'fill',
+  'levelMatch',
+  'levels',
+  'log',
+  'name',
+  'spread',
+  'spreadKind',
+  'type',
+  'weight',
 ];
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');
 }
 
-// eslint-disable-next-line no-control-regex
 const CONTROL = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
 
 /** Names (columns, features, markers) may not hold control characters: they reach SQL, CSV headers and terminals. */
@@ -39,7 +58,8 @@ export function checkName(value: unknown, where: string, what: string): string {
 /** Unknown keys are refused, `__proto__` included: a hand edit with a typo must not be silently ignored. */
 export function onlyKeys(obj: object, allowed: readonly string[], where: string): void {
   for (const key of Object.keys(obj)) {
-    if (!allowed.includes(key)) fail(where, `unknown key ${JSON.stringify(key)}.${didYouMean(key, allowed)} Keys allowed here: ${allowed.join(', ')}.`);
+    if (!allowed.includes(key))
+      fail(where, `unknown key ${JSON.stringify(key)}.${didYouMean(key, allowed)} Keys allowed here: ${allowed.join(', ')}.`);
   }
 }
 
@@ -82,20 +102,30 @@ export function checkStoredPreparation(p: Record<string, unknown>, features: rea
   const at = `${where}: preparation`;
   if (p.format !== 'kinsort-preparation') fail(at, `key "format" is ${JSON.stringify(p.format)}; expected "kinsort-preparation".`);
   if (p.version !== PREPARATION_VERSION) {
-    fail(at, `key "version" is ${JSON.stringify(p.version)}; this kinsort reads preparation version ${PREPARATION_VERSION} (with the stored schema).`);
+    fail(
+      at,
+      `key "version" is ${JSON.stringify(p.version)}; this kinsort reads preparation version ${PREPARATION_VERSION} (with the stored schema).`,
+    );
   }
   onlyKeys(p, PREPARATION_KEYS, at);
   if (p.textRule !== TEXT_RULE) fail(at, `key "textRule" is ${JSON.stringify(p.textRule)}; this kinsort knows "${TEXT_RULE}".`);
-  if (!DECIMAL_MARKS.includes(p.decimalMark as never)) fail(at, `key "decimalMark" is ${JSON.stringify(p.decimalMark)}; expected "." or ",".`);
+  if (!DECIMAL_MARKS.includes(p.decimalMark as never))
+    fail(at, `key "decimalMark" is ${JSON.stringify(p.decimalMark)}; expected "." or ",".`);
   const markers = nameList(p, 'missingMarkers', at);
   markers.forEach((m, i) => {
-    if (trimSpaces(m) !== m) fail(at, `key "missingMarkers" entry ${i + 1} (${JSON.stringify(m)}) has leading or trailing spaces; markers are compared after trimming them.`);
+    if (trimSpaces(m) !== m)
+      fail(
+        at,
+        `key "missingMarkers" entry ${i + 1} (${JSON.stringify(m)}) has leading or trailing spaces; markers are compared after trimming them.`,
+      );
   });
   const dupMarker = firstDuplicate(markers);
   if (dupMarker !== undefined) fail(at, `key "missingMarkers" lists ${JSON.stringify(dupMarker)} twice.`);
   if (p.idColumn !== null) checkName(p.idColumn, at, 'key "idColumn"');
-  if (!SCALE_METHODS.includes(p.scale as never)) fail(at, `key "scale" is ${JSON.stringify(p.scale)}; expected one of ${SCALE_METHODS.join(', ')}.`);
-  if (!MISSING_POLICIES.includes(p.missing as never)) fail(at, `key "missing" is ${JSON.stringify(p.missing)}; expected one of ${MISSING_POLICIES.join(', ')}.`);
+  if (!SCALE_METHODS.includes(p.scale as never))
+    fail(at, `key "scale" is ${JSON.stringify(p.scale)}; expected one of ${SCALE_METHODS.join(', ')}.`);
+  if (!MISSING_POLICIES.includes(p.missing as never))
+    fail(at, `key "missing" is ${JSON.stringify(p.missing)}; expected one of ${MISSING_POLICIES.join(', ')}.`);
   const keep = nameList(p, 'keep', at);
   const constant = nameList(p, 'constantColumns', at);
   const featureNames = nameList(p, 'featureNames', at);
@@ -113,18 +143,21 @@ export function checkStoredPreparation(p: Record<string, unknown>, features: rea
     if (!COLUMN_TYPES.includes(type)) fail(c, `key "type" is ${JSON.stringify(col.type)}; expected one of ${COLUMN_TYPES.join(', ')}.`);
     if (typeof col.log !== 'boolean') fail(c, 'key "log" must be true or false.');
     if (col.log && type !== 'numeric') fail(c, `key "log" is true, but log1p applies to numeric columns only (this one is ${type}).`);
-    if (!SPREAD_KINDS.includes(col.spreadKind as string)) fail(c, `key "spreadKind" is ${JSON.stringify(col.spreadKind)}; expected one of ${SPREAD_KINDS.join(', ')}.`);
+    if (!SPREAD_KINDS.includes(col.spreadKind as string))
+      fail(c, `key "spreadKind" is ${JSON.stringify(col.spreadKind)}; expected one of ${SPREAD_KINDS.join(', ')}.`);
     for (const key of ['weight', 'centre', 'spread']) {
       if (!isFiniteNumber(col[key])) fail(c, `key "${key}" must be a finite number.`);
     }
-    if (!((col.weight as number) > 0)) fail(c, `key "weight" is ${col.weight}; a weight must be greater than 0 (leave the column out instead).`);
+    if (!((col.weight as number) > 0))
+      fail(c, `key "weight" is ${col.weight}; a weight must be greater than 0 (leave the column out instead).`);
     if (!((col.spread as number) > 0)) fail(c, `key "spread" is ${col.spread}; a scaling divisor must be greater than 0.`);
     const levels = col.levels;
     if (type === 'numeric') {
       if (levels !== null) fail(c, 'key "levels" must be null for a numeric column.');
       if (col.levelMatch !== null) fail(c, 'key "levelMatch" must be null for a numeric column.');
     } else {
-      if (!Array.isArray(levels) || levels.some((l) => typeof l !== 'string')) fail(c, `key "levels" must list the ${type} column's levels as texts.`);
+      if (!Array.isArray(levels) || levels.some((l) => typeof l !== 'string'))
+        fail(c, `key "levels" must list the ${type} column's levels as texts.`);
       const need = type === 'binary' ? 'exactly two' : type === 'ordinal' ? 'at least two' : 'at least one';
       if (type === 'binary' ? levels.length !== 2 : levels.length < (type === 'ordinal' ? 2 : 1)) {
         fail(c, `key "levels" has ${levels.length} level(s); a ${type} column has ${need}.`);
@@ -133,12 +166,18 @@ export function checkStoredPreparation(p: Record<string, unknown>, features: rea
       if (dup !== undefined) fail(c, `key "levels" lists ${JSON.stringify(dup)} twice; levels must be distinct.`);
       const matches = type === 'binary' ? ['exact', 'ascii-case'] : ['exact'];
       if (!matches.includes(col.levelMatch as string)) {
-        fail(c, `key "levelMatch" is ${JSON.stringify(col.levelMatch)}; a ${type} column takes ${matches.map((m) => `"${m}"`).join(' or ')}.`);
+        fail(
+          c,
+          `key "levelMatch" is ${JSON.stringify(col.levelMatch)}; a ${type} column takes ${matches.map((m) => `"${m}"`).join(' or ')}.`,
+        );
       }
       if (col.levelMatch === 'ascii-case') {
         const lower = (levels as string[]).map((l) => (isTrueFalse(l) ? l.toLowerCase() : '?'));
         if (lower[0] !== 'false' || lower[1] !== 'true') {
-          fail(c, `key "levelMatch" is "ascii-case", which holds for true/false columns only: levels must be a spelling of false, then of true; got ${JSON.stringify(levels)}.`);
+          fail(
+            c,
+            `key "levelMatch" is "ascii-case", which holds for true/false columns only: levels must be a spelling of false, then of true; got ${JSON.stringify(levels)}.`,
+          );
         }
       }
       if (type === 'binary' || type === 'categorical') {
@@ -149,30 +188,53 @@ export function checkStoredPreparation(p: Record<string, unknown>, features: rea
       if (type === 'ordinal') {
         const top = (levels as string[]).length - 1;
         if ((col.centre as number) < 0 || (col.centre as number) > top) {
-          fail(c, `key "centre" is ${col.centre}, outside the ranks 0..${top} of the ${top + 1} ordinal levels; the levels and the stored centre contradict each other.`);
+          fail(
+            c,
+            `key "centre" is ${col.centre}, outside the ranks 0..${top} of the ${top + 1} ordinal levels; the levels and the stored centre contradict each other.`,
+          );
         }
       }
     }
     if (col.fill !== null) {
-      if (p.missing !== 'median') fail(c, `key "fill" is ${JSON.stringify(col.fill)}, but only the 'median' missing-value policy fills cells (this one is '${p.missing}'); expected null.`);
+      if (p.missing !== 'median')
+        fail(
+          c,
+          `key "fill" is ${JSON.stringify(col.fill)}, but only the 'median' missing-value policy fills cells (this one is '${p.missing}'); expected null.`,
+        );
       if (type === 'numeric' ? !isFiniteNumber(col.fill) : !(levels as string[]).includes(col.fill as string)) {
-        fail(c, `key "fill" must be ${type === 'numeric' ? 'a finite number' : 'one of the column\'s levels'} or null; got ${JSON.stringify(col.fill)}.`);
+        fail(
+          c,
+          `key "fill" must be ${type === 'numeric' ? 'a finite number' : "one of the column's levels"} or null; got ${JSON.stringify(col.fill)}.`,
+        );
       }
     }
     if (!Array.isArray(col.features)) fail(c, 'key "features" must be an array of feature names.');
     const names = col.features.map((f, i) => checkName(f, c, `features[${i}]`));
     const expected = expectedFeatures(name, type, levels as string[] | null);
-    const ok = names.length === expected.length && (type === 'binary' ? names[0] === name || names[0] === expected[0] : names.every((f, i) => f === expected[i]));
-    if (!ok) fail(c, `key "features" is ${JSON.stringify(names)}; a ${type} column named ${JSON.stringify(name)} gives ${JSON.stringify(type === 'binary' ? [name] : expected)}${type === 'binary' ? ` or ${JSON.stringify(expected)}` : ''}.`);
+    const ok =
+      names.length === expected.length &&
+      (type === 'binary' ? names[0] === name || names[0] === expected[0] : names.every((f, i) => f === expected[i]));
+    if (!ok)
+      fail(
+        c,
+        `key "features" is ${JSON.stringify(names)}; a ${type} column named ${JSON.stringify(name)} gives ${JSON.stringify(type === 'binary' ? [name] : expected)}${type === 'binary' ? ` or ${JSON.stringify(expected)}` : ''}.`,
+      );
     produced.push(...names);
   });
   const dupColumn = firstDuplicate(used);
   if (dupColumn !== undefined) fail(at, `column ${JSON.stringify(dupColumn)} appears twice in "columns".`);
-  const roles: [string, readonly string[]][] = [['columns', used], ['constantColumns', constant], ['keep', keep]];
+  const roles: [string, readonly string[]][] = [
+    ['columns', used],
+    ['constantColumns', constant],
+    ['keep', keep],
+  ];
   const all = [...used, ...constant, ...keep];
   const dupRole = firstDuplicate(all);
   if (dupRole !== undefined) {
-    const where2 = roles.filter(([, l]) => l.includes(dupRole)).map(([k]) => `"${k}"`).join(' and ');
+    const where2 = roles
+      .filter(([, l]) => l.includes(dupRole))
+      .map(([k]) => `"${k}"`)
+      .join(' and ');
     fail(at, `column ${JSON.stringify(dupRole)} is in ${where2}${where2.includes(' and ') ? '' : ' twice'}; a column plays one part.`);
   }
   if (p.idColumn !== null) {

@@ -28,28 +28,54 @@ function typeName(v: unknown): string {
   return typeof v === 'object' ? 'an object' : `${typeof v} ${JSON.stringify(v)}`.slice(0, 70);
 }
 
-function need(obj: Record<string, unknown>, key: string, type: 'string' | 'number' | 'object' | 'array', where: string, optional = false): any {
+function need(
+  obj: Record<string, unknown>,
+  key: string,
+  type: 'string' | 'number' | 'object' | 'array',
+  where: string,
+  optional = false,
+): any {
   const v = obj[key];
   if (v === undefined) {
     if (optional) return undefined;
     fail(where, `key "${key}" is missing (expected ${type === 'array' ? 'an array' : type === 'object' ? 'an object' : 'a ' + type}).`);
   }
   const ok =
-    type === 'array' ? Array.isArray(v) :
-    type === 'object' ? v !== null && typeof v === 'object' && !Array.isArray(v) :
-    type === 'number' ? typeof v === 'number' && Number.isFinite(v) :
-    typeof v === 'string';
-  if (!ok) fail(where, `key "${key}" holds ${typeName(v)}; expected ${type === 'array' ? 'an array' : type === 'object' ? 'an object' : 'a ' + (type === 'number' ? 'finite number' : type)}.`);
+    type === 'array'
+      ? Array.isArray(v)
+      : type === 'object'
+        ? v !== null && typeof v === 'object' && !Array.isArray(v)
+        : type === 'number'
+          ? typeof v === 'number' && Number.isFinite(v)
+          : typeof v === 'string';
+  if (!ok)
+    fail(
+      where,
+      `key "${key}" holds ${typeName(v)}; expected ${type === 'array' ? 'an array' : type === 'object' ? 'an object' : 'a ' + (type === 'number' ? 'finite number' : type)}.`,
+    );
   return v;
 }
 
-const TOP_KEYS = ['kind', 'formatVersion', 'writtenBy', 'note', 'method', 'rule', 'metric', 'preparation', 'features', 'segments', 'training', 'trainingDistributions', 'evidence'];
+const TOP_KEYS = [
+  'kind',
+  'formatVersion',
+  'writtenBy',
+  'note',
+  'method',
+  'rule',
+  'metric',
+  'preparation',
+  'features',
+  'segments',
+  'training',
+  'trainingDistributions',
+  'evidence',
+];
 const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
 const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels'];
 
-// eslint-disable-next-line no-control-regex
 const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
-// eslint-disable-next-line no-control-regex
+
 const CONTROL_BUT_LINES = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/;
 
 /** Prose (notes, titles, texts) may span lines and hold tabs, nothing else that steers a terminal. */
@@ -68,7 +94,8 @@ function noPrototypeKeys(value: unknown, where: string, depth = 0): void {
   }
   if (value === null || typeof value !== 'object') return;
   for (const key of Object.keys(value)) {
-    if (PROTOTYPE_KEYS.includes(key)) fail(where, `holds the key ${JSON.stringify(key)}, which a definition may not hold (it would reach an object's prototype).`);
+    if (PROTOTYPE_KEYS.includes(key))
+      fail(where, `holds the key ${JSON.stringify(key)}, which a definition may not hold (it would reach an object's prototype).`);
     noPrototypeKeys((value as Record<string, unknown>)[key], `${where}.${key}`, depth + 1);
   }
 }
@@ -105,7 +132,11 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   }
   const version = need(d, 'formatVersion', 'number', where);
   const writtenBy = need(d, 'writtenBy', 'string', where);
-  if (CONTROL_ANY.test(writtenBy)) fail(where, `key "writtenBy" holds a control character (${JSON.stringify(writtenBy).slice(0, 80)}); it names a program version on one line.`);
+  if (CONTROL_ANY.test(writtenBy))
+    fail(
+      where,
+      `key "writtenBy" holds a control character (${JSON.stringify(writtenBy).slice(0, 80)}); it names a program version on one line.`,
+    );
   if (!Number.isInteger(version) || version < 1) fail(where, `key "formatVersion" is ${version}; expected a whole number ≥ 1.`);
   if (version < DEFINITION_FORMAT_VERSION) {
     fail(
@@ -155,12 +186,14 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     const farBeyond = need(seg, 'farBeyond', 'number', at);
     if (farBeyond < 0) fail(at, `key "farBeyond" is ${farBeyond}; expected a distance ≥ 0.`);
     const medoidId = need(seg, 'medoidId', 'string', at, true);
-    if (rule !== 'nearest-medoid' && medoidId !== undefined) fail(at, `key "medoidId" is set, but the rule is "${rule}"; only nearest-medoid definitions name medoids.`);
+    if (rule !== 'nearest-medoid' && medoidId !== undefined)
+      fail(at, `key "medoidId" is set, but the rule is "${rule}"; only nearest-medoid definitions name medoids.`);
     const title = need(seg, 'title', 'string', at, true);
     if (title !== undefined) proseOnly(title, at, 'key "title"');
     const text = need(seg, 'text', 'string', at, true);
     if (text !== undefined) proseOnly(text, at, 'key "text"');
-    if (rule === 'nearest-medoid' && medoidId === undefined) fail(at, 'key "medoidId" is missing; the nearest-medoid rule needs the id of each medoid.');
+    if (rule === 'nearest-medoid' && medoidId === undefined)
+      fail(at, 'key "medoidId" is missing; the nearest-medoid rule needs the id of each medoid.');
     return {
       number,
       title,
@@ -185,10 +218,17 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     fail(at, `key "reproducedRows" is ${reproducedRows}; expected a whole number from 0 to ${rows} (the training rows).`);
   }
   const labels = oneOf(need(training, 'labels', 'string', at), TRAINING_LABELS, 'labels', at);
-  if (labels === 'rule' && reproducedRows !== rows) fail(at, `key "labels" is "rule" (relabelled by the rule), so every training row is reproduced; "reproducedRows" is ${reproducedRows} of ${rows}.`);
+  if (labels === 'rule' && reproducedRows !== rows)
+    fail(
+      at,
+      `key "labels" is "rule" (relabelled by the rule), so every training row is reproduced; "reproducedRows" is ${reproducedRows} of ${rows}.`,
+    );
   const evidence = need(d, 'evidence', 'object', where, true);
   if (evidence !== undefined) noPrototypeKeys(evidence, `${where}: evidence`);
-  const distributions = d.trainingDistributions === undefined ? undefined : checkTrainingDistributions(d.trainingDistributions, dims, `${where}: trainingDistributions`);
+  const distributions =
+    d.trainingDistributions === undefined
+      ? undefined
+      : checkTrainingDistributions(d.trainingDistributions, dims, `${where}: trainingDistributions`);
   return {
     kind: DEFINITION_KIND,
     formatVersion: version,

@@ -5,7 +5,6 @@ let cached: string | undefined;
 export function kinsortVersion(): string {
   if (cached === undefined) {
     try {
-      // eslint-disable-next-line @typescript-eslint/no-var-requires
       cached = String(require('../../package.json').version);
     } catch {
       cached = 'unknown';

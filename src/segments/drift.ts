@@ -101,7 +101,10 @@ function fromScored(scored: readonly ScoredRow[], outcome: AssignmentOutcome, k:
     if (byId.has(id)) throw new KinsortError(`drift: id "${id}" appears twice in the scored rows (row ${i + 1}).`, 'bad-input');
     const s = r.segment === null || r.segment === undefined ? null : Number(r.segment);
     if (s !== null && !(Number.isInteger(s) && s >= 1 && s <= k)) {
-      throw new KinsortError(`drift: scored row ${i + 1} (id "${id}") has segment ${JSON.stringify(r.segment)}; expected 1..${k} or null.`, 'bad-input');
+      throw new KinsortError(
+        `drift: scored row ${i + 1} (id "${id}") has segment ${JSON.stringify(r.segment)}; expected 1..${k} or null.`,
+        'bad-input',
+      );
     }
     if (r.far === undefined || r.far === null) farGiven = false;
     byId.set(id, { segment: s, far: r.far === undefined || r.far === null ? null : Boolean(Number(r.far)) });
@@ -113,7 +116,10 @@ function fromScored(scored: readonly ScoredRow[], outcome: AssignmentOutcome, k:
     return v;
   });
   if (byId.size > 0) {
-    const extra = [...byId.keys()].slice(0, 3).map((id) => `"${id}"`).join(', ');
+    const extra = [...byId.keys()]
+      .slice(0, 3)
+      .map((id) => `"${id}"`)
+      .join(', ');
     throw new KinsortError(`drift: ${byId.size} scored row(s) match no new row (ids ${extra}${byId.size > 3 ? ', …' : ''}).`, 'bad-input');
   }
   return { verdicts, farGiven };
@@ -123,7 +129,12 @@ function fromScored(scored: readonly ScoredRow[], outcome: AssignmentOutcome, k:
  * Drift of `input` (new rows) against the definition's training rows. `outcome` is the in-memory
  * assignment of the same rows when the caller has it already.
  */
-export function driftOf(definition: SegmentDefinition, input: unknown, options: DriftOptions = {}, outcome?: AssignmentOutcome): DriftReport {
+export function driftOf(
+  definition: SegmentDefinition,
+  input: unknown,
+  options: DriftOptions = {},
+  outcome?: AssignmentOutcome,
+): DriftReport {
   const opts = checkOptions(options, ['scored', 'read'], 'drift');
   const table = readTable(input, opts.read as never);
   const assigned = outcome ?? assignRows(definition, table);
@@ -177,7 +188,9 @@ export function driftOf(definition: SegmentDefinition, input: unknown, options: 
   const features: FeatureDrift[] = [];
   const stored = definition.trainingDistributions;
   if (stored === undefined) {
-    notes.push('This definition keeps no training distributions (written by an older kinsort): rebuild it to measure the shift of each feature.');
+    notes.push(
+      'This definition keeps no training distributions (written by an older kinsort): rebuild it to measure the shift of each feature.',
+    );
   } else {
     const prepared = assigned.rows.map((r, i) => (r.segment === null ? -1 : i)).filter((i) => i >= 0);
     if (prepared.length > 0) {

@@ -19,10 +19,7 @@ function rowHash(id: string, data: Float64Array, offset: number, cols: number): 
 /** Order-independent fingerprint of ids + prepared rows, as "sha256:<hex>". */
 export function fingerprintRows(ids: readonly string[], matrix: Matrix): string {
   if (ids.length !== matrix.rows) {
-    throw new KinsortError(
-      `fingerprint: ${ids.length} ids for ${matrix.rows} prepared rows; give one id per row.`,
-      'bad-input',
-    );
+    throw new KinsortError(`fingerprint: ${ids.length} ids for ${matrix.rows} prepared rows; give one id per row.`, 'bad-input');
   }
   const hashes: string[] = new Array(matrix.rows);
   for (let i = 0; i < matrix.rows; i++) hashes[i] = rowHash(String(ids[i]), matrix.data, i * matrix.cols, matrix.cols);

@@ -74,8 +74,20 @@ export function formatShown(value: number, shown: ShownAs): string {
 }
 
 export type KeptSummary =
-  | { readonly name: string; readonly kind: 'numeric'; readonly median: number; readonly q1: number; readonly q3: number; readonly missing: number }
-  | { readonly name: string; readonly kind: 'categorical'; readonly shares: readonly { level: string; count: number; share: number }[]; readonly missing: number };
+  | {
+      readonly name: string;
+      readonly kind: 'numeric';
+      readonly median: number;
+      readonly q1: number;
+      readonly q3: number;
+      readonly missing: number;
+    }
+  | {
+      readonly name: string;
+      readonly kind: 'categorical';
+      readonly shares: readonly { level: string; count: number; share: number }[];
+      readonly missing: number;
+    };
 
 export interface TypicalMember {
   /** 0-based row index. */
@@ -117,8 +129,7 @@ export const EXACT_MEDOID_LIMIT = 3000;
 
 const OPTIONS = ['assignment', 'features', 'ids', 'used', 'keep', 'medoids', 'stability', 'names', 'top'];
 
-const isMissing = (v: ProfileValue): boolean =>
-  v === null || v === undefined || (typeof v === 'number' && Number.isNaN(v)) || v === '';
+const isMissing = (v: ProfileValue): boolean => v === null || v === undefined || (typeof v === 'number' && Number.isNaN(v)) || v === '';
 
 /**
  * One profile per segment. Differences are computed on the raw `used` columns: numeric columns
@@ -140,10 +151,7 @@ export function profileSegments(input: ProfileInput): SegmentProfile[] {
   checkColumns(input.keep, n, 'keep');
   if (input.medoids !== undefined) checkMedoids(input.medoids, labels, k);
   if (input.stability !== undefined && input.stability.jaccard.length !== k) {
-    throw new KinsortError(
-      `profileSegments: stability has ${input.stability.jaccard.length} scores for ${k} segments.`,
-      'bad-input',
-    );
+    throw new KinsortError(`profileSegments: stability has ${input.stability.jaccard.length} scores for ${k} segments.`, 'bad-input');
   }
 
   const indicators = toIndicators(input.used ?? {}, n);
@@ -174,9 +182,7 @@ export function profileSegments(input: ProfileInput): SegmentProfile[] {
         values: input.used ? Object.fromEntries(Object.entries(input.used).map(([name, v]) => [name, v[row]])) : undefined,
       },
       kept: Object.entries(input.keep ?? {}).map(([name, values]) => summariseKept(name, values, labels, s)),
-      stability: input.stability
-        ? { jaccard: input.stability.jaccard[s], reading: input.stability.reading[s] }
-        : undefined,
+      stability: input.stability ? { jaccard: input.stability.jaccard[s], reading: input.stability.reading[s] } : undefined,
     });
   }
   return profiles;
@@ -329,7 +335,6 @@ function typicalRow(m: Matrix, labels: Int32Array, s: number, size: number): num
   }
   return best;
 }
-
 
 function summariseKept(name: string, raw: readonly ProfileValue[], labels: Int32Array, s: number): KeptSummary {
   const values: ProfileValue[] = [];

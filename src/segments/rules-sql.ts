@@ -31,7 +31,8 @@ function identifier(name: string, d: SqlDialect): string {
 }
 
 function text(value: string, d: SqlDialect): string {
-  if (value.includes('\u0000')) throw new KinsortError(`toSql: the level ${JSON.stringify(value)} holds a NUL character, which SQL text cannot.`, 'bad-input');
+  if (value.includes('\u0000'))
+    throw new KinsortError(`toSql: the level ${JSON.stringify(value)} holds a NUL character, which SQL text cannot.`, 'bad-input');
   return d.quoteString(value);
 }
 
@@ -56,7 +57,10 @@ export function conditionSql(c: RuleCondition, d: SqlDialect = DEFAULT_DIALECT):
 }
 
 /** The CASE expression alone: one WHEN per rule. */
-export function rulesCase(rules: readonly { segment: number; conditions: readonly RuleCondition[] }[], d: SqlDialect = DEFAULT_DIALECT): string {
+export function rulesCase(
+  rules: readonly { segment: number; conditions: readonly RuleCondition[] }[],
+  d: SqlDialect = DEFAULT_DIALECT,
+): string {
   const whens = rules.map((r) => {
     const test = r.conditions.length ? r.conditions.map((c) => conditionSql(c, d)).join(' AND ') : '1 = 1';
     return `  WHEN ${test} THEN ${r.segment}`;

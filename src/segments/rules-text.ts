@@ -12,7 +12,13 @@ import type { RuleColumnSpec } from './rules-columns';
 export type RuleCondition =
   | { readonly column: string; readonly test: 'below' | 'atLeast'; readonly value: number; readonly orMissing: boolean }
   | { readonly column: string; readonly test: 'oneOf'; readonly levels: readonly string[]; readonly orMissing: false }
-  | { readonly column: string; readonly test: 'noneOf'; readonly levels: readonly string[]; readonly shown: readonly string[]; readonly orMissing: true };
+  | {
+      readonly column: string;
+      readonly test: 'noneOf';
+      readonly levels: readonly string[];
+      readonly shown: readonly string[];
+      readonly orMissing: true;
+    };
 
 /** The condition a row meets to take one branch of a split. */
 export function branchCondition(split: RuleSplit, spec: RuleColumnSpec, left: boolean): RuleCondition {
@@ -105,7 +111,10 @@ export interface LabelledRuleNode {
   readonly size: number;
   readonly segment: number;
   readonly purity: number;
-  readonly branches?: readonly [{ readonly label: string; readonly node: LabelledRuleNode }, { readonly label: string; readonly node: LabelledRuleNode }];
+  readonly branches?: readonly [
+    { readonly label: string; readonly node: LabelledRuleNode },
+    { readonly label: string; readonly node: LabelledRuleNode },
+  ];
 }
 
 export function labelledTree(node: RuleTreeNode, specs: readonly RuleColumnSpec[]): LabelledRuleNode {

@@ -13,7 +13,8 @@ export interface StoredTextRule {
 
 export function storedTextRule(prep: Preparation): StoredTextRule {
   const p = prep as unknown as { missingMarkers?: unknown; decimalMark?: unknown };
-  const markers = Array.isArray(p.missingMarkers) && p.missingMarkers.every((m) => typeof m === 'string') ? p.missingMarkers : TEXT_RULE_MARKERS;
+  const markers =
+    Array.isArray(p.missingMarkers) && p.missingMarkers.every((m) => typeof m === 'string') ? p.missingMarkers : TEXT_RULE_MARKERS;
   return { missingMarkers: markers, decimalMark: p.decimalMark === ',' ? ',' : '.' };
 }
 

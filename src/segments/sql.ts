@@ -80,7 +80,10 @@ function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string
 
 function chooseDialect(opts: SqlOptions): SqlDialect {
   if (opts.engine !== undefined && opts.dialect !== undefined && opts.engine.dialect !== opts.dialect) {
-    throw new KinsortError(`toSql: dialect "${opts.dialect}" and the engine's dialect "${opts.engine.dialect}" differ; give one.`, 'bad-argument');
+    throw new KinsortError(
+      `toSql: dialect "${opts.dialect}" and the engine's dialect "${opts.engine.dialect}" differ; give one.`,
+      'bad-argument',
+    );
   }
   return dialectNamed(opts.engine?.dialect ?? opts.dialect ?? 'duckdb');
 }
@@ -137,7 +140,10 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   }
   if (d.name === 'sqlite' && dims > SQLITE_MAX_FEATURES) {
     // The distance adds its terms one after another, in assign's order; SQLite caps an expression's depth at 1000.
-    throw new KinsortError(`toSql: ${dims} features is beyond what SQLite's expression depth limit (1000) allows in one distance (at most ${SQLITE_MAX_FEATURES}).`, 'too-large');
+    throw new KinsortError(
+      `toSql: ${dims} features is beyond what SQLite's expression depth limit (1000) allows in one distance (at most ${SQLITE_MAX_FEATURES}).`,
+      'too-large',
+    );
   }
   if (d.name === 'duckdb' || d.name === 'sqlite') {
     // Identifiers are case-insensitive there even when quoted: "X" and "x" would be one column.
@@ -145,7 +151,10 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     for (const name of [idColumn, ...prep.columns.map((c) => c.name)]) {
       const other = seen.get(name.toLowerCase());
       if (other !== undefined && other !== name) {
-        throw new KinsortError(`toSql: columns "${other}" and "${name}" differ only in letter case, which ${d.title} reads as one column.`, 'not-supported');
+        throw new KinsortError(
+          `toSql: columns "${other}" and "${name}" differ only in letter case, which ${d.title} reads as one column.`,
+          'not-supported',
+        );
       }
       seen.set(name.toLowerCase(), name);
     }
@@ -192,14 +201,23 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     // Exact text; a true/false binary column matches its two levels in any ASCII letter case.
     const caseless = levelMatchOf(c) === 'ascii-case';
     const cell = caseless ? d.lowerAscii(r(j)) : r(j);
-    const whens = levels.map((l, i) => `WHEN ${cell} = ${d.quoteString(caseless ? l.replace(/[A-Z]/g, (x) => x.toLowerCase()) : l)} THEN ${i}`);
+    const whens = levels.map(
+      (l, i) => `WHEN ${cell} = ${d.quoteString(caseless ? l.replace(/[A-Z]/g, (x) => x.toLowerCase()) : l)} THEN ${i}`,
+    );
     const unseen = c.type === 'categorical' ? '-1' : 'NULL';
     return `CASE WHEN ${missing(j)} THEN ${whenMissing} ${whens.join(' ')} ELSE ${unseen} END`;
   }
   // 3. 1 + v for logged columns (NULL for a negative value, which assign refuses under log1p).
   const logs: Layer = {
     name: `${PREFIX}logs`,
-    columns: [id, ...cols.flatMap((c, j) => (c.type === 'numeric' && c.log ? [v(j), `CASE WHEN ${v(j)} >= ${d.doubleLiteral(0)} THEN ${d.doubleLiteral(1)} + ${v(j)} END AS ${u(j)}`] : [v(j)]))],
+    columns: [
+      id,
+      ...cols.flatMap((c, j) =>
+        c.type === 'numeric' && c.log
+          ? [v(j), `CASE WHEN ${v(j)} >= ${d.doubleLiteral(0)} THEN ${d.doubleLiteral(1)} + ${v(j)} END AS ${u(j)}`]
+          : [v(j)],
+      ),
+    ],
   };
   // 4. The prepared features, in the definition's feature order.
   const featureSql: string[] = [];
@@ -208,8 +226,13 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     else if (c.type === 'categorical') {
       const one = d.doubleLiteral(c.weight);
       const zero = d.doubleLiteral(0);
-      (c.levels ?? []).forEach((_, i) => featureSql.push(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = ${i} THEN ${one} ELSE ${zero} END`));
-    } else if (c.type === 'binary') featureSql.push(scaled(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = 1 THEN ${d.doubleLiteral(1)} ELSE ${d.doubleLiteral(0)} END`, c, d));
+      (c.levels ?? []).forEach((_, i) =>
+        featureSql.push(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = ${i} THEN ${one} ELSE ${zero} END`),
+      );
+    } else if (c.type === 'binary')
+      featureSql.push(
+        scaled(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = 1 THEN ${d.doubleLiteral(1)} ELSE ${d.doubleLiteral(0)} END`, c, d),
+      );
     else featureSql.push(scaled(`(${v(j)} + ${d.doubleLiteral(0)})`, c, d));
   }
   if (featureSql.length !== dims) {
@@ -220,13 +243,20 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const euclidean = definition.metric === 'euclidean';
   const bounded = Number.isFinite(d.featureBound);
   if (bounded && definition.segments.some((s) => s.center.some((x) => Math.abs(x) > d.featureBound))) {
-    throw new KinsortError(`toSql: a centre figure is beyond ${d.featureBound} in size, which ${d.title} cannot score without overflow; check the definition.`, 'not-supported');
+    throw new KinsortError(
+      `toSql: a centre figure is beyond ${d.featureBound} in size, which ${d.title} cannot score without overflow; check the definition.`,
+      'not-supported',
+    );
   }
   const big = q(`${PREFIX}beyond`);
   // Rows with a feature beyond the dialect's bound (PostgreSQL) get NULL distances (see caveats).
   const guard = (): Layer => ({
     name: `${PREFIX}guard`,
-    columns: [id, ...featureSql.map((_, j) => f(j)), `CASE WHEN ${featureSql.map((_, j) => `abs(${f(j)}) > ${d.doubleLiteral(d.featureBound)}`).join(' OR ')} THEN 1 ELSE 0 END AS ${big}`],
+    columns: [
+      id,
+      ...featureSql.map((_, j) => f(j)),
+      `CASE WHEN ${featureSql.map((_, j) => `abs(${f(j)}) > ${d.doubleLiteral(d.featureBound)}`).join(' OR ')} THEN 1 ELSE 0 END AS ${big}`,
+    ],
   });
   const distances: Layer = {
     name: `${PREFIX}distances`,
@@ -255,7 +285,10 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     name: '',
     columns: [
       id,
-      `${d.firstEqual(definition.segments.map((_, c) => dist(c)), nearest)} AS ${q('segment')}`,
+      `${d.firstEqual(
+        definition.segments.map((_, c) => dist(c)),
+        nearest,
+      )} AS ${q('segment')}`,
       `${euclidean ? `sqrt(${nearest})` : nearest} AS ${q('distance')}`,
       // Beyond every threshold: the least of d − t is above 0 (exact: the sign of a difference of doubles never rounds away).
       `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${d.least(definition.segments.map((_, c) => `${dist(c)} - ${limit(c)}`))} > ${d.doubleLiteral(0)} THEN 1 ELSE 0 END AS ${q('far')}`,
@@ -266,10 +299,15 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far.`,
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
-  const sql = header.join('\n') + '\n' + render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d) + '\n';
+  const sql =
+    header.join('\n') +
+    '\n' +
+    render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d) +
+    '\n';
   const cap = opts.maxQueryBytes ?? d.maxQueryBytes;
   if (cap !== undefined) {
-    if (typeof cap !== 'number' || !(cap > 0)) throw new KinsortError('toSql: maxQueryBytes must be a positive number of bytes.', 'bad-option');
+    if (typeof cap !== 'number' || !(cap > 0))
+      throw new KinsortError('toSql: maxQueryBytes must be a positive number of bytes.', 'bad-option');
     const bytes = Buffer.byteLength(sql, 'utf8');
     if (bytes > cap) {
       throw new KinsortError(
@@ -288,7 +326,9 @@ function render(layers: Layer[], final: Layer, from: string, d: SqlDialect): str
   const select = (l: Layer, source: string, last = false) => `SELECT\n  ${l.columns.join(',\n  ')}\nFROM ${source}${last ? '' : fence}`;
   if (d.withClause) {
     const as = d.layerFence === 'materialized' ? 'AS MATERIALIZED' : 'AS';
-    const parts = layers.map((l, i) => `${d.quoteIdentifier(l.name)} ${as} (\n${select(l, i === 0 ? from : d.quoteIdentifier(layers[i - 1].name))}\n)`);
+    const parts = layers.map(
+      (l, i) => `${d.quoteIdentifier(l.name)} ${as} (\n${select(l, i === 0 ? from : d.quoteIdentifier(layers[i - 1].name))}\n)`,
+    );
     return `WITH ${parts.join(',\n')}\n${select(final, d.quoteIdentifier(layers[layers.length - 1].name), true)}`;
   }
   let source = from;

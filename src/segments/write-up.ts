@@ -25,9 +25,9 @@ export const WRITE_UP_CAUTION =
 export function markdownText(value: unknown): string {
   return String(value)
     .replace(/\r?\n/g, ' ')
-    .replace(/[\\`*_\[\]|~]/g, (c) => '\\' + c)
+    .replace(/[\\`*_[\]|~]/g, (c) => '\\' + c)
     .replace(/[<>&]/g, (c) => (c === '<' ? '&lt;' : c === '>' ? '&gt;' : '&amp;'))
-    .replace(/^(\s*)([#+\-])/, '$1\\$2')
+    .replace(/^(\s*)([#+-])/, '$1\\$2')
     .replace(/^(\s*)(\d+)([.)])/, '$1$2\\$3');
 }
 
@@ -53,8 +53,10 @@ export function formatFigure(value: unknown): string {
 export function differenceSentence(d: VariableDifference): string {
   const name = d.level === undefined ? d.variable : `${d.variable} = ${d.level}`;
   const direction = d.difference >= 0 ? 'above' : 'below';
-  const what = d.level === undefined ? `mean ${formatFigure(d.segmentMean)} against ${formatFigure(d.overallMean)} overall` :
-    `${(100 * d.segmentMean).toFixed(0)}% against ${(100 * d.overallMean).toFixed(0)}% overall`;
+  const what =
+    d.level === undefined
+      ? `mean ${formatFigure(d.segmentMean)} against ${formatFigure(d.overallMean)} overall`
+      : `${(100 * d.segmentMean).toFixed(0)}% against ${(100 * d.overallMean).toFixed(0)}% overall`;
   return `${name}: ${Math.abs(d.difference).toFixed(2)} sd ${direction} the whole (${what})`;
 }
 
@@ -79,7 +81,11 @@ export function writeUpMarkdown(profiles: readonly SegmentProfile[], context: Wr
   for (const p of profiles) {
     const heading = p.title ? `Segment ${p.segment}: ${markdownText(p.title)}` : `Segment ${p.segment}`;
     lines.push(`## ${heading}`, '');
-    lines.push(`${p.size} rows (${(100 * p.share).toFixed(1)}% of all).` + (p.typical.id !== undefined ? ` Typical member: ${markdownText(p.typical.id)}.` : ''), '');
+    lines.push(
+      `${p.size} rows (${(100 * p.share).toFixed(1)}% of all).` +
+        (p.typical.id !== undefined ? ` Typical member: ${markdownText(p.typical.id)}.` : ''),
+      '',
+    );
     if (p.text) lines.push(markdownText(p.text), '');
     if (p.standout.length) {
       lines.push('What sets it apart:', '');

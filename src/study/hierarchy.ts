@@ -81,7 +81,15 @@ export class Hierarchy {
   dendrogram(options: { k?: number; height?: number; labelled?: number; branches?: number; branch?: number; title?: string } = {}): View {
     const opts = checkOptions(options, ['k', 'height', 'labelled', 'branches', 'branch', 'title'], 'dendrogram');
     const t = this.tree;
-    const drawn = { kind: t.kind, size: t.size, method: t.method, merges: t.merges, order: t.order, labels: this.data.ids, cut: (c: CutSpec) => t.cut(c) };
+    const drawn = {
+      kind: t.kind,
+      size: t.size,
+      method: t.method,
+      merges: t.merges,
+      order: t.order,
+      labels: this.data.ids,
+      cut: (c: CutSpec) => t.cut(c),
+    };
     return dendrogramView(drawn, opts);
   }
 
@@ -101,8 +109,11 @@ export class Hierarchy {
   }
 }
 
-installWrongStepGuards(Hierarchy.prototype, SEGMENTATION_CALLS, (name, tree) =>
-  `${name}: a hierarchy is a tree of ${tree.data.ids.length} rows, not yet segments. Cut it first, ` +
+installWrongStepGuards(
+  Hierarchy.prototype,
+  SEGMENTATION_CALLS,
+  (name, tree) =>
+    `${name}: a hierarchy is a tree of ${tree.data.ids.length} rows, not yet segments. Cut it first, ` +
     `then ask the segmentation: tree.cut({ k: 4 }).${name}(…) for a number of segments, or ` +
     `tree.cut({ height: … }).${name}(…) at a height (tree.dendrogram() shows the heights).`,
 );

@@ -31,7 +31,12 @@ export function segmentRules(
       throw new KinsortError(`rules: no column "${name}" among the used and kept columns (${available.join(', ')}).`, 'unknown-column');
     }
     const declared = prepared.get(name);
-    return specFromCells(name, cells, declared ? { type: declared.type, levels: declared.levels } : undefined, data.preparation.decimalMark);
+    return specFromCells(
+      name,
+      cells,
+      declared ? { type: declared.type, levels: declared.levels } : undefined,
+      data.preparation.decimalMark,
+    );
   });
   const { depth, minLeaf, minSplit } = opts;
   const result = fitRules(

@@ -141,7 +141,13 @@ export class Segmentation {
       this.agreementCache =
         metric === null
           ? null
-          : ruleAgreement(this.data.matrix, this.assignment, this.centers, metric, this.method === 'kmedoids' ? 'nearest-medoid' : 'nearest-center');
+          : ruleAgreement(
+              this.data.matrix,
+              this.assignment,
+              this.centers,
+              metric,
+              this.method === 'kmedoids' ? 'nearest-medoid' : 'nearest-center',
+            );
     }
     return this.agreementCache;
   }
@@ -198,7 +204,10 @@ export class Segmentation {
   name(segment: number, name: SegmentName): this {
     this.checkSegment(segment, 'name');
     if (name === null || typeof name !== 'object') {
-      throw new KinsortError(`name: give the segment's name as { title, text }, e.g. seg.name(${segment}, { title: 'Weekday commuters' }).`, 'bad-option');
+      throw new KinsortError(
+        `name: give the segment's name as { title, text }, e.g. seg.name(${segment}, { title: 'Weekday commuters' }).`,
+        'bad-option',
+      );
     }
     const opts = checkOptions(name, NAME_OPTIONS, 'name');
     for (const key of NAME_OPTIONS) {
@@ -223,7 +232,10 @@ export class Segmentation {
     this.indexById ??= new Map(this.ids.map((v, i) => [v, i]));
     const i = this.indexById.get(String(id));
     if (i === undefined) {
-      throw new KinsortError(`segmentOf: no prepared row has id "${id}" (dropped rows are listed in the preparation report).`, 'bad-argument');
+      throw new KinsortError(
+        `segmentOf: no prepared row has id "${id}" (dropped rows are listed in the preparation report).`,
+        'bad-argument',
+      );
     }
     return this.assignment[i] + 1;
   }
@@ -243,9 +255,7 @@ export class Segmentation {
       ? silhouette(this.dissimilarityUsed, this.assignment)
       : silhouette(this.data.matrix, this.assignment);
     const result = this.silhouetteCache;
-    return showable({ ...result }, () =>
-      silhouetteView(result, this.assignment, { names: this.titles(), ids: this.ids }),
-    );
+    return showable({ ...result }, () => silhouetteView(result, this.assignment, { names: this.titles(), ids: this.ids }));
   }
 
   /**
@@ -355,17 +365,20 @@ export class Segmentation {
   definition(options: { note?: string } = {}): DefinitionHandle {
     const opts = checkOptions(options, ['note'], 'definition');
     const names = this.names();
-    const def = buildDefinition({
-      preparation: this.data.preparation,
-      method: { name: this.method, options: this.options },
-      centers: this.method === 'kmedoids' ? undefined : this.centers,
-      medoids: this.medoids ? [...this.medoids] : undefined,
-      segments: this.sizes.map((size, s) => ({ number: s + 1, size, ...names[s + 1] })),
-      training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
-      evidence: this.evidence(),
-      note: opts.note,
-      labels: this.labels,
-    }, 'definition');
+    const def = buildDefinition(
+      {
+        preparation: this.data.preparation,
+        method: { name: this.method, options: this.options },
+        centers: this.method === 'kmedoids' ? undefined : this.centers,
+        medoids: this.medoids ? [...this.medoids] : undefined,
+        segments: this.sizes.map((size, s) => ({ number: s + 1, size, ...names[s + 1] })),
+        training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
+        evidence: this.evidence(),
+        note: opts.note,
+        labels: this.labels,
+      },
+      'definition',
+    );
     return definitionHandle(def);
   }
 
@@ -416,7 +429,8 @@ export class Segmentation {
     const a = this.ruleAgreement();
     if (a === null) return how;
     const rule = a.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
-    if (this.labels === 'rule') return `${how} Segments relabelled by the ${rule} rule that scores new rows, so the two agree on every training row.`;
+    if (this.labels === 'rule')
+      return `${how} Segments relabelled by the ${rule} rule that scores new rows, so the two agree on every training row.`;
     if (a.reproduced === a.rows) return `${how} The ${rule} rule that scores new rows gives every training row its segment.`;
     return `${how} The ${rule} rule that scores new rows gives ${a.reproduced.toLocaleString('en-US')} of the ${a.rows.toLocaleString('en-US')} training rows their segment.`;
   }

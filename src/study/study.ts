@@ -64,7 +64,10 @@ export class Study {
   declare readonly project: PrepareTheStudyFirst;
   declare readonly variableTree: PrepareTheStudyFirst;
 
-  constructor(readonly table: Table, readonly roles: StudyRoles) {}
+  constructor(
+    readonly table: Table,
+    readonly roles: StudyRoles,
+  ) {}
 
   /** Column names with their inferred types and how many values are missing. */
   columns(): { name: string; type: string; missing: number }[] {
@@ -83,8 +86,11 @@ export class Study {
   }
 }
 
-installWrongStepGuards(Study.prototype, PREPARED_STUDY_CALLS, (name) =>
-  `${name}: this study is not prepared yet. Call .prepare() on it first, e.g. ` +
+installWrongStepGuards(
+  Study.prototype,
+  PREPARED_STUDY_CALLS,
+  (name) =>
+    `${name}: this study is not prepared yet. Call .prepare() on it first, e.g. ` +
     `study(table, { id, use }).prepare({ scale: 'zscore', missing: 'median' }).${name}(…); ` +
     `the preparation fixes the scaling and missing-value policy that every method and the definition use.`,
 );
@@ -101,7 +107,10 @@ export class PreparedStudy {
   /** The study and options this was prepared from, for use(names): absent when built by hand. */
   private readonly origin?: { study: Study; options: StudyPrepareOptions };
 
-  constructor(readonly data: PreparedData, origin?: { study: Study; options: StudyPrepareOptions }) {
+  constructor(
+    readonly data: PreparedData,
+    origin?: { study: Study; options: StudyPrepareOptions },
+  ) {
     this.origin = origin;
   }
 
@@ -158,7 +167,9 @@ export class PreparedStudy {
       notes.push(
         `k-means ${fit.converged ? 'converged within its tolerance' : `stopped at maxIterations (${options.maxIterations ?? fit.iterations})`} before its ` +
           `centres and segments fully agreed; ${settled.steps} more Lloyd step(s) moved ${settled.moved} row(s)` +
-          (settled.fixedPoint ? ', so the nearest-centre rule now gives every training row its segment.' : ', and it is still not a fixed point (see ruleAgreement()).'),
+          (settled.fixedPoint
+            ? ', so the nearest-centre rule now gives every training row its segment.'
+            : ', and it is still not a fixed point (see ruleAgreement()).'),
       );
     }
     const { withinSS } = segmentMeans(this.data.matrix, settled.assignment, fit.k);
@@ -214,7 +225,9 @@ export class PreparedStudy {
    * log), 1 − r² by default. Binary columns enter coded 0/1, ordinal ones by level rank; unordered
    * categorical columns are left out and listed in `leftOut` with the reason.
    */
-  variableTree(options: { similarity?: CorrelationKind; strength?: CorrelationStrength; method?: VariableLinkage } = {}): VariableHierarchy {
+  variableTree(
+    options: { similarity?: CorrelationKind; strength?: CorrelationStrength; method?: VariableLinkage } = {},
+  ): VariableHierarchy {
     const opts = checkOptions(options, ['similarity', 'strength', 'method'], 'variableTree');
     const { matrix, leftOut, entered } = variableColumns(this.data.mixed);
     return new VariableHierarchy(variableTree(matrix, opts), leftOut, entered);
@@ -226,10 +239,16 @@ export class PreparedStudy {
    */
   use(columns: readonly string[]): PreparedStudy {
     if (!Array.isArray(columns) || columns.length === 0 || columns.some((c) => typeof c !== 'string')) {
-      throw new KinsortError('use: give a non-empty list of column names, e.g. prepared.use(vars.representatives({ k: 4 })).', 'bad-option');
+      throw new KinsortError(
+        'use: give a non-empty list of column names, e.g. prepared.use(vars.representatives({ k: 4 })).',
+        'bad-option',
+      );
     }
     if (!this.origin) {
-      throw new KinsortError('use: this prepared study was built by hand, not by study(…).prepare(…); start a new study with { use } instead.', 'not-supported');
+      throw new KinsortError(
+        'use: this prepared study was built by hand, not by study(…).prepare(…); start a new study with { use } instead.',
+        'not-supported',
+      );
     }
     const { study: from, options } = this.origin;
     return new Study(from.table, { ...from.roles, use: [...columns] }).prepare(options);

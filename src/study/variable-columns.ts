@@ -22,7 +22,11 @@ export function variableColumns(mixed: MixedTable): { matrix: Matrix; leftOut: L
     for (let i = 0; i < n; i++) data[i * p + j] = c.values[i];
   });
   const entered = taken.map((c) =>
-    c.kind === 'binary' ? `binary: "${c.levels?.[0]}" = 0, "${c.levels?.[1]}" = 1` : c.kind === 'ordinal' ? 'ordinal: level rank 0, 1, … lowest first' : 'numeric',
+    c.kind === 'binary'
+      ? `binary: "${c.levels?.[0]}" = 0, "${c.levels?.[1]}" = 1`
+      : c.kind === 'ordinal'
+        ? 'ordinal: level rank 0, 1, … lowest first'
+        : 'numeric',
   );
   return { matrix: createMatrix(n, p, data, { rowLabels: mixed.rowLabels, colNames: taken.map((c) => c.name) }), leftOut, entered };
 }

@@ -68,7 +68,12 @@ export class VariableHierarchy {
     const t = this.tree;
     return correlationHeatmapView(
       { names: t.names, correlation: t.correlation, order: t.order },
-      { assignment: spec ? t.cut(spec) : undefined, similarity: t.similarity === 'pearson' ? 'Pearson' : 'Spearman', title: opts.title, notes: this.notes() },
+      {
+        assignment: spec ? t.cut(spec) : undefined,
+        similarity: t.similarity === 'pearson' ? 'Pearson' : 'Spearman',
+        title: opts.title,
+        notes: this.notes(),
+      },
     );
   }
 

@@ -88,12 +88,7 @@ export function isTrueFalse(text: string): boolean {
  * booleans become "true"/"false", big integers and dates their exact text. Strings are kept as given.
  * Anything else is refused by position.
  */
-export function normaliseCell(
-  value: unknown,
-  markers: ReadonlySet<string>,
-  where: (row: number) => string,
-  row: number,
-): Cell {
+export function normaliseCell(value: unknown, markers: ReadonlySet<string>, where: (row: number) => string, row: number): Cell {
   if (value === null || value === undefined) return null;
   if (typeof value === 'number') return Number.isNaN(value) ? null : value;
   if (typeof value === 'string') return isMissingText(value, markers) ? null : value;

@@ -25,10 +25,7 @@ export interface RawColumns {
 export function parseCsvText(text: string, delimiter?: string): RawColumns {
   if (typeof text !== 'string') throw new KinsortError('CSV input must be text.', 'bad-input');
   if (delimiter !== undefined && !DELIMITERS.includes(delimiter)) {
-    throw new KinsortError(
-      `CSV delimiter ${JSON.stringify(delimiter)} is not supported; use ",", ";" or "\\t" (tab).`,
-      'bad-option',
-    );
+    throw new KinsortError(`CSV delimiter ${JSON.stringify(delimiter)} is not supported; use ",", ";" or "\\t" (tab).`, 'bad-option');
   }
   const clean = (text.charCodeAt(0) === 0xfeff ? text.slice(1) : text).replace(/\r\n?/g, '\n');
   if (clean.trim() === '') throw new KinsortError('CSV input is empty: no header and no rows.', 'empty');

@@ -46,7 +46,10 @@ export function decodeCsvBytes(bytes: Uint8Array, source: string, encoding?: str
     try {
       decoder = new TextDecoder(encoding, { fatal: true });
     } catch {
-      throw new KinsortError(`${source}: encoding "${encoding}" is not one this runtime can decode (try "utf-8", "latin1", "windows-1252" or "utf-16le").`, 'bad-option');
+      throw new KinsortError(
+        `${source}: encoding "${encoding}" is not one this runtime can decode (try "utf-8", "latin1", "windows-1252" or "utf-16le").`,
+        'bad-option',
+      );
     }
     try {
       return decoder.decode(bytes);

@@ -39,7 +39,14 @@ export function readRegularFileBytes(path: string, opening: string, maxBytes = M
     fd = fs.openSync(path, fs.constants.O_RDONLY | fs.constants.O_NONBLOCK);
   } catch (e) {
     const code = (e as NodeJS.ErrnoException).code;
-    const why = code === 'ENOENT' ? 'no such file' : code === 'EACCES' ? 'permission denied' : code === 'EISDIR' ? 'it is a folder' : (e as Error).message;
+    const why =
+      code === 'ENOENT'
+        ? 'no such file'
+        : code === 'EACCES'
+          ? 'permission denied'
+          : code === 'EISDIR'
+            ? 'it is a folder'
+            : (e as Error).message;
     throw new KinsortError(`${opening} "${path}": ${why}${code ? ` (${code})` : ''}.`, 'bad-input');
   }
   try {

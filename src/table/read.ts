@@ -74,10 +74,7 @@ export function checkTypeOverrides(
     }
     const type = declared.get(name);
     if (type !== undefined && type !== 'ordinal') {
-      throw new KinsortError(
-        `${where}: column "${name}" is declared ${type} but also given ordinalLevels; pick one.`,
-        'bad-option',
-      );
+      throw new KinsortError(`${where}: column "${name}" is declared ${type} but also given ordinalLevels; pick one.`, 'bad-option');
     }
     declared.set(name, 'ordinal');
     levels.set(name, keys);
@@ -158,13 +155,19 @@ export function readTable(input: unknown, options?: ReadTableOptions): Table {
   if (isTable(input)) {
     for (const key of ['missingMarkers', 'decimalMark', 'delimiter', 'encoding'] as const) {
       if (opts[key] !== undefined) {
-        throw new KinsortError(`readTable: the input is already a Table, read once; ${key} applies when reading text or records.`, 'bad-option');
+        throw new KinsortError(
+          `readTable: the input is already a Table, read once; ${key} applies when reading text or records.`,
+          'bad-option',
+        );
       }
     }
     return redeclare(input, opts);
   }
   if (opts.encoding !== undefined) {
-    throw new KinsortError('readTable: the encoding option applies to CSV files (readCsvFile); text in memory is already decoded.', 'bad-option');
+    throw new KinsortError(
+      'readTable: the encoding option applies to CSV files (readCsvFile); text in memory is already decoded.',
+      'bad-option',
+    );
   }
   if (typeof input === 'string') return buildTable(parseCsvText(input, opts.delimiter), opts);
   if (opts.delimiter !== undefined) {
@@ -183,6 +186,10 @@ export function readCsvFile(path: string, options?: ReadTableOptions): Table {
 
 /** The column named `name`, or a clear error with a "did you mean". */
 export function tableColumn(table: Table, name: string, what = 'table'): TableColumn {
-  requireColumn(name, table.columns.map((c) => c.name), what);
+  requireColumn(
+    name,
+    table.columns.map((c) => c.name),
+    what,
+  );
   return table.columns.find((c) => c.name === name)!;
 }

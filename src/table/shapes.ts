@@ -24,10 +24,7 @@ function fromRecords(records: readonly unknown[]): RawColumns {
   const seen = new Set<string>();
   records.forEach((record, i) => {
     if (!isPlainObject(record)) {
-      throw new KinsortError(
-        `records: row ${i + 1} is ${describe(record)}, not an object of {column: value}.`,
-        'bad-input',
-      );
+      throw new KinsortError(`records: row ${i + 1} is ${describe(record)}, not an object of {column: value}.`, 'bad-input');
     }
     for (const key of Object.keys(record)) {
       if (!seen.has(key)) {
@@ -67,10 +64,7 @@ function fromColumnObject(object: Dict): RawColumns {
   const differ = names.filter((_, j) => lengths[j] !== first);
   if (differ.length > 0) {
     const shown = names.map((n, j) => `"${n}" (${lengths[j]})`).join(', ');
-    throw new KinsortError(
-      `column object: columns have different lengths: ${shown}; every column needs one value per row.`,
-      'ragged',
-    );
+    throw new KinsortError(`column object: columns have different lengths: ${shown}; every column needs one value per row.`, 'ragged');
   }
   requireRows(first, 'column object');
   return { names, columns: names.map((n) => Array.from(object[n] as ArrayLike<unknown>)), source: 'column object' };
@@ -90,8 +84,7 @@ export function rawColumnsFromShape(input: unknown): RawColumns {
     if (isArrayLike(input[0])) return fromNestedRows(input);
     if (isPlainObject(input[0])) return fromRecords(input);
     throw new KinsortError(
-      `input is an array whose first item is ${describe(input[0])}; expected records ({column: value}) ` +
-        `or rows of numbers.`,
+      `input is an array whose first item is ${describe(input[0])}; expected records ({column: value}) ` + `or rows of numbers.`,
       'bad-input',
     );
   }

@@ -42,10 +42,5 @@ export interface Table {
 }
 
 export function isTable(value: unknown): value is Table {
-  return (
-    typeof value === 'object' &&
-    value !== null &&
-    (value as Table).kind === 'table' &&
-    Array.isArray((value as Table).columns)
-  );
+  return typeof value === 'object' && value !== null && (value as Table).kind === 'table' && Array.isArray((value as Table).columns);
 }

@@ -20,7 +20,9 @@ export interface CardsOptions {
  * A profile as the cards read it: `rule`, when present (the fluent layer sets it), says how many of
  * the segment's members the definition's rule (nearest centre / medoid) puts back in it.
  */
-export type CardProfile = SegmentProfile & { readonly rule?: { readonly name: string; readonly reproduced: number; readonly size: number } };
+export type CardProfile = SegmentProfile & {
+  readonly rule?: { readonly name: string; readonly reproduced: number; readonly size: number };
+};
 
 /** The sections of a card, in order; each returns trusted HTML built from escaped pieces. */
 export type CardSection = (p: CardProfile, context: { reach: number }) => string;
@@ -44,7 +46,13 @@ function differenceBar(d: VariableDifference, reach: number, x0 = 0, y0 = 0, wid
   return [
     svgEl.line({ x1: mid, x2: mid, y1: y0, y2: y0 + 20, stroke: INK.axis }),
     svgEl.rect({ x: above ? mid : mid - w, y: y0 + 4, width: Math.max(1, w), height: 12, rx: 2, fill: above ? INK.above : INK.below }),
-    svgEl.text(signed(d.difference), { x: above ? mid + w + 3 : mid - w - 3, y: y0 + 14, 'text-anchor': above ? 'start' : 'end', 'font-size': 10.5, fill: INK.muted }),
+    svgEl.text(signed(d.difference), {
+      x: above ? mid + w + 3 : mid - w - 3,
+      y: y0 + 14,
+      'text-anchor': above ? 'start' : 'end',
+      'font-size': 10.5,
+      fill: INK.muted,
+    }),
   ];
 }
 
@@ -57,8 +65,10 @@ function apartRows(p: CardProfile, reach: number): string {
     .map((d) => {
       const tip = `${variableName(d)}: ${valuesText(d)} (${signed(d.difference)} sd)`;
       const bar = svgDocument(150, 20, 'difference in standard deviations', [svgEl.group(differenceBar(d, reach), {}, tip)]);
-      return `<div class="ks-apart-row"><div><div class="ks-apart-name">${escapeHtml(variableName(d))}</div>` +
-        `<div class="ks-apart-values">${escapeHtml(valuesText(d))}</div></div><div class="ks-apart-bar">${bar}</div></div>`;
+      return (
+        `<div class="ks-apart-row"><div><div class="ks-apart-name">${escapeHtml(variableName(d))}</div>` +
+        `<div class="ks-apart-values">${escapeHtml(valuesText(d))}</div></div><div class="ks-apart-bar">${bar}</div></div>`
+      );
     })
     .join('');
   return `<h5>Sets it apart</h5>${rows}`;
@@ -83,7 +93,15 @@ function typicalLine(p: CardProfile): string {
   if (values) {
     const names = [...new Set(p.standout.map((d) => d.variable))].slice(0, 4);
     shown = names
-      .map((name) => `${escapeHtml(name)} ${escapeHtml(shownValue(values[name], p.standout.find((d) => d.variable === name)))}`)
+      .map(
+        (name) =>
+          `${escapeHtml(name)} ${escapeHtml(
+            shownValue(
+              values[name],
+              p.standout.find((d) => d.variable === name),
+            ),
+          )}`,
+      )
       .join(' · ');
   }
   return `<div class="ks-fact"><b>Typical member</b>: ${who} <span style="color:${INK.muted}">(${what})</span>${shown ? `<br><span class="ks-apart-values">${shown}</span>` : ''}</div>`;
@@ -102,8 +120,10 @@ function keptLine(k: KeptSummary): string {
 function reproducedLine(p: CardProfile): string {
   const r = p.rule;
   if (!r || !(r.size > 0) || r.reproduced >= r.size) return '';
-  return `<p class="ks-size"><b>Definition</b>: its ${escapeHtml(r.name)} rule puts ${((100 * r.reproduced) / r.size).toFixed(1)}\u00a0% ` +
-    `of these rows (${r.reproduced.toLocaleString('en-US')} of ${r.size.toLocaleString('en-US')}) back in this segment</p>`;
+  return (
+    `<p class="ks-size"><b>Definition</b>: its ${escapeHtml(r.name)} rule puts ${((100 * r.reproduced) / r.size).toFixed(1)}\u00a0% ` +
+    `of these rows (${r.reproduced.toLocaleString('en-US')} of ${r.size.toLocaleString('en-US')}) back in this segment</p>`
+  );
 }
 
 /** Sections of every card, in order (a later section, e.g. rules, goes in this list). */
@@ -142,8 +162,19 @@ function cardsSvg(profiles: readonly CardProfile[], title: string, reach: number
     const x0 = (i % perRow) * panelW;
     const y0 = Math.floor(i / perRow) * panelH;
     body.push(svgEl.rect({ x: x0 + 2, y: y0 + 4, width: 20, height: 16, rx: 3, fill: segmentColour(p.segment - 1) }));
-    body.push(svgEl.text(String(p.segment), { x: x0 + 12, y: y0 + 16, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: '#ffffff' }));
-    body.push(svgEl.text(p.title ?? `Segment ${p.segment}`, { x: x0 + 28, y: y0 + 17, 'font-size': 12.5, 'font-weight': 650, fill: INK.text }));
+    body.push(
+      svgEl.text(String(p.segment), {
+        x: x0 + 12,
+        y: y0 + 16,
+        'text-anchor': 'middle',
+        'font-size': 11,
+        'font-weight': 700,
+        fill: '#ffffff',
+      }),
+    );
+    body.push(
+      svgEl.text(p.title ?? `Segment ${p.segment}`, { x: x0 + 28, y: y0 + 17, 'font-size': 12.5, 'font-weight': 650, fill: INK.text }),
+    );
     p.standout.forEach((d, r) => {
       const y = y0 + 28 + r * rowH;
       body.push(svgEl.text(variableName(d), { x: x0 + 4, y: y + 12, 'font-size': 11.5, fill: INK.text }));
@@ -162,7 +193,7 @@ export function profileCardsView(profiles: readonly CardProfile[], options: Card
   }
   const title = opts.title ?? `Profiles of ${profiles.length} segments`;
   const caption =
-    'One card per segment: the variables that set it apart most, each with the segment\'s value beside the value for all rows, ' +
+    "One card per segment: the variables that set it apart most, each with the segment's value beside the value for all rows, " +
     'and the difference in standard deviations as a bar (dark, to the right: higher than all rows; light, to the left: lower).';
   // One scale for every card, so equal bars mean equal differences across cards.
   const reach = Math.max(1, ...profiles.flatMap((p) => p.standout.map((d: VariableDifference) => Math.abs(d.difference))));

@@ -57,7 +57,16 @@ export function svgLegend(k: number, x: number, y: number, names?: readonly (str
     }
     const colour = segmentColour(s);
     out.push(svgEl.rect({ x: cx, y: cy - 11, width: 20, height: 15, rx: 3, fill: colour }));
-    out.push(svgEl.text(String(s + 1), { x: cx + 10, y: cy, 'text-anchor': 'middle', 'font-size': 10.5, 'font-weight': 700, fill: textOn(colour) }));
+    out.push(
+      svgEl.text(String(s + 1), {
+        x: cx + 10,
+        y: cy,
+        'text-anchor': 'middle',
+        'font-size': 10.5,
+        'font-weight': 700,
+        fill: textOn(colour),
+      }),
+    );
     out.push(svgEl.text(label.length > 28 ? label.slice(0, 27) + '…' : label, { x: cx + 25, y: cy, 'font-size': 11.5, fill: INK.text }));
     cx += w;
   }

@@ -139,9 +139,13 @@ export function dendrogramView(tree: DendrogramTree, options: DendrogramOptions 
   const caption =
     'Rows join where their branches meet: the further left the join, the less alike the groups it joins. ' +
     (k ? 'Tinted bands with numbered tabs are the segments of the cut (the vertical line). ' : '') +
-    (collapsed ? `The top of the tree is drawn down to ${tips.length} branches, each with its number of rows.` : 'Each leaf is labelled beside it.');
+    (collapsed
+      ? `The top of the tree is drawn down to ${tips.length} branches, each with its number of rows.`
+      : 'Each leaf is labelled beside it.');
   const notes = collapsed
-    ? [`${size[root]} rows are too many to label one by one (more than ${labelled}): draw one branch with dendrogram({ branch: j${k ? `, k: ${k}` : ''} }), or give labelled: a larger number.`]
+    ? [
+        `${size[root]} rows are too many to label one by one (more than ${labelled}): draw one branch with dendrogram({ branch: j${k ? `, k: ${k}` : ''} }), or give labelled: a larger number.`,
+      ]
     : [];
   const still = draw(tips, root, child, heightOf, labels, cutHeight, k, title, size);
   return makeView({ kind: 'dendrogram', title, caption, still, notes });
@@ -181,7 +185,15 @@ function draw(
     body.push(svgEl.line({ x1: x(t), x2: x(t), y1: topY, y2: bottom, stroke: INK.grid }));
     body.push(svgEl.text(formatTick(t), { x: x(t), y: bottom + 15, 'text-anchor': 'middle', 'font-size': 11, fill: INK.muted }));
   }
-  body.push(svgEl.text('height (dissimilarity at which groups join)', { x: (left + right) / 2, y: bottom + 34, 'text-anchor': 'middle', 'font-size': 12, fill: INK.text }));
+  body.push(
+    svgEl.text('height (dissimilarity at which groups join)', {
+      x: (left + right) / 2,
+      y: bottom + 34,
+      'text-anchor': 'middle',
+      'font-size': 12,
+      fill: INK.text,
+    }),
+  );
 
   // Segment bands: one per run of consecutive tips in one segment, behind the leaves and labels.
   if (k) {
@@ -196,7 +208,16 @@ function draw(
         const bx = cutHeight === undefined ? right - 30 : Math.max(left, x(cutHeight));
         body.push(svgEl.rect({ x: bx, y: y0 + 1, width: width - bx, height: h - 2, fill: colour, 'fill-opacity': 0.13 }));
         body.push(svgEl.rect({ x: right + 2, y: y0 + 1, width: 20, height: h - 2, rx: 3, fill: colour }));
-        body.push(svgEl.text(String(s + 1), { x: right + 12, y: y0 + h / 2 + 4, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: textOn(colour) }));
+        body.push(
+          svgEl.text(String(s + 1), {
+            x: right + 12,
+            y: y0 + h / 2 + 4,
+            'text-anchor': 'middle',
+            'font-size': 11,
+            'font-weight': 700,
+            fill: textOn(colour),
+          }),
+        );
       }
       start = i;
     }
@@ -231,7 +252,19 @@ function draw(
     const half = Math.min(ROW / 2 - 2, 2 + Math.log10(t.size + 1) * 1.6);
     body.push(
       svgEl.group(
-        [svgEl.path(pathData([[x(h), y(i)], [x(0), y(i) - half], [x(0), y(i) + half]], true), { fill: LINK, 'fill-opacity': 0.55 })],
+        [
+          svgEl.path(
+            pathData(
+              [
+                [x(h), y(i)],
+                [x(0), y(i) - half],
+                [x(0), y(i) + half],
+              ],
+              true,
+            ),
+            { fill: LINK, 'fill-opacity': 0.55 },
+          ),
+        ],
         {},
         `branch ${t.branch}: ${t.size} rows`,
       ),
@@ -239,11 +272,15 @@ function draw(
   });
   // Labels right beside their leaves.
   tips.forEach((t, i) => {
-    body.push(svgEl.group([svgEl.text(texts[i], { x: right + bandTab + 6, y: y(i) + 4, 'font-size': 11, fill: INK.text })], {}, tipText(t)));
+    body.push(
+      svgEl.group([svgEl.text(texts[i], { x: right + bandTab + 6, y: y(i) + 4, 'font-size': 11, fill: INK.text })], {}, tipText(t)),
+    );
   });
   if (cutHeight !== undefined && cutHeight <= maxHeight * 1.03) {
     body.push(svgEl.line({ x1: x(cutHeight), x2: x(cutHeight), y1: topY - 8, y2: bottom, stroke: INK.accent, 'stroke-width': 1.4 }));
-    body.push(svgEl.text(`cut: ${k} segments`, { x: x(cutHeight), y: topY - 12, 'text-anchor': 'middle', 'font-size': 11, fill: INK.accent }));
+    body.push(
+      svgEl.text(`cut: ${k} segments`, { x: x(cutHeight), y: topY - 12, 'text-anchor': 'middle', 'font-size': 11, fill: INK.accent }),
+    );
   }
   if (k) body.push(...svgLegend(k, left, height - 14, undefined, width - left - 10));
   return svgDocument(width, height, title, body);

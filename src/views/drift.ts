@@ -28,10 +28,23 @@ function shareBars(report: DriftReport): string {
       svgEl.group(
         [
           svgEl.text(name, { x: labelW - 8, y: y + 17, 'text-anchor': 'end', 'font-size': 12, fill: INK.text }),
-          svgEl.rect({ x: labelW, y, width: Math.max(1, scale(s.trainingShare)), height: 11, fill: '#ffffff', stroke: colour, 'stroke-width': 1.5 }),
+          svgEl.rect({
+            x: labelW,
+            y,
+            width: Math.max(1, scale(s.trainingShare)),
+            height: 11,
+            fill: '#ffffff',
+            stroke: colour,
+            'stroke-width': 1.5,
+          }),
           svgEl.rect({ x: labelW, y: y + 14, width: Math.max(1, scale(s.newShare)), height: 11, fill: colour }),
           svgEl.text(`${pct(s.trainingShare)} → ${pct(s.newShare)}`, { x: width - numW + 8, y: y + 12, 'font-size': 11.5, fill: INK.text }),
-          svgEl.text(`${change >= 0 ? '+' : '−'}${Math.abs(change).toFixed(1)} points`, { x: width - numW + 8, y: y + 26, 'font-size': 10.5, fill: INK.muted }),
+          svgEl.text(`${change >= 0 ? '+' : '−'}${Math.abs(change).toFixed(1)} points`, {
+            x: width - numW + 8,
+            y: y + 26,
+            'font-size': 10.5,
+            fill: INK.muted,
+          }),
         ],
         {},
         `${name}: ${pct(s.trainingShare)} of training rows, ${pct(s.newShare)} of new rows (${s.newRows})`,
@@ -86,7 +99,10 @@ function columnsTable(report: DriftReport): string {
   const rows = report.columns
     .map((c) => {
       const unseen = c.unseenLevels.length
-        ? c.unseenLevels.slice(0, 6).map((u) => `${escapeHtml(u.level)} (${u.rows})`).join(', ') + (c.unseenLevels.length > 6 ? `, ${c.unseenLevels.length - 6} more` : '')
+        ? c.unseenLevels
+            .slice(0, 6)
+            .map((u) => `${escapeHtml(u.level)} (${u.rows})`)
+            .join(', ') + (c.unseenLevels.length > 6 ? `, ${c.unseenLevels.length - 6} more` : '')
         : '—';
       const filled = c.filled ? `${c.filled.rows} with ${escapeHtml(c.filled.value)}` : '—';
       return `<tr><td>${escapeHtml(c.column)}</td><td style="text-align:left">${unseen}</td><td>${filled}</td></tr>`;
@@ -105,12 +121,17 @@ export function driftView(report: DriftReport, options: { title?: string } = {})
   const far =
     `<p class="ks-fact"><b>Far from every segment</b>: ${pct(report.far.newShare)} of new rows (${report.far.newRows})` +
     (report.far.trainingShare === null ? '' : `, against ${pct(report.far.trainingShare)} of training rows`) +
-    ' — farther from every centre than nearly all (99 %) of that segment\'s training rows were.</p>';
-  const refused = report.refusedRows > 0 ? `<p class="ks-fact"><b>No segment</b>: ${report.refusedRows} row(s) could not be prepared (reasons in the assignment report).</p>` : '';
+    " — farther from every centre than nearly all (99 %) of that segment's training rows were.</p>";
+  const refused =
+    report.refusedRows > 0
+      ? `<p class="ks-fact"><b>No segment</b>: ${report.refusedRows} row(s) could not be prepared (reasons in the assignment report).</p>`
+      : '';
   const legend = report.segments.map((s) => htmlSwatch(s.segment - 1)).join(' ');
   const still =
     `<h5 class="ks-sub">Segment shares ${legend}</h5>${shareBars(report)}${far}${refused}` +
-    (report.features.length ? `<h5 class="ks-sub">Shift of each feature: population stability index (dotted lines: readings, common practice)</h5>${stabilityBars(report)}` : '') +
+    (report.features.length
+      ? `<h5 class="ks-sub">Shift of each feature: population stability index (dotted lines: readings, common practice)</h5>${stabilityBars(report)}`
+      : '') +
     `<h5 class="ks-sub">Columns with unseen levels or filled values</h5>${columnsTable(report)}`;
   return makeView({ kind: 'drift', title, caption, still, svg: shareBars(report), notes: report.notes });
 }

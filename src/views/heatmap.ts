@@ -62,7 +62,12 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
         `(${(n * n).toLocaleString('en-US')} cells). Draw it for a sample of the rows, or look at the segments with projectionView instead.`,
     );
   }
-  const order = opts.order === undefined ? Array.from({ length: n }, (_, i) => i) : Array.isArray(opts.order) ? opts.order : (opts.order as { order: readonly number[] }).order;
+  const order =
+    opts.order === undefined
+      ? Array.from({ length: n }, (_, i) => i)
+      : Array.isArray(opts.order)
+        ? opts.order
+        : (opts.order as { order: readonly number[] }).order;
   if (order.length !== n || new Set(order).size !== n || order.some((i) => !Number.isInteger(i) || i < 0 || i >= n)) {
     refuse(where, `the order must list each of the ${n} rows once (0-based row numbers, or a tree's order).`);
   }
@@ -127,7 +132,16 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
       body.push(svgEl.text(text, { x: f.left - 4, y: f.y(i) + 3.2, 'text-anchor': 'end', 'font-size': 9.5, fill: INK.text }));
       if (i % colEvery !== 0) return;
       const x = f.x(i) + 3.2;
-      body.push(svgEl.text(text, { x, y: f.bottom + 5, 'text-anchor': 'end', 'font-size': 9.5, fill: INK.text, transform: `rotate(-90 ${x.toFixed(1)} ${(f.bottom + 5).toFixed(1)})` }));
+      body.push(
+        svgEl.text(text, {
+          x,
+          y: f.bottom + 5,
+          'text-anchor': 'end',
+          'font-size': 9.5,
+          fill: INK.text,
+          transform: `rotate(-90 ${x.toFixed(1)} ${(f.bottom + 5).toFixed(1)})`,
+        }),
+      );
     });
   }
   for (const r of runs) {
@@ -138,7 +152,17 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
     const colour = segmentColour(r.segment);
     body.push(svgEl.rect({ x: f.right + 4, y: y0, width: 16, height: y1 - y0, fill: colour }));
     body.push(svgEl.rect({ x: x0, y: f.top - 16, width: x1 - x0, height: 12, fill: colour }));
-    if (y1 - y0 >= 14) body.push(svgEl.text(String(r.segment + 1), { x: f.right + 12, y: (y0 + y1) / 2 + 4, 'text-anchor': 'middle', 'font-size': 10, 'font-weight': 700, fill: textOn(colour) }));
+    if (y1 - y0 >= 14)
+      body.push(
+        svgEl.text(String(r.segment + 1), {
+          x: f.right + 12,
+          y: (y0 + y1) / 2 + 4,
+          'text-anchor': 'middle',
+          'font-size': 10,
+          'font-weight': 700,
+          fill: textOn(colour),
+        }),
+      );
   }
   // The cut: a white line across the matrix wherever one segment's rows end and the next begin.
   for (const r of runs.slice(1)) {
@@ -155,13 +179,27 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
     body.push(svgEl.rect({ x: f.left + (t * keyW) / 40, y: keyY, width: keyW / 40 + 0.5, height: 10, fill: `rgb(${r},${g},${b})` }));
   }
   body.push(svgEl.text('0 alike', { x: f.left, y: keyY + 24, 'font-size': 10.5, fill: INK.text }));
-  body.push(svgEl.text(`${Number(max.toPrecision(3))} different`, { x: f.left + keyW, y: keyY + 24, 'text-anchor': 'end', 'font-size': 10.5, fill: INK.text }));
+  body.push(
+    svgEl.text(`${Number(max.toPrecision(3))} different`, {
+      x: f.left + keyW,
+      y: keyY + 24,
+      'text-anchor': 'end',
+      'font-size': 10.5,
+      fill: INK.text,
+    }),
+  );
   body.push(svgEl.text('dissimilarity', { x: f.left + keyW + 12, y: keyY + 9, 'font-size': 11, fill: INK.muted }));
   const height = keyY + 34;
   const still = svgDocument(width, height, title, body);
 
   if (n > LIVE_MAX_ROWS) {
-    return makeView({ kind: 'heatmap', title, caption, still, notes: [`${n} rows: shown as a still image (an interactive chart would weigh several megabytes).`] });
+    return makeView({
+      kind: 'heatmap',
+      title,
+      caption,
+      still,
+      notes: [`${n} rows: shown as a still image (an interactive chart would weigh several megabytes).`],
+    });
   }
   const z: number[][] = [];
   for (let a = 0; a < n; a++) {
@@ -182,7 +220,16 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
       zmin: 0,
       zmax: max,
       // Lying under the matrix, 0 (alike) on the left: the same way as the still's key.
-      colorbar: { orientation: 'h', x: 0, xanchor: 'left', y: -140 / (Math.max(640, (n <= 80 ? n * ROW_PX : 0) + 300) - 186), yanchor: 'top', len: 0.5, thickness: 12, title: { text: 'dissimilarity (0: alike)', side: 'top' } },
+      colorbar: {
+        orientation: 'h',
+        x: 0,
+        xanchor: 'left',
+        y: -140 / (Math.max(640, (n <= 80 ? n * ROW_PX : 0) + 300) - 186),
+        yanchor: 'top',
+        len: 0.5,
+        thickness: 12,
+        title: { text: 'dissimilarity (0: alike)', side: 'top' },
+      },
     },
   ];
   const axis = (every: number, extra: object) =>
@@ -200,12 +247,34 @@ export function heatmapView(dissimilarity: DissimilarityLike, options: HeatmapOp
   const band = n * 0.03;
   const reach = runs.length ? gap + band : 0;
   const strips = runs.flatMap((r) => [
-    { type: 'rect', x0: n - 0.5 + gap, x1: n - 0.5 + gap + band, y0: r.from - 0.5, y1: r.to + 0.5, fillcolor: segmentColour(r.segment), line: { width: 0 } },
-    { type: 'rect', x0: r.from - 0.5, x1: r.to + 0.5, y0: -0.5 - gap / 2, y1: -0.5 - gap / 2 - band / 2, fillcolor: segmentColour(r.segment), line: { width: 0 } },
+    {
+      type: 'rect',
+      x0: n - 0.5 + gap,
+      x1: n - 0.5 + gap + band,
+      y0: r.from - 0.5,
+      y1: r.to + 0.5,
+      fillcolor: segmentColour(r.segment),
+      line: { width: 0 },
+    },
+    {
+      type: 'rect',
+      x0: r.from - 0.5,
+      x1: r.to + 0.5,
+      y0: -0.5 - gap / 2,
+      y1: -0.5 - gap / 2 - band / 2,
+      fillcolor: segmentColour(r.segment),
+      line: { width: 0 },
+    },
   ]);
   const stripNumbers = runs
     .filter((r) => r.to - r.from + 1 >= n / 40)
-    .map((r) => ({ x: n - 0.5 + gap + band / 2, y: (r.from + r.to) / 2, text: `<b>${r.segment + 1}</b>`, showarrow: false, font: { size: 10, color: textOn(segmentColour(r.segment)) } }));
+    .map((r) => ({
+      x: n - 0.5 + gap + band / 2,
+      y: (r.from + r.to) / 2,
+      text: `<b>${r.segment + 1}</b>`,
+      showarrow: false,
+      font: { size: 10, color: textOn(segmentColour(r.segment)) },
+    }));
   const cutLines = runs.slice(1).flatMap((r) => [
     { type: 'line', x0: r.from - 0.5, x1: r.from - 0.5, y0: -0.5, y1: n - 0.5, line: { color: '#ffffff', width: 1.6 } },
     { type: 'line', y0: r.from - 0.5, y1: r.from - 0.5, x0: -0.5, x1: n - 0.5, line: { color: '#ffffff', width: 1.6 } },

@@ -42,12 +42,30 @@ export interface PanelSpec {
 }
 
 export const PANELS: readonly PanelSpec[] = [
-  { key: 'weakestStability', title: 'Stability', reads: 'Jaccard per segment; line: weakest', pickedBy: 'stability', column: 'weakest Jaccard' },
+  {
+    key: 'weakestStability',
+    title: 'Stability',
+    reads: 'Jaccard per segment; line: weakest',
+    pickedBy: 'stability',
+    column: 'weakest Jaccard',
+  },
   { key: 'gap', title: 'Gap statistic', reads: 'vs. structureless data, ± 1 SE', pickedBy: 'gap', column: 'gap' },
   { key: 'withinSS', title: 'Within-segment SS', reads: 'look for the bend', pickedBy: 'knee', column: 'within-SS' },
   { key: 'silhouette', title: 'Average silhouette', reads: 'higher: rows nearer their own', pickedBy: 'silhouette', column: 'silhouette' },
-  { key: 'calinskiHarabasz', title: 'Calinski–Harabasz', reads: 'higher: between ÷ within spread', pickedBy: 'calinskiHarabasz', column: 'Calinski–Harabasz' },
-  { key: 'daviesBouldin', title: 'Davies–Bouldin', reads: 'lower: neighbours further apart', pickedBy: 'daviesBouldin', column: 'Davies–Bouldin' },
+  {
+    key: 'calinskiHarabasz',
+    title: 'Calinski–Harabasz',
+    reads: 'higher: between ÷ within spread',
+    pickedBy: 'calinskiHarabasz',
+    column: 'Calinski–Harabasz',
+  },
+  {
+    key: 'daviesBouldin',
+    title: 'Davies–Bouldin',
+    reads: 'lower: neighbours further apart',
+    pickedBy: 'daviesBouldin',
+    column: 'Davies–Bouldin',
+  },
 ];
 
 /** How many panels go in each row so that no cell of the grid stays empty. */

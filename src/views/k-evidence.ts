@@ -37,7 +37,11 @@ export function kEvidenceView(comparison: KComparisonLike, options: { title?: st
     comparison.headline ??
     (rec !== undefined ? `Evidence for the number of segments: k = ${rec} recommended` : 'Evidence for the number of segments');
   const caption =
-    (recShown !== undefined ? `The shaded column in every panel is the recommended k = ${recShown}; ` : comparison.noStructure ? 'No k is shaded: the rows show no clustering structure; ' : '') +
+    (recShown !== undefined
+      ? `The shaded column in every panel is the recommended k = ${recShown}; `
+      : comparison.noStructure
+        ? 'No k is shaded: the rows show no clustering structure; '
+        : '') +
     'a ring marks the k each criterion picks by itself. Panels follow the rule: stability, the gap statistic and the within-SS bend first.';
   const pickOf = (p: PanelSpec) => comparison.byCriterion?.[p.pickedBy];
   const grid = panelRows(panels.length);
@@ -49,14 +53,24 @@ export function kEvidenceView(comparison: KComparisonLike, options: { title?: st
   panels.forEach((panel, i) => {
     const slot = panelSlot(grid, i);
     const pw = width / slot.across;
-    body.push(svgEl.group(stillPanel(panel, rows, pw, ph, pickOf(panel), recShown), { transform: `translate(${slot.col * pw} ${slot.row * ph})` }));
+    body.push(
+      svgEl.group(stillPanel(panel, rows, pw, ph, pickOf(panel), recShown), { transform: `translate(${slot.col * pw} ${slot.row * ph})` }),
+    );
   });
   const still = svgDocument(width, grid.length * ph, title, body);
 
   // Live chart: the same panels as plotly subplots.
   const { data, layout } = livePanels(panels, rows, ks, grid, pickOf, recShown);
   const reasons = (comparison.reasons ?? []).map(String);
-  return makeView({ kind: 'k-evidence', title, caption, still, plot: { data, layout }, notes: reasons, after: evidenceTable(rows, panels, rec) });
+  return makeView({
+    kind: 'k-evidence',
+    title,
+    caption,
+    still,
+    plot: { data, layout },
+    notes: reasons,
+    after: evidenceTable(rows, panels, rec),
+  });
 }
 
 function panelDomain(panel: PanelSpec, rows: readonly KEvidenceRow[]): [number, number] {
@@ -72,7 +86,14 @@ function panelDomain(panel: PanelSpec, rows: readonly KEvidenceRow[]): [number, 
   return extent(values, 0.12);
 }
 
-function stillPanel(panel: PanelSpec, rows: readonly KEvidenceRow[], pw: number, ph: number, pick: number | undefined, rec: number | undefined): string[] {
+function stillPanel(
+  panel: PanelSpec,
+  rows: readonly KEvidenceRow[],
+  pw: number,
+  ph: number,
+  pick: number | undefined,
+  rec: number | undefined,
+): string[] {
   const ks = rows.map((r) => r.k);
   const f = frame({
     width: pw,
@@ -84,11 +105,28 @@ function stillPanel(panel: PanelSpec, rows: readonly KEvidenceRow[], pw: number,
   const g: string[] = [];
   g.push(svgEl.text(panel.title, { x: f.left, y: 15, 'font-size': 12.5, 'font-weight': 650, fill: INK.text }));
   g.push(svgEl.text(panel.reads, { x: f.left, y: 30, 'font-size': 10.5, fill: INK.muted }));
-  g.push(svgEl.text(finite(pick) ? `◯ k = ${pick}` : 'no clear pick', { x: f.right, y: 15, 'font-size': 11, fill: INK.text, 'text-anchor': 'end' }));
+  g.push(
+    svgEl.text(finite(pick) ? `◯ k = ${pick}` : 'no clear pick', {
+      x: f.right,
+      y: 15,
+      'font-size': 11,
+      fill: INK.text,
+      'text-anchor': 'end',
+    }),
+  );
   g.push(...f.under);
   g.push(svgEl.text('k', { x: f.right + 3, y: f.bottom + 15, 'font-size': 11, 'font-style': 'italic', fill: INK.muted }));
   if (rec !== undefined) {
-    g.push(svgEl.rect({ x: f.x(rec - 0.42), y: f.top, width: f.x(rec + 0.42) - f.x(rec - 0.42), height: f.bottom - f.top, fill: INK.accent, 'fill-opacity': 0.1 }));
+    g.push(
+      svgEl.rect({
+        x: f.x(rec - 0.42),
+        y: f.top,
+        width: f.x(rec + 0.42) - f.x(rec - 0.42),
+        height: f.bottom - f.top,
+        fill: INK.accent,
+        'fill-opacity': 0.1,
+      }),
+    );
     g.push(svgEl.line({ x1: f.x(rec - 0.42), x2: f.x(rec + 0.42), y1: f.top, y2: f.top, stroke: INK.accent, 'stroke-width': 3 }));
   }
   if (panel.key === 'weakestStability') {
@@ -98,13 +136,40 @@ function stillPanel(panel: PanelSpec, rows: readonly KEvidenceRow[], pw: number,
     for (const r of rows) {
       const each = (r.stabilityBySegment ?? []).filter(finite);
       if (each.length < 2) continue;
-      g.push(svgEl.line({ x1: f.x(r.k), x2: f.x(r.k), y1: f.y(Math.min(...each)), y2: f.y(Math.max(...each)), stroke: SEGMENT_DOT, 'stroke-width': 1 }));
-      each.forEach((v, s) => g.push(svgEl.group([svgEl.circle({ cx: f.x(r.k) + 5, cy: f.y(v), r: 2.2, fill: SEGMENT_DOT })], {}, `k = ${r.k}, segment ${s + 1}: Jaccard ${v.toFixed(2)}`)));
+      g.push(
+        svgEl.line({
+          x1: f.x(r.k),
+          x2: f.x(r.k),
+          y1: f.y(Math.min(...each)),
+          y2: f.y(Math.max(...each)),
+          stroke: SEGMENT_DOT,
+          'stroke-width': 1,
+        }),
+      );
+      each.forEach((v, s) =>
+        g.push(
+          svgEl.group(
+            [svgEl.circle({ cx: f.x(r.k) + 5, cy: f.y(v), r: 2.2, fill: SEGMENT_DOT })],
+            {},
+            `k = ${r.k}, segment ${s + 1}: Jaccard ${v.toFixed(2)}`,
+          ),
+        ),
+      );
     }
   }
   if (panel.key === 'gap') {
     for (const r of rows) {
-      if (finite(r.gap) && finite(r.gapSE)) g.push(svgEl.line({ x1: f.x(r.k), x2: f.x(r.k), y1: f.y(r.gap - r.gapSE), y2: f.y(r.gap + r.gapSE), stroke: DATA_INK, 'stroke-width': 1.2 }));
+      if (finite(r.gap) && finite(r.gapSE))
+        g.push(
+          svgEl.line({
+            x1: f.x(r.k),
+            x2: f.x(r.k),
+            y1: f.y(r.gap - r.gapSE),
+            y2: f.y(r.gap + r.gapSE),
+            stroke: DATA_INK,
+            'stroke-width': 1.2,
+          }),
+        );
     }
   }
   const pts = rows.flatMap((r) => {
@@ -144,7 +209,14 @@ function livePanels(
     const x0 = col * (w + gapX);
     const y1 = 1 - row * (h + gapY);
     const suffix = i === 0 ? '' : String(i + 1);
-    layout[`xaxis${suffix}`] = axisStyle('', { domain: [x0, x0 + w], anchor: `y${suffix}`, tickmode: 'array', tickvals: ks, range: [ks[0] - 0.5, ks[ks.length - 1] + 0.5], ticksuffix: ' ' });
+    layout[`xaxis${suffix}`] = axisStyle('', {
+      domain: [x0, x0 + w],
+      anchor: `y${suffix}`,
+      tickmode: 'array',
+      tickvals: ks,
+      range: [ks[0] - 0.5, ks[ks.length - 1] + 0.5],
+      ticksuffix: ' ',
+    });
     layout[`yaxis${suffix}`] = axisStyle('', { domain: [y1 - h, y1], anchor: `x${suffix}`, range: panelDomain(panel, rows) });
     const axes = { xaxis: `x${suffix}`, yaxis: `y${suffix}` };
     const pick = pickOf(panel);
@@ -160,8 +232,26 @@ function livePanels(
           text.push(`segment ${s + 1}`);
         });
       }
-      data.push({ type: 'scatter', mode: 'markers', x: xs, y: ys, text, ...axes, marker: { size: 5, color: SEGMENT_DOT }, hovertemplate: 'k = %{x:.0f}, %{text}<br>Jaccard %{y:.2f}<extra></extra>' });
-      shapes.push({ type: 'line', xref: `x${suffix} domain`, yref: `y${suffix}`, x0: 0, x1: 1, y0: STABLE_LINE, y1: STABLE_LINE, line: { color: INK.muted, width: 1, dash: 'dot' } });
+      data.push({
+        type: 'scatter',
+        mode: 'markers',
+        x: xs,
+        y: ys,
+        text,
+        ...axes,
+        marker: { size: 5, color: SEGMENT_DOT },
+        hovertemplate: 'k = %{x:.0f}, %{text}<br>Jaccard %{y:.2f}<extra></extra>',
+      });
+      shapes.push({
+        type: 'line',
+        xref: `x${suffix} domain`,
+        yref: `y${suffix}`,
+        x0: 0,
+        x1: 1,
+        y0: STABLE_LINE,
+        y1: STABLE_LINE,
+        line: { color: INK.muted, width: 1, dash: 'dot' },
+      });
     }
     data.push({
       type: 'scatter',
@@ -171,25 +261,83 @@ function livePanels(
       ...axes,
       line: { color: DATA_INK, width: 2 },
       marker: { size: 7, color: DATA_INK },
-      error_y: panel.key === 'gap' ? { type: 'data', array: rows.map((r) => r.gapSE ?? 0), visible: true, color: DATA_INK, width: 0 } : undefined,
+      error_y:
+        panel.key === 'gap' ? { type: 'data', array: rows.map((r) => r.gapSE ?? 0), visible: true, color: DATA_INK, width: 0 } : undefined,
       hovertemplate: `k = %{x}<br>${escapeHtml(panel.title)}: %{y:.4g}<extra></extra>`,
     });
     const at = rows.find((r) => r.k === pick);
     if (finite(pick) && at && finite(valueOf(at, panel))) {
-      data.push({ type: 'scatter', mode: 'markers', x: [pick], y: [valueOf(at, panel)], ...axes, marker: { size: 17, symbol: 'circle-open', color: INK.text, line: { width: 1.8 } }, hoverinfo: 'skip' });
+      data.push({
+        type: 'scatter',
+        mode: 'markers',
+        x: [pick],
+        y: [valueOf(at, panel)],
+        ...axes,
+        marker: { size: 17, symbol: 'circle-open', color: INK.text, line: { width: 1.8 } },
+        hoverinfo: 'skip',
+      });
     }
     const pickText = finite(pick) ? `◯ k = ${pick}` : 'no clear pick';
     annotations.push({
       text: `<b>${escapeHtml(panel.title)}</b>  ${escapeHtml(pickText)}<br><span style="color:${INK.muted};font-size:10.5px">${escapeHtml(panel.reads)}</span>`,
-      align: 'left', xref: 'paper', yref: 'paper', x: x0, y: y1 + 0.012, xanchor: 'left', yanchor: 'bottom', showarrow: false, font: { size: 12 },
+      align: 'left',
+      xref: 'paper',
+      yref: 'paper',
+      x: x0,
+      y: y1 + 0.012,
+      xanchor: 'left',
+      yanchor: 'bottom',
+      showarrow: false,
+      font: { size: 12 },
     });
     if (panel.key === 'weakestStability') {
-      annotations.push({ text: `stable ≥ ${STABLE_LINE}`, xref: `x${suffix} domain`, yref: `y${suffix}`, x: 0.01, y: STABLE_LINE, xanchor: 'left', yanchor: 'bottom', showarrow: false, font: { size: 10, color: INK.muted } });
+      annotations.push({
+        text: `stable ≥ ${STABLE_LINE}`,
+        xref: `x${suffix} domain`,
+        yref: `y${suffix}`,
+        x: 0.01,
+        y: STABLE_LINE,
+        xanchor: 'left',
+        yanchor: 'bottom',
+        showarrow: false,
+        font: { size: 10, color: INK.muted },
+      });
     }
-    annotations.push({ text: '<i>k</i>', xref: `x${suffix} domain`, yref: `y${suffix} domain`, x: 1.02, y: -0.02, xanchor: 'left', yanchor: 'top', showarrow: false, font: { size: 11, color: INK.muted } });
+    annotations.push({
+      text: '<i>k</i>',
+      xref: `x${suffix} domain`,
+      yref: `y${suffix} domain`,
+      x: 1.02,
+      y: -0.02,
+      xanchor: 'left',
+      yanchor: 'top',
+      showarrow: false,
+      font: { size: 11, color: INK.muted },
+    });
     if (rec !== undefined) {
-      shapes.push({ type: 'rect', xref: `x${suffix}`, yref: `y${suffix} domain`, x0: rec - 0.42, x1: rec + 0.42, y0: 0, y1: 1, fillcolor: INK.accent, opacity: 0.1, line: { width: 0 }, layer: 'below' });
-      shapes.push({ type: 'line', xref: `x${suffix}`, yref: `y${suffix} domain`, x0: rec - 0.42, x1: rec + 0.42, y0: 1, y1: 1, line: { color: INK.accent, width: 3 } });
+      shapes.push({
+        type: 'rect',
+        xref: `x${suffix}`,
+        yref: `y${suffix} domain`,
+        x0: rec - 0.42,
+        x1: rec + 0.42,
+        y0: 0,
+        y1: 1,
+        fillcolor: INK.accent,
+        opacity: 0.1,
+        line: { width: 0 },
+        layer: 'below',
+      });
+      shapes.push({
+        type: 'line',
+        xref: `x${suffix}`,
+        yref: `y${suffix} domain`,
+        x0: rec - 0.42,
+        x1: rec + 0.42,
+        y0: 1,
+        y1: 1,
+        line: { color: INK.accent, width: 3 },
+      });
     }
   });
   layout.shapes = shapes;

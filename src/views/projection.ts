@@ -177,25 +177,48 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
       [tx, ty - 26, right ? 'start' : 'end'],
       [tx, ty + 28, right ? 'start' : 'end'],
     ];
-    const box = ([lx, ly, anchor]: [number, number, 'start' | 'end']) => ({ x0: anchor === 'start' ? lx : lx - w, x1: anchor === 'start' ? lx + w : lx, y0: ly - 11, y1: ly + 3 });
+    const box = ([lx, ly, anchor]: [number, number, 'start' | 'end']) => ({
+      x0: anchor === 'start' ? lx : lx - w,
+      x1: anchor === 'start' ? lx + w : lx,
+      y0: ly - 11,
+      y1: ly + 3,
+    });
     const pick = tries.find((t) => !clashes(box(t))) ?? tries[0];
     taken.push(box(pick));
     // The live chart puts the label at the same place, in data units (both charts keep equal units).
     const b = box(pick);
     livePlace.set(a.name, {
-      x: xs[0] + ((pick[2] === 'start' ? b.x0 : b.x1) - f.left) / (f.right - f.left) * (xs[1] - xs[0]),
-      y: ys[0] + (f.bottom - (b.y0 + b.y1) / 2) / (f.bottom - f.top) * (ys[1] - ys[0]),
+      x: xs[0] + (((pick[2] === 'start' ? b.x0 : b.x1) - f.left) / (f.right - f.left)) * (xs[1] - xs[0]),
+      y: ys[0] + ((f.bottom - (b.y0 + b.y1) / 2) / (f.bottom - f.top)) * (ys[1] - ys[0]),
       anchor: pick[2] === 'start' ? 'left' : 'right',
     });
     arrowLabels.push(
-      svgEl.text(a.name, { x: pick[0], y: pick[1], 'text-anchor': pick[2], 'font-size': 11, fill: INK.text, stroke: '#ffffff', 'stroke-width': 3, 'paint-order': 'stroke' }),
+      svgEl.text(a.name, {
+        x: pick[0],
+        y: pick[1],
+        'text-anchor': pick[2],
+        'font-size': 11,
+        fill: INK.text,
+        stroke: '#ffffff',
+        'stroke-width': 3,
+        'paint-order': 'stroke',
+      }),
     );
   }
   body.push(...arrowLabels);
   for (let s = 0; s < k; s++) {
     const [px, py] = discs[s];
     body.push(svgEl.circle({ cx: px, cy: py, r: 10, fill: segmentColour(s), stroke: '#ffffff', 'stroke-width': 2.5 }));
-    body.push(svgEl.text(String(s + 1), { x: px, y: py + 4, 'text-anchor': 'middle', 'font-size': 11, 'font-weight': 700, fill: textOn(segmentColour(s)) }));
+    body.push(
+      svgEl.text(String(s + 1), {
+        x: px,
+        y: py + 4,
+        'text-anchor': 'middle',
+        'font-size': 11,
+        'font-weight': 700,
+        fill: textOn(segmentColour(s)),
+      }),
+    );
   }
   body.push(...svgLegend(k, 64, frameH + 14, names, width - 80));
   const still = svgDocument(width, height, title, body);
@@ -204,7 +227,8 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
 
   // Live chart: one trace per segment so the legend toggles segments.
   const hoverCols = Object.entries(opts.hover ?? {});
-  for (const [name, values] of hoverCols) if (values.length !== n) refuse(where, `hover column "${name}" has ${values.length} values for ${n} rows.`);
+  for (const [name, values] of hoverCols)
+    if (values.length !== n) refuse(where, `hover column "${name}" has ${values.length} values for ${n} rows.`);
   const data: object[] = [];
   // Above a few thousand points SVG markers get slow; WebGL draws them instead, and then the
   // centres too (a WebGL layer covers the SVG one, which would hide them).
@@ -238,20 +262,41 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
     y: Array.from(cy),
     text: Array.from({ length: k }, (_, s) => String(s + 1)),
     textfont: { color: Array.from({ length: k }, (_, s) => textOn(segmentColour(s))), size: 11 },
-    marker: { size: 22, color: Array.from({ length: k }, (_, s) => segmentColour(s)), line: { color: '#ffffff', width: 2.5 }, symbol: 'circle' },
+    marker: {
+      size: 22,
+      color: Array.from({ length: k }, (_, s) => segmentColour(s)),
+      line: { color: '#ffffff', width: 2.5 },
+      symbol: 'circle',
+    },
     hovertemplate: 'centre of segment %{text}<extra></extra>',
   });
   const annotations = arrows.flatMap((a) => [
-    { x: a.ax, y: a.ay, ax: 0, ay: 0, axref: 'x', ayref: 'y', showarrow: true, arrowhead: 2, arrowwidth: 1.3, arrowcolor: INK.text, text: '' },
-    ...(a.labelled ? [{
-      x: livePlace.get(a.name)!.x,
-      y: livePlace.get(a.name)!.y,
-      showarrow: false,
-      text: plotText(a.name),
-      xanchor: livePlace.get(a.name)!.anchor,
-      yanchor: 'middle',
-      font: { size: 11, color: INK.text },
-    }] : []),
+    {
+      x: a.ax,
+      y: a.ay,
+      ax: 0,
+      ay: 0,
+      axref: 'x',
+      ayref: 'y',
+      showarrow: true,
+      arrowhead: 2,
+      arrowwidth: 1.3,
+      arrowcolor: INK.text,
+      text: '',
+    },
+    ...(a.labelled
+      ? [
+          {
+            x: livePlace.get(a.name)!.x,
+            y: livePlace.get(a.name)!.y,
+            showarrow: false,
+            text: plotText(a.name),
+            xanchor: livePlace.get(a.name)!.anchor,
+            yanchor: 'middle',
+            font: { size: 11, color: INK.text },
+          },
+        ]
+      : []),
   ]);
   const layout = baseLayout(600, {
     xaxis: axisStyle(xTitle, { constrain: 'domain' }),
@@ -289,7 +334,9 @@ export function screeView(projection: ProjectionLike, options: { title?: string 
   const body = [...f.under];
   ratio.forEach((r, i) => {
     body.push(svgEl.rect({ x: f.x(i + 1) - bw / 2, y: f.y(r), width: bw, height: f.y(0) - f.y(r), fill: '#1a6699', rx: 2 }));
-    body.push(svgEl.text(`${(r * 100).toFixed(1)}%`, { x: f.x(i + 1), y: f.y(r) - 4, 'text-anchor': 'middle', 'font-size': 10.5, fill: INK.text }));
+    body.push(
+      svgEl.text(`${(r * 100).toFixed(1)}%`, { x: f.x(i + 1), y: f.y(r) - 4, 'text-anchor': 'middle', 'font-size': 10.5, fill: INK.text }),
+    );
   });
   body.push(svgEl.path(pathData(cumulative.map((c, i) => [f.x(i + 1), f.y(c)])), { fill: 'none', stroke: '#e6801a', 'stroke-width': 2 }));
   cumulative.forEach((c, i) => body.push(svgEl.circle({ cx: f.x(i + 1), cy: f.y(c), r: 3.5, fill: '#e6801a' })));
@@ -300,8 +347,23 @@ export function screeView(projection: ProjectionLike, options: { title?: string 
   const still = svgDocument(width, height, title, body);
   const comps = ratio.map((_, i) => i + 1);
   const data = [
-    { type: 'bar', name: 'this component', x: comps, y: ratio, marker: { color: '#1a6699' }, hovertemplate: 'component %{x}: %{y:.1%}<extra></extra>' },
-    { type: 'scatter', mode: 'lines+markers', name: 'running total', x: comps, y: cumulative, line: { color: '#e6801a', width: 2 }, hovertemplate: 'components 1–%{x}: %{y:.1%}<extra></extra>' },
+    {
+      type: 'bar',
+      name: 'this component',
+      x: comps,
+      y: ratio,
+      marker: { color: '#1a6699' },
+      hovertemplate: 'component %{x}: %{y:.1%}<extra></extra>',
+    },
+    {
+      type: 'scatter',
+      mode: 'lines+markers',
+      name: 'running total',
+      x: comps,
+      y: cumulative,
+      line: { color: '#e6801a', width: 2 },
+      hovertemplate: 'components 1–%{x}: %{y:.1%}<extra></extra>',
+    },
   ];
   const layout = baseLayout(380, {
     xaxis: axisStyle('principal component', { dtick: 1 }),

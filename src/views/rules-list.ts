@@ -7,7 +7,13 @@ import { makeView, type View } from './view';
 
 export interface RulesLike {
   readonly k: number;
-  readonly rules: readonly { readonly segment: number; readonly title?: string; readonly text: string; readonly size: number; readonly purity: number }[];
+  readonly rules: readonly {
+    readonly segment: number;
+    readonly title?: string;
+    readonly text: string;
+    readonly size: number;
+    readonly purity: number;
+  }[];
   readonly agreement: { readonly overall: number; readonly bySegment: readonly number[] };
 }
 
@@ -49,7 +55,8 @@ export function rulesView(result: RulesLike, options: { title?: string; notes?: 
   for (let s = 1; s <= result.k; s++) {
     const title = result.rules.find((r) => r.segment === s && r.title)?.title;
     blocks.push(
-      `<div class="ks-rules-segment">${htmlSwatch(s - 1)}<span>${escapeHtml(title ?? `Segment ${s}`)}</span></div>` + segmentRulesHtml(result, s),
+      `<div class="ks-rules-segment">${htmlSwatch(s - 1)}<span>${escapeHtml(title ?? `Segment ${s}`)}</span></div>` +
+        segmentRulesHtml(result, s),
     );
   }
   return makeView({

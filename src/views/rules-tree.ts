@@ -12,7 +12,10 @@ export interface DrawnRuleNode {
   readonly segment: number;
   readonly purity: number;
   /** Left then right branch, each with its condition as text. */
-  readonly branches?: readonly [{ readonly label: string; readonly node: DrawnRuleNode }, { readonly label: string; readonly node: DrawnRuleNode }];
+  readonly branches?: readonly [
+    { readonly label: string; readonly node: DrawnRuleNode },
+    { readonly label: string; readonly node: DrawnRuleNode },
+  ];
 }
 
 const LEAF_WIDTH = 128;
@@ -47,7 +50,8 @@ export function rulesTreeView(root: DrawnRuleNode, options: { title?: string; na
     else leaves.push(n);
   };
   walk(root, 0);
-  if (leaves.length > MAX_LEAVES) refuse('rulesTreeView', `${leaves.length} leaves are more than ${MAX_LEAVES} a drawing can hold; read the rules list instead.`);
+  if (leaves.length > MAX_LEAVES)
+    refuse('rulesTreeView', `${leaves.length} leaves are more than ${MAX_LEAVES} a drawing can hold; read the rules list instead.`);
   const margin = 16;
   const width = Math.max(360, leaves.length * LEAF_WIDTH + 2 * margin);
   const height = 40 + depth * LEVEL_HEIGHT + 70;
@@ -65,8 +69,21 @@ export function rulesTreeView(root: DrawnRuleNode, options: { title?: string; na
         svgEl.group(
           [
             svgEl.rect({ x: x - LEAF_WIDTH / 2 + 6, y, width: LEAF_WIDTH - 12, height: 46, rx: 7, fill }),
-            svgEl.text(label.length > 15 ? label.slice(0, 14) + '…' : label, { x, y: y + 17, 'text-anchor': 'middle', 'font-size': 11.5, 'font-weight': 700, fill: textOn(fill) }),
-            svgEl.text(`${n.size.toLocaleString('en-US')} rows · ${Math.round(100 * n.purity)}%`, { x, y: y + 35, 'text-anchor': 'middle', 'font-size': 11, fill: textOn(fill) }),
+            svgEl.text(label.length > 15 ? label.slice(0, 14) + '…' : label, {
+              x,
+              y: y + 17,
+              'text-anchor': 'middle',
+              'font-size': 11.5,
+              'font-weight': 700,
+              fill: textOn(fill),
+            }),
+            svgEl.text(`${n.size.toLocaleString('en-US')} rows · ${Math.round(100 * n.purity)}%`, {
+              x,
+              y: y + 35,
+              'text-anchor': 'middle',
+              'font-size': 11,
+              fill: textOn(fill),
+            }),
           ],
           {},
           `${label}: ${n.size} rows, ${(100 * n.purity).toFixed(1)}% in this segment`,
@@ -99,7 +116,9 @@ export function rulesTreeView(root: DrawnRuleNode, options: { title?: string; na
       body.push(svgEl.group(texts, {}, b.label));
     });
     body.push(svgEl.rect({ x: x - 42, y, width: 84, height: 30, rx: 6, fill: INK.panel, stroke: INK.grid }));
-    body.push(svgEl.text(`${n.size.toLocaleString('en-US')} rows`, { x, y: y + 19, 'text-anchor': 'middle', 'font-size': 11, fill: INK.muted }));
+    body.push(
+      svgEl.text(`${n.size.toLocaleString('en-US')} rows`, { x, y: y + 19, 'text-anchor': 'middle', 'font-size': 11, fill: INK.muted }),
+    );
     return x;
   };
   place(root, 0);

@@ -25,7 +25,8 @@ function twoLines(text: string, max: number): string[] {
   const words = text.trim().split(/\s+/);
   let first = '';
   let used = 0;
-  while (used < words.length && (first ? first + ' ' + words[used] : words[used]).length <= max) first = first ? `${first} ${words[used++]}` : words[used++];
+  while (used < words.length && (first ? first + ' ' + words[used] : words[used]).length <= max)
+    first = first ? `${first} ${words[used++]}` : words[used++];
   if (used === 0) return [shortName(text.trim(), max)];
   const rest = words.slice(used).join(' ');
   return rest ? [first, shortName(rest, max)] : [first];
@@ -51,10 +52,20 @@ function draw(summary: SilhouetteSummary, names: (string | undefined)[], title: 
   const x = linearScale([lo, hi], [left, right]);
   const body: string[] = [svgEl.rect({ x: left, y: top, width: right - left, height: bottom - top, fill: INK.panel })];
   for (const t of niceTicks(lo, hi, 6)) {
-    body.push(svgEl.line({ x1: x(t), x2: x(t), y1: top, y2: bottom, stroke: t === 0 ? INK.axis : INK.grid, 'stroke-width': t === 0 ? 1.2 : 1 }));
+    body.push(
+      svgEl.line({ x1: x(t), x2: x(t), y1: top, y2: bottom, stroke: t === 0 ? INK.axis : INK.grid, 'stroke-width': t === 0 ? 1.2 : 1 }),
+    );
     body.push(svgEl.text(formatTick(t), { x: x(t), y: bottom + 15, 'text-anchor': 'middle', 'font-size': 11, fill: INK.muted }));
   }
-  body.push(svgEl.text('silhouette width: 1 well inside its segment · 0 between two · below 0 nearer another segment', { x: (left + right) / 2, y: bottom + 34, 'text-anchor': 'middle', 'font-size': 11.5, fill: INK.text }));
+  body.push(
+    svgEl.text('silhouette width: 1 well inside its segment · 0 between two · below 0 nearer another segment', {
+      x: (left + right) / 2,
+      y: bottom + 34,
+      'text-anchor': 'middle',
+      'font-size': 11.5,
+      fill: INK.text,
+    }),
+  );
   body.push(svgEl.text('mean width · rows below 0', { x: right + 14, y: top - 10, 'font-size': 10.5, fill: INK.muted }));
   summary.segments.forEach((seg, s) => {
     const y0 = top + s * stripH;
@@ -63,10 +74,23 @@ function draw(summary: SilhouetteSummary, names: (string | undefined)[], title: 
     if (s > 0) body.push(svgEl.line({ x1: 0, x2: width, y1: y0, y2: y0, stroke: INK.grid }));
     // Label: numbered swatch, name on up to two lines, row count.
     body.push(svgEl.rect({ x: 4, y: y0 + 9, width: 22, height: 18, rx: 4, fill: colour }));
-    body.push(svgEl.text(String(s + 1), { x: 15, y: y0 + 22, 'text-anchor': 'middle', 'font-size': 11.5, 'font-weight': 700, fill: textOn(colour) }));
+    body.push(
+      svgEl.text(String(s + 1), {
+        x: 15,
+        y: y0 + 22,
+        'text-anchor': 'middle',
+        'font-size': 11.5,
+        'font-weight': 700,
+        fill: textOn(colour),
+      }),
+    );
     const lines = names[s] ? twoLines(names[s]!, 24) : [`Segment ${s + 1}`];
-    lines.forEach((line, i) => body.push(svgEl.text(line, { x: 32, y: y0 + 22 + i * 14, 'font-size': 12, fill: INK.text, 'font-weight': i === 0 ? 600 : 400 })));
-    body.push(svgEl.text(`${seg.size.toLocaleString('en-US')} rows`, { x: 32, y: y0 + 22 + lines.length * 14, 'font-size': 11, fill: INK.muted }));
+    lines.forEach((line, i) =>
+      body.push(svgEl.text(line, { x: 32, y: y0 + 22 + i * 14, 'font-size': 12, fill: INK.text, 'font-weight': i === 0 ? 600 : 400 })),
+    );
+    body.push(
+      svgEl.text(`${seg.size.toLocaleString('en-US')} rows`, { x: 32, y: y0 + 22 + lines.length * 14, 'font-size': 11, fill: INK.muted }),
+    );
     // Histogram: columns rising from the strip's base line; each strip scaled to its own tallest bin.
     const peak = Math.max(1, ...seg.counts);
     const room = stripH - 26;
@@ -75,10 +99,29 @@ function draw(summary: SilhouetteSummary, names: (string | undefined)[], title: 
       const v0 = summary.binStart + b * SILHOUETTE_BIN;
       const h = Math.max(1.5, (c / peak) * room);
       const negative = v0 + SILHOUETTE_BIN <= 1e-12;
-      body.push(svgEl.rect({ x: x(v0) + 0.5, y: base - h, width: Math.max(1, x(v0 + SILHOUETTE_BIN) - x(v0) - 1), height: h, fill: colour, 'fill-opacity': negative ? 0.35 : 0.9 }));
+      body.push(
+        svgEl.rect({
+          x: x(v0) + 0.5,
+          y: base - h,
+          width: Math.max(1, x(v0 + SILHOUETTE_BIN) - x(v0) - 1),
+          height: h,
+          fill: colour,
+          'fill-opacity': negative ? 0.35 : 0.9,
+        }),
+      );
     });
     // Middle half as a bracket under the columns, the median as a tick.
-    body.push(svgEl.path(pathData([[x(seg.q1), base + 7], [x(seg.q1), base + 10], [x(seg.q3), base + 10], [x(seg.q3), base + 7]]), { fill: 'none', stroke: INK.text, 'stroke-width': 1.3 }));
+    body.push(
+      svgEl.path(
+        pathData([
+          [x(seg.q1), base + 7],
+          [x(seg.q1), base + 10],
+          [x(seg.q3), base + 10],
+          [x(seg.q3), base + 7],
+        ]),
+        { fill: 'none', stroke: INK.text, 'stroke-width': 1.3 },
+      ),
+    );
     body.push(svgEl.line({ x1: x(seg.median), x2: x(seg.median), y1: base + 4, y2: base + 13, stroke: INK.text, 'stroke-width': 2 }));
     // Figures beside the strip.
     body.push(svgEl.text(seg.mean.toFixed(2), { x: right + 14, y: y0 + 24, 'font-size': 15, 'font-weight': 650, fill: INK.text }));
@@ -91,7 +134,16 @@ function draw(summary: SilhouetteSummary, names: (string | undefined)[], title: 
       body.push(svgEl.text(lean, { x: right + 56, y: y0 + 39, 'font-size': 11, fill: INK.muted }));
       const lx = right + 56 + lean.length * 6 + 6;
       body.push(svgEl.rect({ x: lx, y: y0 + 28, width: 18, height: 15, rx: 3, fill: c2 }));
-      body.push(svgEl.text(String(to + 1), { x: lx + 9, y: y0 + 39.5, 'text-anchor': 'middle', 'font-size': 10.5, 'font-weight': 700, fill: textOn(c2) }));
+      body.push(
+        svgEl.text(String(to + 1), {
+          x: lx + 9,
+          y: y0 + 39.5,
+          'text-anchor': 'middle',
+          'font-size': 10.5,
+          'font-weight': 700,
+          fill: textOn(c2),
+        }),
+      );
     }
   });
   // The overall average: a slate line over every strip, labelled at the top.

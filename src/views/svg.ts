@@ -129,7 +129,9 @@ export function frame(spec: FrameSpec): Frame {
   });
   under.push(svgEl.line({ x1: left, x2: right, y1: bottom, y2: bottom, stroke: INK.axis }));
   under.push(svgEl.line({ x1: left, x2: left, y1: top, y2: bottom, stroke: INK.axis }));
-  under.push(svgEl.text(spec.x.title, { x: (left + right) / 2, y: spec.height - 12, 'text-anchor': 'middle', 'font-size': 12, fill: INK.text }));
+  under.push(
+    svgEl.text(spec.x.title, { x: (left + right) / 2, y: spec.height - 12, 'text-anchor': 'middle', 'font-size': 12, fill: INK.text }),
+  );
   under.push(
     svgEl.text(spec.y.title, {
       x: 14,

@@ -20,7 +20,10 @@ export interface VariableGroupLike {
 const pct = (v: number) => `${(100 * v).toFixed(0)}%`;
 const fixed = (v: number) => (Number.isFinite(v) ? v.toFixed(3) : '∞');
 
-export function variableGroupsView(groups: readonly VariableGroupLike[], options: { title?: string; notes?: readonly string[] } = {}): View {
+export function variableGroupsView(
+  groups: readonly VariableGroupLike[],
+  options: { title?: string; notes?: readonly string[] } = {},
+): View {
   const k = groups.length;
   const rows: string[] = [];
   for (const g of groups) {
@@ -40,7 +43,9 @@ export function variableGroupsView(groups: readonly VariableGroupLike[], options
   }
   const table =
     '<table class="ks-table"><thead><tr><th>Group</th><th style="text-align:left">Variable</th><th>shared with own group</th>' +
-    '<th>shared with the next group</th><th>1 − R² ratio</th></tr></thead><tbody>' + rows.join('') + '</tbody></table>';
+    '<th>shared with the next group</th><th>1 − R² ratio</th></tr></thead><tbody>' +
+    rows.join('') +
+    '</tbody></table>';
   return makeView({
     kind: 'variable-groups',
     title: options.title ?? `${k} groups of variables`,

@@ -46,7 +46,8 @@ export function correlationHeatmapView(grid: CorrelationGrid, options: Correlati
   const opts = checkOptions(options, ['assignment', 'similarity', 'title', 'notes'], where);
   const p = grid.names.length;
   if (grid.correlation.length !== p * p) refuse(where, `${grid.correlation.length} correlations for ${p} variables (${p * p} expected).`);
-  if (p > CORRELATION_GRID_MAX) refuse(where, `${p} variables are more than the ${CORRELATION_GRID_MAX} a grid can show; draw the dendrogram instead.`);
+  if (p > CORRELATION_GRID_MAX)
+    refuse(where, `${p} variables are more than the ${CORRELATION_GRID_MAX} a grid can show; draw the dendrogram instead.`);
   const order = grid.order;
   const cell = Math.max(12, Math.min(44, Math.floor(560 / p)));
   const printValues = cell >= 26;
@@ -65,7 +66,9 @@ export function correlationHeatmapView(grid: CorrelationGrid, options: Correlati
       const r = grid.correlation[order[a] * p + order[b]];
       const fill = cellColour(r);
       const tip = `${grid.names[order[a]]} – ${grid.names[order[b]]}: r = ${r.toFixed(3)}`;
-      const parts = [svgEl.rect({ x: left + b * cell, y: top + a * cell, width: cell, height: cell, fill, stroke: '#ffffff', 'stroke-width': 0.5 })];
+      const parts = [
+        svgEl.rect({ x: left + b * cell, y: top + a * cell, width: cell, height: cell, fill, stroke: '#ffffff', 'stroke-width': 0.5 }),
+      ];
       if (printValues) {
         parts.push(
           svgEl.text(r.toFixed(2).replace('-', '−'), {
@@ -85,21 +88,48 @@ export function correlationHeatmapView(grid: CorrelationGrid, options: Correlati
     body.push(svgEl.text(name, { x: left - 5, y: top + i * cell + cell / 2 + 3.5, 'text-anchor': 'end', 'font-size': 11, fill: INK.text }));
     const x = left + i * cell + cell / 2;
     const y = top + side + 6;
-    body.push(svgEl.text(name, { x, y, 'text-anchor': 'end', 'font-size': 11, fill: INK.text, transform: `rotate(-60 ${x.toFixed(1)} ${y.toFixed(1)})` }));
+    body.push(
+      svgEl.text(name, {
+        x,
+        y,
+        'text-anchor': 'end',
+        'font-size': 11,
+        fill: INK.text,
+        transform: `rotate(-60 ${x.toFixed(1)} ${y.toFixed(1)})`,
+      }),
+    );
   });
   // Groups of a cut: a coloured frame around each diagonal block, its number above it.
   let groups = 0;
   if (opts.assignment !== undefined) {
     const g = opts.assignment;
     if (g.length !== p) refuse(where, `${g.length} group numbers for ${p} variables.`);
-    for (let start = 0; start < p; ) {
+    for (let start = 0; start < p;) {
       let end = start;
       while (end + 1 < p && g[order[end + 1]] === g[order[start]]) end++;
       const s = g[order[start]];
       const colour = segmentColour(s);
       groups = Math.max(groups, s + 1);
-      body.push(svgEl.rect({ x: left + start * cell, y: top + start * cell, width: (end - start + 1) * cell, height: (end - start + 1) * cell, fill: 'none', stroke: colour, 'stroke-width': 3 }));
-      body.push(svgEl.text(String(s + 1), { x: left + start * cell + 2, y: top + start * cell - 4, 'font-size': 12, 'font-weight': 700, fill: colour }));
+      body.push(
+        svgEl.rect({
+          x: left + start * cell,
+          y: top + start * cell,
+          width: (end - start + 1) * cell,
+          height: (end - start + 1) * cell,
+          fill: 'none',
+          stroke: colour,
+          'stroke-width': 3,
+        }),
+      );
+      body.push(
+        svgEl.text(String(s + 1), {
+          x: left + start * cell + 2,
+          y: top + start * cell - 4,
+          'font-size': 12,
+          'font-weight': 700,
+          fill: colour,
+        }),
+      );
       start = end + 1;
     }
   }

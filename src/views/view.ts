@@ -58,15 +58,14 @@ const DRAW_SCRIPT = `(function(){var s=document.currentScript;var root=(s&&s.par
 
 export function makeView(parts: ViewParts): View {
   const id = `ks-${slug(parts.title)}-${++counter}`;
-  const notes = parts.notes?.length
-    ? `<ul class="ks-notes">${parts.notes.map((n) => `<li>${escapeHtml(n)}</li>`).join('')}</ul>`
-    : '';
+  const notes = parts.notes?.length ? `<ul class="ks-notes">${parts.notes.map((n) => `<li>${escapeHtml(n)}</li>`).join('')}</ul>` : '';
   const figure = (withLive: boolean): string => {
-    const live = parts.plot && withLive
-      ? `<div class="ks-live" hidden></div>` +
-        `<script type="application/json" class="ks-spec">${scriptJson({ ...parts.plot, config: PLOT_CONFIG })}</script>` +
-        `<script>${DRAW_SCRIPT.replace('__ID__', JSON.stringify(id))}</script>`
-      : '';
+    const live =
+      parts.plot && withLive
+        ? `<div class="ks-live" hidden></div>` +
+          `<script type="application/json" class="ks-spec">${scriptJson({ ...parts.plot, config: PLOT_CONFIG })}</script>` +
+          `<script>${DRAW_SCRIPT.replace('__ID__', JSON.stringify(id))}</script>`
+        : '';
     return (
       `<figure class="kinsort-view" id="${id}" data-view="${escapeHtml(parts.kind)}">` +
       `<style>${VIEW_CSS}</style>` +

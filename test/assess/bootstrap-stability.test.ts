@@ -49,7 +49,7 @@ describe('bootstrapStability', () => {
     }
   });
 
-  it('k-medoids from rows and from a dissimilarity: Ruspini\'s four groups (1970; pam(ruspini, 4) in R) are stable', () => {
+  it("k-medoids from rows and from a dissimilarity: Ruspini's four groups (1970; pam(ruspini, 4) in R) are stable", () => {
     const ruspini = fixture.pamRuspini;
     const fromRows = bootstrapStability(ruspini.rows, { k: 4, method: 'kmedoids', resamples: 15, seed: 4 });
     const fromDiss = bootstrapStability(dissimilarity(ruspini.rows), { k: 4, method: 'kmedoids', resamples: 15, seed: 4 });
@@ -59,7 +59,9 @@ describe('bootstrapStability', () => {
     expect(fromRows.reading).toEqual(['stable', 'stable', 'stable', 'stable']);
     // the original PAM segments are R's pam(ruspini, 4) clustering, up to numbering
     const counts = new Map<string, number>();
-    ruspini.clustering.forEach((c, i) => counts.set(`${c}-${fromRows.assignment[i]}`, (counts.get(`${c}-${fromRows.assignment[i]}`) ?? 0) + 1));
+    ruspini.clustering.forEach((c, i) =>
+      counts.set(`${c}-${fromRows.assignment[i]}`, (counts.get(`${c}-${fromRows.assignment[i]}`) ?? 0) + 1),
+    );
     expect(counts.size).toBe(4);
   });
 
@@ -69,7 +71,9 @@ describe('bootstrapStability', () => {
 
   it('refuses a missing k, a k that disagrees with the assignment, and unknown methods', () => {
     expect(() => bootstrapStability(blobs, {})).toThrow(/give k .* or an assignment/);
-    expect(() => bootstrapStability(blobs, { k: 3, assignment: blobs.map((_, i) => i % 4) })).toThrow(/k = 3 but the assignment given has 4/);
+    expect(() => bootstrapStability(blobs, { k: 3, assignment: blobs.map((_, i) => i % 4) })).toThrow(
+      /k = 3 but the assignment given has 4/,
+    );
     expect(() => bootstrapStability(blobs, { k: 3, method: 'kmean' } as never)).toThrow(/Did you mean "kmeans"/);
     expect(() => bootstrapStability(blobs, { k: 3, resample: 10 } as never)).toThrow(/Did you mean "resamples"/);
   });

@@ -12,11 +12,19 @@ describe('compareK', () => {
   it.each([
     ['blobs of our own making', fixture.gap.blobs],
     ['Ruspini (1970)', fixture.gap.ruspini],
-  ])('on %s every criterion and the recommendation agree with clusGap\'s k', (_name, ref) => {
+  ])("on %s every criterion and the recommendation agree with clusGap's k", (_name, ref) => {
     const r = compareK(ref.rows, { from: 2, to: 8, seed: 1 });
     expect(ref.recommended).toBe(4);
     expect(r.recommended).toBe(4);
-    expect(r.byCriterion).toEqual({ silhouette: 4, calinskiHarabasz: 4, daviesBouldin: 4, gap: 4, knee: 4, stability: 4, predictionStrength: 4 });
+    expect(r.byCriterion).toEqual({
+      silhouette: 4,
+      calinskiHarabasz: 4,
+      daviesBouldin: 4,
+      gap: 4,
+      knee: 4,
+      stability: 4,
+      predictionStrength: 4,
+    });
     expect(r.table.find((row) => row.k === 4)!.predictionStrength).toBeGreaterThan(0.95); // Tibshirani & Walther (2005): near 1 at the true k
     expect(r.headline).toBe("k = 4 recommended: every segment stable, the gap statistic's pick, where the within-SS also bends");
     expect(r.noStructure).toBe(false);
@@ -70,20 +78,34 @@ describe('compareK', () => {
     // the first level (2); the bend and stability also see the second (4). The rule follows the
     // gap among the stable k, and the reasons name both readings.
     const random = createRandom(11);
-    const centres = [[0, 0], [0, 2.5], [30, 0], [30, 2.5]];
+    const centres = [
+      [0, 0],
+      [0, 2.5],
+      [30, 0],
+      [30, 2.5],
+    ];
     const rows = Array.from({ length: 240 }, (_, i) => centres[i % 4].map((c) => c + 0.6 * random.normal()));
     const r = compareK(rows, { from: 2, to: 6, seed: 3 });
     expect(r.byCriterion).toMatchObject({ silhouette: 2, gap: 2, knee: 4, stability: 4 });
     expect(r.recommended).toBe(2);
     const said = r.reasons.join(' ');
-    expect(said).toMatch(/The criteria disagree: k = 2 by [^;]*the gap statistic \(how much tighter the segments are than in structureless reference data\)/);
-    expect(said).toMatch(/k = 4 by stability \(whether the segments come back when the rows are resampled\), prediction strength \([^)]*\), the within-SS bend/);
+    expect(said).toMatch(
+      /The criteria disagree: k = 2 by [^;]*the gap statistic \(how much tighter the segments are than in structureless reference data\)/,
+    );
+    expect(said).toMatch(
+      /k = 4 by stability \(whether the segments come back when the rows are resampled\), prediction strength \([^)]*\), the within-SS bend/,
+    );
   });
 
   it('on many rows: gap and stability on a seeded sample, restarts on a sample finished on all rows, same answer', () => {
     // 24,000 rows of four blobs of our own making (above the 20,000 where restarts move to a sample).
     const random = createRandom(5);
-    const centres = [[0, 0], [6, 0], [0, 6], [6, 6]];
+    const centres = [
+      [0, 0],
+      [6, 0],
+      [0, 6],
+      [6, 6],
+    ];
     const rows = Array.from({ length: 24_000 }, (_, i) => centres[i % 4].map((c) => c + random.normal()));
     const r = compareK(rows, { from: 2, to: 6, seed: 2, sampleRows: 1_000, silhouetteRows: 1_000, references: 10, resamples: 10 });
     expect(r.recommended).toBe(4);
@@ -99,7 +121,16 @@ describe('compareK', () => {
 
   it('on a handful of rows a resample too small for k is segmented into as many as it holds, not refused', () => {
     // Eight rows of our own making in four pairs: a resample often holds fewer than 7 distinct rows.
-    const rows = [[0, 0], [0, 1], [5, 5], [5, 6], [9, 0], [9, 1], [2, 8], [3, 8]];
+    const rows = [
+      [0, 0],
+      [0, 1],
+      [5, 5],
+      [5, 6],
+      [9, 0],
+      [9, 1],
+      [2, 8],
+      [3, 8],
+    ];
     const r = compareK(rows, { to: 7, seed: 4 });
     for (const row of r.table) expect(row.stabilityBySegment!.every((v) => v >= 0 && v <= 1)).toBe(true);
     expect(r.table.find((row) => row.k === 4)!.weakestStability).toBeGreaterThan(0.75);

@@ -34,14 +34,14 @@ describe.each(cases)('R cluster::clusGap, Tibs2001SEmax: $name', ({ ref }) => {
     for (let t = 0; t < 2; t++) expect(ours.table[t].logW).toBeCloseTo(ref.logW[t] + Math.log(2), 9);
   });
 
-  it('expected log W of the reference sets lies within clusGap\'s standard error of E.logW (+ log 2)', () => {
+  it("expected log W of the reference sets lies within clusGap's standard error of E.logW (+ log 2)", () => {
     for (let t = 0; t < 8; t++) {
       expect(ours.table[t].k).toBe(ref.k[t]);
       expect(Math.abs(ours.table[t].expectedLogW - (ref.expectedLogW[t] + Math.log(2)))).toBeLessThanOrEqual(ref.se[t]);
     }
   });
 
-  it('gaps lie within clusGap\'s standard errors wherever both found the same k-means fit of the data; SEs of the same size', () => {
+  it("gaps lie within clusGap's standard errors wherever both found the same k-means fit of the data; SEs of the same size", () => {
     let compared = 0;
     for (let t = 0; t < 8; t++) {
       const sameFit = Math.abs(ours.table[t].logW - (ref.logW[t] + Math.log(2))) < 1e-3;

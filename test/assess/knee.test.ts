@@ -20,18 +20,32 @@ describe('findKnee', () => {
     expect(findKnee(ks, rising, { direction: 'increasing', curve: 'concave' }).knee).toBe(3);
     const mirrored = elbow.slice().reverse(); // increasing, convex; bend at 8 − 3
     expect(findKnee(ks, mirrored, { direction: 'increasing', curve: 'convex' }).knee).toBe(5);
-    expect(findKnee(ks, mirrored.map((v) => -v), { direction: 'decreasing', curve: 'concave' }).knee).toBe(5);
+    expect(
+      findKnee(
+        ks,
+        mirrored.map((v) => -v),
+        { direction: 'decreasing', curve: 'concave' },
+      ).knee,
+    ).toBe(5);
   });
 
   it('on y = 1/x over [1, 10] the knee is the point farthest from the chord, x = √10 (analytic)', () => {
     const xs = Array.from({ length: 901 }, (_, i) => 1 + i / 100);
-    const r = findKnee(xs, xs.map((x) => 1 / x));
+    const r = findKnee(
+      xs,
+      xs.map((x) => 1 / x),
+    );
     expect(r.knee).not.toBeNull();
     expect(Math.abs(r.knee! - Math.sqrt(10))).toBeLessThanOrEqual(0.01);
   });
 
   it('a straight line, a too-short curve and a faint bend under a high sensitivity have no knee', () => {
-    expect(findKnee(ks, ks.map((k) => 10 - k)).knee).toBeNull();
+    expect(
+      findKnee(
+        ks,
+        ks.map((k) => 10 - k),
+      ).knee,
+    ).toBeNull();
     expect(findKnee([1, 2], [5, 1]).knee).toBeNull();
     expect(findKnee(ks, [10, 8.6, 7.3, 6, 4.7, 3.4, 2.1], { sensitivity: 1 }).knee).toBeNull();
     expect(findKnee(ks, elbow, { sensitivity: 10 }).knee).toBeNull();

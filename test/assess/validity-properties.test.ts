@@ -1,23 +1,23 @@
 // Properties of the validity measures (fast-check) and the errors for bad input.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import {
-  adjustedRandIndex,
-  calinskiHarabasz,
-  daviesBouldin,
-  normalizedMutualInfo,
-  silhouette,
-} from '../../src/assess';
+import { adjustedRandIndex, calinskiHarabasz, daviesBouldin, normalizedMutualInfo, silhouette } from '../../src/assess';
 import { fromCondensed } from '../../src/measure/condensed';
 
 const labelled = fc
   .integer({ min: 3, max: 40 })
   .chain((n) =>
     fc.record({
-      rows: fc.array(fc.array(fc.integer({ min: -10000, max: 10000 }).map((v) => v / 100), { minLength: 2, maxLength: 2 }), {
-        minLength: n,
-        maxLength: n,
-      }),
+      rows: fc.array(
+        fc.array(
+          fc.integer({ min: -10000, max: 10000 }).map((v) => v / 100),
+          { minLength: 2, maxLength: 2 },
+        ),
+        {
+          minLength: n,
+          maxLength: n,
+        },
+      ),
       labels: fc.array(fc.integer({ min: 0, max: 3 }), { minLength: n, maxLength: n }),
     }),
   )
@@ -54,7 +54,8 @@ describe('silhouette properties', () => {
       fc.property(labelled, ({ rows, labels }) => {
         const n = rows.length;
         const condensed: number[] = [];
-        for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) condensed.push(Math.hypot(rows[i][0] - rows[j][0], rows[i][1] - rows[j][1]));
+        for (let i = 0; i < n; i++)
+          for (let j = i + 1; j < n; j++) condensed.push(Math.hypot(rows[i][0] - rows[j][0], rows[i][1] - rows[j][1]));
         const fromRows = silhouette(rows, labels);
         const fromDiss = silhouette(fromCondensed(condensed), labels);
         for (let i = 0; i < n; i++) expect(fromDiss.values[i]).toBeCloseTo(fromRows.values[i], 9);

@@ -15,7 +15,26 @@ const train = join(dir, 'train.csv');
 
 function fit(...args: string[]): string {
   const out = join(dir, `def-${args.join('-').replace(/[^a-z0-9]+/gi, '_')}.json`);
-  const r = spawnSync(process.execPath, [join(root, 'bin/kinsort.js'), 'fit', train, '--id', 'rider', '--use', 'trips,peak,tenure,fare', '--keep', 'postcode', '--scale', 'robust', ...args, '--out', out], { encoding: 'utf8' });
+  const r = spawnSync(
+    process.execPath,
+    [
+      join(root, 'bin/kinsort.js'),
+      'fit',
+      train,
+      '--id',
+      'rider',
+      '--use',
+      'trips,peak,tenure,fare',
+      '--keep',
+      'postcode',
+      '--scale',
+      'robust',
+      ...args,
+      '--out',
+      out,
+    ],
+    { encoding: 'utf8' },
+  );
   expect(r.stderr).toBe('');
   expect(r.status).toBe(0);
   return readFileSync(out, 'utf8');
@@ -23,20 +42,27 @@ function fit(...args: string[]): string {
 
 beforeAll(() => {
   if (!existsSync(join(root, 'dist/cli/main.js'))) {
-    execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], { stdio: 'ignore' });
+    execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
+      stdio: 'ignore',
+    });
   }
   writeFileSync(train, toCsv(riders(120, 21)));
 }, 120_000);
 
 describe('kinsort fit writes what the fluent layer writes', () => {
-  const prepared = () => study(readCsvFile(train), { id: 'rider', use: ['trips', 'peak', 'tenure', 'fare'], keep: ['postcode'] }).prepare({ scale: 'robust' });
+  const prepared = () =>
+    study(readCsvFile(train), { id: 'rider', use: ['trips', 'peak', 'tenure', 'fare'], keep: ['postcode'] }).prepare({ scale: 'robust' });
 
   it('k-means', () => {
-    expect(fit('--method', 'kmeans', '--k', '3', '--seed', '5', '--restarts', '4')).toBe(prepared().kmeans({ k: 3, seed: 5, restarts: 4 }).definition().toJSON());
+    expect(fit('--method', 'kmeans', '--k', '3', '--seed', '5', '--restarts', '4')).toBe(
+      prepared().kmeans({ k: 3, seed: 5, restarts: 4 }).definition().toJSON(),
+    );
   });
 
   it('k-medoids', () => {
-    expect(fit('--method', 'kmedoids', '--k', '3', '--metric', 'manhattan')).toBe(prepared().kmedoids({ k: 3, metric: 'manhattan' }).definition().toJSON());
+    expect(fit('--method', 'kmedoids', '--k', '3', '--metric', 'manhattan')).toBe(
+      prepared().kmedoids({ k: 3, metric: 'manhattan' }).definition().toJSON(),
+    );
   });
 
   it('a hierarchy cut', () => {

@@ -23,13 +23,34 @@ function kinsort(...args: string[]) {
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
-const FIT = ['fit', train, '--id', 'rider', '--use', 'trips,peak,tenure,fare,autopay', '--keep', 'postcode', '--log', 'trips', '--method', 'kmeans', '--k', '4', '--seed', '9', '--restarts', '3'];
+const FIT = [
+  'fit',
+  train,
+  '--id',
+  'rider',
+  '--use',
+  'trips,peak,tenure,fare,autopay',
+  '--keep',
+  'postcode',
+  '--log',
+  'trips',
+  '--method',
+  'kmeans',
+  '--k',
+  '4',
+  '--seed',
+  '9',
+  '--restarts',
+  '3',
+];
 
 beforeAll(() => {
   // `npm test` builds dist/ first; running this folder alone builds it when absent.
   if (!existsSync(join(root, 'dist/cli/main.js'))) {
     try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], { stdio: 'ignore' });
+      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
+        stdio: 'ignore',
+      });
     } catch {
       /* type errors elsewhere still emit JavaScript */
     }
@@ -53,7 +74,12 @@ describe('kinsort fit', () => {
     expect(a.stdout).toMatch(/within-segment sum of squares: \d/);
     expect(a.stdout).toMatch(/average silhouette \(euclidean\): 0\.\d+/);
     // The stored centres are those of kmeans() on the same prepared table (functional core, in-process).
-    const prepared = prepareTable(readCsvFile(train), { id: 'rider', use: ['trips', 'peak', 'tenure', 'fare', 'autopay'], keep: ['postcode'], log: ['trips'] });
+    const prepared = prepareTable(readCsvFile(train), {
+      id: 'rider',
+      use: ['trips', 'peak', 'tenure', 'fare', 'autopay'],
+      keep: ['postcode'],
+      log: ['trips'],
+    });
     const fit = kmeans(prepared.matrix, { k: 4, seed: 9, restarts: 3 });
     const def = loadDefinition(join(dir, 'a.json')).definition;
     expect(def.segments.map((s) => s.center)).toEqual(fit.centers);
@@ -88,7 +114,12 @@ describe('kinsort assign and sql', () => {
   it('scores the training rows with the fitted segments', () => {
     const r = kinsort('assign', 'def.json', train, '--out', 'scored.csv');
     expect(r.status, r.stderr).toBe(0);
-    const prepared = prepareTable(readCsvFile(train), { id: 'rider', use: ['trips', 'peak', 'tenure', 'fare', 'autopay'], keep: ['postcode'], log: ['trips'] });
+    const prepared = prepareTable(readCsvFile(train), {
+      id: 'rider',
+      use: ['trips', 'peak', 'tenure', 'fare', 'autopay'],
+      keep: ['postcode'],
+      log: ['trips'],
+    });
     const fit = kmeans(prepared.matrix, { k: 4, seed: 9, restarts: 3 });
     const lines = readFileSync(join(dir, 'scored.csv'), 'utf8').trim().split('\n');
     expect(lines[0]).toBe('rider,segment,distance,far');

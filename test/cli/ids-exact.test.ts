@@ -20,7 +20,9 @@ function kinsort(...args: string[]) {
 beforeAll(() => {
   if (!existsSync(join(root, 'dist/cli/main.js'))) {
     try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], { stdio: 'ignore' });
+      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
+        stdio: 'ignore',
+      });
     } catch {
       /* type errors elsewhere still emit JavaScript */
     }

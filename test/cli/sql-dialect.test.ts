@@ -20,13 +20,30 @@ function kinsort(...args: string[]) {
 beforeAll(() => {
   if (!existsSync(join(root, 'dist/cli/main.js'))) {
     try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], { stdio: 'ignore' });
+      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
+        stdio: 'ignore',
+      });
     } catch {
       /* type errors elsewhere still emit JavaScript */
     }
   }
   writeFileSync(join(dir, 'train.csv'), toCsv(riders(80, 21)));
-  const fit = kinsort('fit', 'train.csv', '--id', 'rider', '--use', 'trips,peak,fare', '--method', 'kmeans', '--k', '3', '--seed', '2', '--out', 'def.json');
+  const fit = kinsort(
+    'fit',
+    'train.csv',
+    '--id',
+    'rider',
+    '--use',
+    'trips,peak,fare',
+    '--method',
+    'kmeans',
+    '--k',
+    '3',
+    '--seed',
+    '2',
+    '--out',
+    'def.json',
+  );
   expect(fit.status, fit.stderr).toBe(0);
 }, 60_000);
 

@@ -53,7 +53,13 @@ describe('npm run demo', () => {
     for (const kind of ['k-evidence', 'projection', 'silhouette', 'profile-cards', 'dendrogram', 'drift']) {
       expect(page, kind).toContain(`data-view="${kind}"`);
     }
-    for (const title of ['Weekday peak commuters', 'Students topping up', 'Long-distance regulars', 'Weekend and off-peak riders', 'Occasional newcomers']) {
+    for (const title of [
+      'Weekday peak commuters',
+      'Students topping up',
+      'Long-distance regulars',
+      'Weekend and off-peak riders',
+      'Occasional newcomers',
+    ]) {
       expect(page).toContain(title);
     }
     expect(page).toContain('class="ks-wu-figures"'); // the write-up's figures table
@@ -66,7 +72,10 @@ describe('npm run demo', () => {
     // The caution once: the write-up's, not the cards' own line as well.
     expect(page.match(/protected attributes/gi)).toHaveLength(1);
     // Station names from demo-data/stations.csv label the dendrogram.
-    const station = fs.readFileSync(path.join(root, 'demo-data', 'stations.csv'), 'utf8').split('\n')[1].split(',')[0];
+    const station = fs
+      .readFileSync(path.join(root, 'demo-data', 'stations.csv'), 'utf8')
+      .split('\n')[1]
+      .split(',')[0];
     expect(page).toContain(station);
   });
 

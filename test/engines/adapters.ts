@@ -29,8 +29,11 @@ export async function duckdbTestEngine(): Promise<TestEngine> {
   return {
     ...engine,
     async loadText(table, columns, rows) {
-      await engine.query(`CREATE OR REPLACE TABLE ${d.quoteIdentifier(table)} (${columns.map((c) => `${d.quoteIdentifier(c)} VARCHAR`).join(', ')})`);
-      for (let i = 0; i < rows.length; i += 500) await engine.query(`INSERT INTO ${d.quoteIdentifier(table)} VALUES ${valuesList(engine, rows.slice(i, i + 500))}`);
+      await engine.query(
+        `CREATE OR REPLACE TABLE ${d.quoteIdentifier(table)} (${columns.map((c) => `${d.quoteIdentifier(c)} VARCHAR`).join(', ')})`,
+      );
+      for (let i = 0; i < rows.length; i += 500)
+        await engine.query(`INSERT INTO ${d.quoteIdentifier(table)} VALUES ${valuesList(engine, rows.slice(i, i + 500))}`);
     },
     async close() {
       connection.closeSync();
@@ -49,7 +52,8 @@ export async function postgresTestEngine(server: PostgresServer): Promise<TestEn
     async loadText(table, columns, rows) {
       await engine.query(`DROP TABLE IF EXISTS ${d.quoteIdentifier(table)}`);
       await engine.query(`CREATE TABLE ${d.quoteIdentifier(table)} (${columns.map((c) => `${d.quoteIdentifier(c)} TEXT`).join(', ')})`);
-      for (let i = 0; i < rows.length; i += 500) await engine.query(`INSERT INTO ${d.quoteIdentifier(table)} VALUES ${valuesList(engine, rows.slice(i, i + 500))}`);
+      for (let i = 0; i < rows.length; i += 500)
+        await engine.query(`INSERT INTO ${d.quoteIdentifier(table)} VALUES ${valuesList(engine, rows.slice(i, i + 500))}`);
     },
     close: () => client.end(),
   };
@@ -84,16 +88,23 @@ export function clickhouseTestEngine(server: ClickHouseServer): TestEngine {
     dialect: 'clickhouse',
     async query(sql) {
       const text = await first(`${sql.trimEnd()}\nFORMAT JSONEachRow`);
-      return text.split('\n').filter((l) => l !== '').map((l) => JSON.parse(l) as Record<string, unknown>);
+      return text
+        .split('\n')
+        .filter((l) => l !== '')
+        .map((l) => JSON.parse(l) as Record<string, unknown>);
     },
     async loadText(table, columns, rows) {
       const local = d.quoteIdentifier(`${table}_local`);
       for (const shard of [first, second]) {
         await shard(`DROP TABLE IF EXISTS ${d.quoteIdentifier(table)}`);
         await shard(`DROP TABLE IF EXISTS ${local}`);
-        await shard(`CREATE TABLE ${local} (${columns.map((c) => `${d.quoteIdentifier(c)} Nullable(String)`).join(', ')}) ENGINE = MergeTree() ORDER BY tuple()`);
+        await shard(
+          `CREATE TABLE ${local} (${columns.map((c) => `${d.quoteIdentifier(c)} Nullable(String)`).join(', ')}) ENGINE = MergeTree() ORDER BY tuple()`,
+        );
       }
-      await first(`CREATE TABLE ${d.quoteIdentifier(table)} AS ${local} ENGINE = Distributed(${server.cluster}, default, ${local.replace(/`/g, '')})`);
+      await first(
+        `CREATE TABLE ${d.quoteIdentifier(table)} AS ${local} ENGINE = Distributed(${server.cluster}, default, ${local.replace(/`/g, '')})`,
+      );
       const halves = [rows.filter((_, i) => i % 2 === 0), rows.filter((_, i) => i % 2 === 1)];
       const engine = { dialect: 'clickhouse' as const, query: async () => [] };
       if (halves[0].length > 0) await first(`INSERT INTO ${local} VALUES ${valuesList(engine, halves[0])}`);

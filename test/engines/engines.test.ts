@@ -55,7 +55,13 @@ function training(n: number): (string | null)[][] {
   const trips = (i: number) => [`${(i * 7) % 23}`, ` ${(i % 5) + 0.25} `, `${i}e-1`, '1e-17', '5e-324', '-0', `${i * 1000}.5`][i % 7];
   const spend = (i: number) => [`${(i * 13) % 40}.5`, '3e-17', '0', `  ${i}`, '12345.678', '1E2'][i % 6];
   const autopay = (i: number) => ['true', 'FALSE', 'True', 'false'][i % 4];
-  return Array.from({ length: n }, (_, i) => [`r-${String(i).padStart(3, '0')}`, trips(i), spend(i), zones[(i * 5) % zones.length], autopay(i)]);
+  return Array.from({ length: n }, (_, i) => [
+    `r-${String(i).padStart(3, '0')}`,
+    trips(i),
+    spend(i),
+    zones[(i * 5) % zones.length],
+    autopay(i),
+  ]);
 }
 
 /** New rows with every awkward text the rule must treat as assign does. */
@@ -98,7 +104,20 @@ describe(`scoring SQL on ${['DuckDB', 'SQLite', pg && 'PostgreSQL 15', ch && 'Cl
     await expectSameEverywhere(handle, engines, 'riders_train', COLUMNS, training(60));
     await expectSameEverywhere(handle, engines, 'riders_new', COLUMNS, AWKWARD);
     const refused = handle.assign(asRecords(COLUMNS, AWKWARD)).report.refused.map((r) => r.id);
-    expect(refused).toEqual(expect.arrayContaining(['n-tab', 'n-nbsp', 'n-plus', 'n-zero-code', 'n-inf', 'n-overflow', 'n-beyond-max', 'n-huge-exponent', 'n-log-negative', 'n-binary-other']));
+    expect(refused).toEqual(
+      expect.arrayContaining([
+        'n-tab',
+        'n-nbsp',
+        'n-plus',
+        'n-zero-code',
+        'n-inf',
+        'n-overflow',
+        'n-beyond-max',
+        'n-huge-exponent',
+        'n-log-negative',
+        'n-binary-other',
+      ]),
+    );
   });
 
   it('median fills and robust scaling; a decimal comma is text unless the definition stores that mark', async () => {
@@ -114,7 +133,11 @@ describe('other metrics, ordinal levels and a stored decimal comma, on every eng
     const train = training(40).map((r, i) => [...r, bands[i % 3]]);
     const fresh = AWKWARD.map((r, i) => [...r, bands[i % 4]]); // ' mid' is not a level: refused
     for (const metric of ['manhattan', 'sqeuclidean'] as const) {
-      const prepared = prepareTable(asRecords(columns, train), { ...OPTIONS, use: [...OPTIONS.use!, 'band'], ordinalLevels: { band: ['low', 'mid', 'high'] } });
+      const prepared = prepareTable(asRecords(columns, train), {
+        ...OPTIONS,
+        use: [...OPTIONS.use!, 'band'],
+        ordinalLevels: { band: ['low', 'mid', 'high'] },
+      });
       const result = kmedoids(prepared.matrix, { k: 3, metric });
       const handle = loadDefinition(
         buildDefinition({
@@ -150,12 +173,75 @@ describe('other metrics, ordinal levels and a stored decimal comma, on every eng
 
 const MARKER_LIKE = ['NA', ' NA', 'NA ', 'na', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'NAN', 'null', 'NULL', 'Null', '', '   ', null];
 const NUMBER_LIKE = [
-  '0', '-0', '1', '007', '01', '+5', '1.', '.5', '1e3', '1E-5', '2e+2', '-1.25e-3', '1e-17', '3e-17', '5e-324',
-  '2.4703282292062328e-324', '1e-400', '1e308', '1.7976931348623157e308', '1.7976931348623159e308', '1e400',
-  'Infinity', '-Infinity', 'inf', '0x10', '1,5', '1 000', '١٢', '12345678901234567890', '0.30000000000000004',
-  '\t2', '2\t', '\u00a02', '2\u00a0', '\u20072', ' 2 ', '  -3.5  ', '2\n', '-', 'e5', '1e', '1e5e5', '0e99999',
+  '0',
+  '-0',
+  '1',
+  '007',
+  '01',
+  '+5',
+  '1.',
+  '.5',
+  '1e3',
+  '1E-5',
+  '2e+2',
+  '-1.25e-3',
+  '1e-17',
+  '3e-17',
+  '5e-324',
+  '2.4703282292062328e-324',
+  '1e-400',
+  '1e308',
+  '1.7976931348623157e308',
+  '1.7976931348623159e308',
+  '1e400',
+  'Infinity',
+  '-Infinity',
+  'inf',
+  '0x10',
+  '1,5',
+  '1 000',
+  '١٢',
+  '12345678901234567890',
+  '0.30000000000000004',
+  '\t2',
+  '2\t',
+  '\u00a02',
+  '2\u00a0',
+  '\u20072',
+  ' 2 ',
+  '  -3.5  ',
+  '2\n',
+  '-',
+  'e5',
+  '1e',
+  '1e5e5',
+  '0e99999',
 ];
-const LEVEL_LIKE = ['01', '1', '1.0', ' 1', '1 ', '02134', '2134', 'a', 'A', 'é', 'e\u0301', 'Zürich', '東京', '🚇', 'a\u00a0', 'x\ty', "o'brien", 'back\\slash', 'q"uote', '--', '/*', 'true', 'TRUE'];
+const LEVEL_LIKE = [
+  '01',
+  '1',
+  '1.0',
+  ' 1',
+  '1 ',
+  '02134',
+  '2134',
+  'a',
+  'A',
+  'é',
+  'e\u0301',
+  'Zürich',
+  '東京',
+  '🚇',
+  'a\u00a0',
+  'x\ty',
+  "o'brien",
+  'back\\slash',
+  'q"uote',
+  '--',
+  '/*',
+  'true',
+  'TRUE',
+];
 const ID_SUFFIX = ['', ' ', '\t', 'é', '東京', "'", '"', '\\', '🚇', ' x ', '\u00a0', 'NA'];
 
 const numberText = fc.oneof(
@@ -165,7 +251,10 @@ const numberText = fc.oneof(
   fc.constantFrom('1e-17', '5e-324', '-0', '0.5e2', '1E3', '1e15', '2.5'),
 );
 const padded = (g: fc.Arbitrary<string>) => fc.tuple(g, fc.nat(2), fc.nat(2)).map(([s, a, b]) => ' '.repeat(a) + s + ' '.repeat(b));
-const nonNegative = fc.oneof(fc.double({ min: 0, max: 1e6, noNaN: true }).map((x) => String(x)), fc.constantFrom('0', '1e-17', '3e-17', '5e-324', '1e300'));
+const nonNegative = fc.oneof(
+  fc.double({ min: 0, max: 1e6, noNaN: true }).map((x) => String(x)),
+  fc.constantFrom('0', '1e-17', '3e-17', '5e-324', '1e300'),
+);
 
 interface RandomCase {
   train: (string | null)[][];
@@ -176,12 +265,19 @@ interface RandomCase {
   k: number;
 }
 
-function tableOf(size: fc.Arbitrary<number>, cell: (col: number, pair: [string, string]) => fc.Arbitrary<string | null>, prefix: string, pair: [string, string]) {
+function tableOf(
+  size: fc.Arbitrary<number>,
+  cell: (col: number, pair: [string, string]) => fc.Arbitrary<string | null>,
+  prefix: string,
+  pair: [string, string],
+) {
   return size.chain((n) =>
-    fc.tuple(
-      fc.array(fc.constantFrom(...ID_SUFFIX), { minLength: n, maxLength: n }),
-      fc.array(fc.tuple(cell(1, pair), cell(2, pair), cell(3, pair), cell(4, pair)), { minLength: n, maxLength: n }),
-    ).map(([suffixes, rows]) => rows.map((r, i) => [`${prefix}${i}${suffixes[i]}`, ...r])),
+    fc
+      .tuple(
+        fc.array(fc.constantFrom(...ID_SUFFIX), { minLength: n, maxLength: n }),
+        fc.array(fc.tuple(cell(1, pair), cell(2, pair), cell(3, pair), cell(4, pair)), { minLength: n, maxLength: n }),
+      )
+      .map(([suffixes, rows]) => rows.map((r, i) => [`${prefix}${i}${suffixes[i]}`, ...r])),
   );
 }
 
@@ -195,9 +291,19 @@ const randomCase: fc.Arbitrary<RandomCase> = fc
   .chain((base) => {
     const pair = base.binaryPair;
     const trainCell = (col: number): fc.Arbitrary<string | null> => {
-      const missing = fc.constantFrom(...MARKER_LIKE.filter((m) => m === null || m.trim() === '' || ['NA', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'null', 'NULL'].includes(m.trim())));
+      const missing = fc.constantFrom(
+        ...MARKER_LIKE.filter(
+          (m) => m === null || m.trim() === '' || ['NA', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'null', 'NULL'].includes(m.trim()),
+        ),
+      );
       const present =
-        col === 1 ? padded(numberText) : col === 2 ? padded(nonNegative) : col === 3 ? fc.constantFrom(...LEVEL_LIKE) : fc.constantFrom(...(pair[0] === 'true' ? ['true', 'TRUE', 'False', 'FALSE', 'false'] : pair));
+        col === 1
+          ? padded(numberText)
+          : col === 2
+            ? padded(nonNegative)
+            : col === 3
+              ? fc.constantFrom(...LEVEL_LIKE)
+              : fc.constantFrom(...(pair[0] === 'true' ? ['true', 'TRUE', 'False', 'FALSE', 'false'] : pair));
       return fc.oneof({ weight: 9, arbitrary: present }, { weight: 1, arbitrary: missing });
     };
     const anything = fc.constantFrom(...MARKER_LIKE, ...NUMBER_LIKE, ...LEVEL_LIKE, ' true', 'True ', 'yes', 'YES', 'no');
@@ -255,7 +361,10 @@ describe('hostile text from a definition or a table name never runs as SQL (issu
 
   it('quoted column names and level texts with quotes, backslashes and comment marks match exactly', async () => {
     const handle = fit(HOSTILE_COLUMNS, hostileRows(24, 't'), hostileOptions, 2);
-    await expectSameEverywhere(handle, engines, 'hostile', HOSTILE_COLUMNS, [...hostileRows(24, 'n'), ['unseen', '3', "x\\' OR 1=1 -- ", 'no']]);
+    await expectSameEverywhere(handle, engines, 'hostile', HOSTILE_COLUMNS, [
+      ...hostileRows(24, 'n'),
+      ['unseen', '3', "x\\' OR 1=1 -- ", 'no'],
+    ]);
   });
 
   it('a writtenBy with a newline and a statement stays a comment; a hostile table name is one identifier', async () => {
@@ -266,7 +375,10 @@ describe('hostile text from a definition or a table name never runs as SQL (issu
       const rows = await engine.query(definitionToSql(tampered, { table: 'riders', engine }));
       expect(rows, engine.dialect).toHaveLength(30);
       await expect(engine.query('SELECT * FROM pwned'), engine.dialect).rejects.toThrow();
-      await expect(engine.query(definitionToSql(built, { table: 'main.riders) SELECT 1; DROP TABLE riders; --', engine })), engine.dialect).rejects.toThrow();
+      await expect(
+        engine.query(definitionToSql(built, { table: 'main.riders) SELECT 1; DROP TABLE riders; --', engine })),
+        engine.dialect,
+      ).rejects.toThrow();
       const still = await engine.query('SELECT count(*) AS n FROM riders');
       expect(Number(still[0].n), engine.dialect).toBe(30);
     }

@@ -37,8 +37,7 @@ function sourceFiles(folder: string): string[] {
   return found;
 }
 
-const IMPORT_PATTERN =
-  /(?:^|\n)\s*(?:import|export)\s[^;]*?\sfrom\s+'(\.[^']+)'|(?:import|require)\(\s*'(\.[^']+)'\s*\)/g;
+const IMPORT_PATTERN = /(?:^|\n)\s*(?:import|export)\s[^;]*?\sfrom\s+'(\.[^']+)'|(?:import|require)\(\s*'(\.[^']+)'\s*\)/g;
 
 /** Relative imports of a file; `valueOnly` leaves out `import type` / `export type` (erased at run time). */
 function importsOf(file: string, valueOnly = false): string[] {

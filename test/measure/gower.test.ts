@@ -119,10 +119,30 @@ describe('Gower refusals', () => {
   });
 
   it('on plain numbers, a NaN is a missing value that gower skips, while Infinity is refused', () => {
-    const d = dissimilarity([[0, 10], [1, NaN], [2, 20]], { metric: 'gower' });
+    const d = dissimilarity(
+      [
+        [0, 10],
+        [1, NaN],
+        [2, 20],
+      ],
+      { metric: 'gower' },
+    );
     expect(d.get(0, 1)).toBeCloseTo(1 / 2, 15); // only the first column is present in both rows
     expect(d.get(0, 2)).toBeCloseTo((2 / 2 + 10 / 10) / 2, 15);
-    expect(() => dissimilarity([[0, 1], [Infinity, 2]], { metric: 'gower' })).toThrow(/row 2, column "column 1" \(numeric\) is Infinity/);
-    expect(() => dissimilarity([[0, 1], [NaN, 2]])).toThrow(/row 2, column 1 is NaN/);
+    expect(() =>
+      dissimilarity(
+        [
+          [0, 1],
+          [Infinity, 2],
+        ],
+        { metric: 'gower' },
+      ),
+    ).toThrow(/row 2, column "column 1" \(numeric\) is Infinity/);
+    expect(() =>
+      dissimilarity([
+        [0, 1],
+        [NaN, 2],
+      ]),
+    ).toThrow(/row 2, column 1 is NaN/);
   });
 });

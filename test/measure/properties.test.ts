@@ -6,10 +6,16 @@ import type { MetricName } from '../../src/measure';
 // Rows of small integers-and-fractions so duplicates and ties occur often.
 const rowsArb = (minRows: number) =>
   fc.integer({ min: 1, max: 5 }).chain((d) =>
-    fc.array(fc.array(fc.integer({ min: -20, max: 20 }).map((v) => v / 4), { minLength: d, maxLength: d }), {
-      minLength: minRows,
-      maxLength: 14,
-    }),
+    fc.array(
+      fc.array(
+        fc.integer({ min: -20, max: 20 }).map((v) => v / 4),
+        { minLength: d, maxLength: d },
+      ),
+      {
+        minLength: minRows,
+        maxLength: 14,
+      },
+    ),
   );
 
 const exponentOf = (metric: string) => (metric === 'minkowski' ? 3 : undefined);

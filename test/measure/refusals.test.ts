@@ -29,14 +29,32 @@ describe('dissimilarity refusals', () => {
   it('cosine on an all-zero row and correlation on a constant row name the row', () => {
     const m = { rows: 2, cols: 2, data: Float64Array.from([1, 2, 0, 0]), rowLabels: ['r1', 'r2'] };
     expect(() => dissimilarity(m, { metric: 'cosine' })).toThrow(/row 2 \(id "r2"\) is all zeros/);
-    expect(() => dissimilarity([[1, 2], [5, 5]], { metric: 'correlation' })).toThrow(/row 2 has the same value in every column/);
+    expect(() =>
+      dissimilarity(
+        [
+          [1, 2],
+          [5, 5],
+        ],
+        { metric: 'correlation' },
+      ),
+    ).toThrow(/row 2 has the same value in every column/);
     expect(() => crossDistances([[1, 2]], [[0, 0]], 'cosine')).toThrow(/row 1 is all zeros/);
   });
 
   it('NaN, ragged rows and text are refused naming row and column', () => {
-    expect(() => dissimilarity([[1, 2], [NaN, 1]])).toThrow(/row 2, column 1 is NaN/);
+    expect(() =>
+      dissimilarity([
+        [1, 2],
+        [NaN, 1],
+      ]),
+    ).toThrow(/row 2, column 1 is NaN/);
     expect(() => dissimilarity([[1, 2], [1]])).toThrow(/row 2 has 1 values but row 1 has 2/);
-    expect(() => dissimilarity([[1, 2], [1, 'x' as never]])).toThrow(/row 2, column 2 holds "x"/);
+    expect(() =>
+      dissimilarity([
+        [1, 2],
+        [1, 'x' as never],
+      ]),
+    ).toThrow(/row 2, column 2 holds "x"/);
     expect(() => dissimilarity([])).toThrow(/empty/);
   });
 
@@ -59,6 +77,16 @@ describe('dissimilarity refusals', () => {
 
   it('crossDistances checks that both sides have the same columns', () => {
     expect(() => crossDistances([[1, 2]], [[1, 2, 3]])).toThrow(/2 columns but the second rows have 3/);
-    expect(Array.from(crossDistances([[0, 0]], [[3, 4], [0, 1]]))).toEqual([5, 1]);
+    expect(
+      Array.from(
+        crossDistances(
+          [[0, 0]],
+          [
+            [3, 4],
+            [0, 1],
+          ],
+        ),
+      ),
+    ).toEqual([5, 1]);
   });
 });

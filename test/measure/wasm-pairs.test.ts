@@ -26,7 +26,13 @@ describe('euclidean pairs as WebAssembly', () => {
 
   // Odd and even row counts (the last row pairs with itself; tails of 1–3 rows after the groups
   // of four), one column, odd column counts, repeated rows (exact 0), both metrics.
-  const shapes: [number, number][] = [[1000, 1], [1001, 2], [1002, 7], [1003, 20], [1203, 3]];
+  const shapes: [number, number][] = [
+    [1000, 1],
+    [1001, 2],
+    [1002, 7],
+    [1003, 20],
+    [1203, 3],
+  ];
   for (const [n, d] of shapes) {
     it(`gives bit for bit the JavaScript loop's numbers (${n} × ${d})`, () => {
       const data = rows(n, d, n * 31 + d, d < 4);

@@ -12,7 +12,14 @@ import { project } from '../../src/methods/project';
 import { createRandom } from '../../src/random';
 import { allViewsList } from './views-list';
 
-export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
+export const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--no-first-run',
+];
 
 let browser: Browser;
 let file: string;
@@ -42,7 +49,9 @@ describe('one page holding every view (hostile strings in ids, names and levels)
       pwned: (window as unknown as { __pwned?: number }).__pwned,
       images: document.querySelectorAll('img').length,
       plots: document.querySelectorAll('.js-plotly-plot').length,
-      hiddenStills: Array.from(document.querySelectorAll('[data-drawn="plotly"] > .ks-static')).filter((e) => (e as HTMLElement).offsetHeight === 0).length,
+      hiddenStills: Array.from(document.querySelectorAll('[data-drawn="plotly"] > .ks-static')).filter(
+        (e) => (e as HTMLElement).offsetHeight === 0,
+      ).length,
     }));
     expect(state.pwned).toBeUndefined();
     expect(state.images).toBe(0);
@@ -58,7 +67,8 @@ describe('one page holding every view (hostile strings in ids, names and levels)
     const page = await context.newPage();
     await page.goto('file://' + file);
     const state = await page.evaluate(() => ({
-      svgs: Array.from(document.querySelectorAll('.ks-static > svg')).filter((e) => (e as SVGElement).getBoundingClientRect().height > 100).length,
+      svgs: Array.from(document.querySelectorAll('.ks-static > svg')).filter((e) => (e as SVGElement).getBoundingClientRect().height > 100)
+        .length,
       cards: document.querySelectorAll('.ks-static .ks-card').length,
       liveShown: Array.from(document.querySelectorAll('.ks-live')).filter((e) => (e as HTMLElement).offsetHeight > 0).length,
       title: document.title,

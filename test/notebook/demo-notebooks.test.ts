@@ -20,12 +20,26 @@ const out = fs.mkdtempSync(path.join(os.tmpdir(), 'kinsort-demo-notebooks-'));
 // The kernel spec goes to a private prefix, so this file and kernel.test.ts can install at the same time.
 const jupyterPath = path.join(out, 'share', 'jupyter');
 const env = { ...process.env, PATH: `${path.join(repo, 'node_modules/.bin')}:${process.env.PATH}`, JUPYTER_PATH: jupyterPath };
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
+const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--no-first-run',
+];
 const shots = process.env.KINSORT_SCREENSHOTS ? path.resolve(repo, process.env.KINSORT_SCREENSHOTS) : path.join(out, 'screenshots');
 
 const NAMES = ['01-pass-holder-segments', '02-station-hierarchy', '03-scoring-next-month'] as const;
 type Name = (typeof NAMES)[number];
-type Output = { output_type: string; name?: string; data?: Record<string, string | string[]>; text?: string | string[]; ename?: string; evalue?: string };
+type Output = {
+  output_type: string;
+  name?: string;
+  data?: Record<string, string | string[]>;
+  text?: string | string[];
+  ename?: string;
+  evalue?: string;
+};
 type Cell = { cell_type: string; source: string | string[]; outputs?: Output[] };
 
 const executed = new Map<Name, Cell[]>();
@@ -40,7 +54,11 @@ async function execute(name: Name): Promise<void> {
     maxBuffer: 64 << 20,
   });
   executed.set(name, JSON.parse(fs.readFileSync(path.join(out, `${name}.ipynb`), 'utf8')).cells);
-  await run('/usr/bin/jupyter', ['nbconvert', '--to', 'html', path.join(out, `${name}.ipynb`)], { env, timeout: 120_000, maxBuffer: 64 << 20 });
+  await run('/usr/bin/jupyter', ['nbconvert', '--to', 'html', path.join(out, `${name}.ipynb`)], {
+    env,
+    timeout: 120_000,
+    maxBuffer: 64 << 20,
+  });
 }
 
 /** Notebook 03 from a copy of the layout with no notebooks/out/: the fit-in-place path. */
@@ -63,9 +81,16 @@ beforeAll(async () => {
   if (!fs.existsSync(path.join(repo, 'dist/index.js'))) {
     execFileSync('npm', ['run', 'build'], { cwd: repo, env, stdio: 'inherit' });
   }
-  execFileSync(path.join(repo, 'node_modules/.bin/tslab'), ['install', '--python=/usr/bin/python3', `--prefix=${out}`], { cwd: repo, env, stdio: 'ignore' });
+  execFileSync(path.join(repo, 'node_modules/.bin/tslab'), ['install', '--python=/usr/bin/python3', `--prefix=${out}`], {
+    cwd: repo,
+    env,
+    stdio: 'ignore',
+  });
   // 01 and 02 side by side (two cores); 03 after 01, so it scores with the definition 01 saved.
-  await Promise.all([execute('01-pass-holder-segments').then(() => execute('03-scoring-next-month')), execute('02-station-hierarchy').then(executeThreeAlone)]);
+  await Promise.all([
+    execute('01-pass-holder-segments').then(() => execute('03-scoring-next-month')),
+    execute('02-station-hierarchy').then(executeThreeAlone),
+  ]);
 }, 480_000);
 
 afterAll(async () => {
@@ -73,10 +98,14 @@ afterAll(async () => {
   fs.rmSync(out, { recursive: true, force: true });
 });
 
-const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : v ?? '');
+const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : (v ?? ''));
 const outputsOf = (name: Name): Output[] => executed.get(name)!.flatMap((c) => c.outputs ?? []);
 const html = (o: Output): string => text(o.data?.['text/html']);
-const streams = (name: Name): string => outputsOf(name).filter((o) => o.output_type === 'stream').map((o) => text(o.text)).join('');
+const streams = (name: Name): string =>
+  outputsOf(name)
+    .filter((o) => o.output_type === 'stream')
+    .map((o) => text(o.text))
+    .join('');
 
 describe('the demo notebooks in the tslab kernel', () => {
   it.each(NAMES)('%s: imports kinsort as a user would, is committed with outputs cleared', (name) => {
@@ -90,22 +119,41 @@ describe('the demo notebooks in the tslab kernel', () => {
 
   it.each(NAMES)('%s: runs top to bottom with no error output', (name) => {
     const bad = outputsOf(name).filter(
-      (o) => o.output_type === 'error' || (o.output_type === 'stream' && (o.name === 'stderr' || /\bError\b|unexpected error/.test(text(o.text)))),
+      (o) =>
+        o.output_type === 'error' ||
+        (o.output_type === 'stream' && (o.name === 'stderr' || /\bError\b|unexpected error/.test(text(o.text)))),
     );
     expect(bad.map((o) => `${o.ename ?? o.name}: ${o.evalue ?? text(o.text).slice(0, 300)}`)).toEqual([]);
   });
 
   it('01: shows the variable tree, the k evidence, projection, silhouette, cards and rules inline, the bundle once, and saves the definition', () => {
     const kinds = outputsOf('01-pass-holder-segments').flatMap((o) => [...html(o).matchAll(/data-view="([^"]+)"/g)].map((m) => m[1]));
-    expect(kinds).toEqual(['dendrogram', 'variable-groups', 'k-evidence', 'projection', 'silhouette', 'profile-cards', 'profile-cards', 'segment-rules']);
+    expect(kinds).toEqual([
+      'dendrogram',
+      'variable-groups',
+      'k-evidence',
+      'projection',
+      'silhouette',
+      'profile-cards',
+      'profile-cards',
+      'segment-rules',
+    ]);
     const bundles = outputsOf('01-pass-holder-segments').map((o) => html(o).split('window.__kinsortDefine=window.define').length - 1);
     expect(bundles.reduce((a, b) => a + b, 0)).toBe(1);
     const s = streams('01-pass-holder-segments');
     expect(s).toContain('reloaded and reassigned 2000 holders: all in the same segment');
     expect(s).toMatch(/weekend_share: \d+ missing, filled with/);
     // The named cards carry the analyst's names.
-    const named = outputsOf('01-pass-holder-segments').map(html).filter((h) => h.includes('data-view="profile-cards"'))[1];
-    for (const title of ['Weekday peak commuters', 'Students topping up', 'Long-distance regulars', 'Weekend and off-peak riders', 'Occasional newcomers']) {
+    const named = outputsOf('01-pass-holder-segments')
+      .map(html)
+      .filter((h) => h.includes('data-view="profile-cards"'))[1];
+    for (const title of [
+      'Weekday peak commuters',
+      'Students topping up',
+      'Long-distance regulars',
+      'Weekend and off-peak riders',
+      'Occasional newcomers',
+    ]) {
       expect(named).toContain(title);
     }
   });
@@ -114,7 +162,9 @@ describe('the demo notebooks in the tslab kernel', () => {
     const s = streams('02-station-hierarchy');
     for (const linkage of ['single', 'complete', 'average', 'weighted', 'ward']) expect(s).toContain(`'${linkage}'`);
     expect(s).toMatch(/Adjusted Rand index [01]\.\d{3}/);
-    const dendrogram = outputsOf('02-station-hierarchy').map(html).find((h) => h.includes('data-view="dendrogram"'));
+    const dendrogram = outputsOf('02-station-hierarchy')
+      .map(html)
+      .find((h) => h.includes('data-view="dendrogram"'));
     const station = fs.readFileSync(path.join(repo, 'demo-data/stations.csv'), 'utf8').split('\n')[1].split(',')[0];
     expect(dendrogram).toContain(station);
   });
@@ -134,7 +184,10 @@ describe('the demo notebooks in the tslab kernel', () => {
   it('03 run on its own (no saved definition): fits the same recipe in place, and SQL still agrees', () => {
     const outputs = aloneCells.flatMap((c) => c.outputs ?? []);
     expect(outputs.filter((o) => o.output_type === 'error' || o.name === 'stderr')).toEqual([]);
-    const s = outputs.filter((o) => o.output_type === 'stream').map((o) => text(o.text)).join('');
+    const s = outputs
+      .filter((o) => o.output_type === 'stream')
+      .map((o) => text(o.text))
+      .join('');
     expect(s).toContain('No saved definition found: fitted the notebook 1 recipe in place');
     expect(s).toContain('Same segment for 300 of 300 holders');
     // The same segments as the saved definition: same training sizes in the same order (the first table).
@@ -146,7 +199,12 @@ describe('the demo notebooks in the tslab kernel', () => {
   it('exported to HTML: charts drawn with scripts on, stand-ins with scripts off; screenshots of the key views', async () => {
     browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
     fs.mkdirSync(shots, { recursive: true });
-    const wanted: Record<string, string> = { 'k-evidence': 'k-evidence', projection: 'projection', 'profile-cards': 'profile-cards', dendrogram: 'dendrogram' };
+    const wanted: Record<string, string> = {
+      'k-evidence': 'k-evidence',
+      projection: 'projection',
+      'profile-cards': 'profile-cards',
+      dendrogram: 'dendrogram',
+    };
     const taken: string[] = [];
     for (const name of ['01-pass-holder-segments', '02-station-hierarchy'] as const) {
       const file = 'file://' + path.join(out, `${name}.html`);
@@ -182,6 +240,10 @@ describe('the demo notebooks in the tslab kernel', () => {
         await context.close();
       }
     }
-    expect(taken.sort()).toEqual(Object.values(wanted).flatMap((b) => [`demo-${b}-live.png`, `demo-${b}-still.png`]).sort());
+    expect(taken.sort()).toEqual(
+      Object.values(wanted)
+        .flatMap((b) => [`demo-${b}-live.png`, `demo-${b}-still.png`])
+        .sort(),
+    );
   }, 180_000);
 });

@@ -17,13 +17,28 @@ const repo = path.resolve(__dirname, '../..');
 const folder = path.join(repo, 'notebooks', 'deno');
 const NAME = 'pass-holder-segments';
 const out = fs.mkdtempSync(path.join(os.tmpdir(), 'kinsort-deno-notebook-'));
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
+const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--no-first-run',
+];
 
-type Output = { output_type: string; name?: string; data?: Record<string, string | string[]>; text?: string | string[]; ename?: string; evalue?: string };
+type Output = {
+  output_type: string;
+  name?: string;
+  data?: Record<string, string | string[]>;
+  text?: string | string[];
+  ename?: string;
+  evalue?: string;
+};
 type Cell = { cell_type: string; source: string | string[]; outputs?: Output[] };
-const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : v ?? '');
+const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : (v ?? ''));
 const html = (o: Output): string => text(o.data?.['text/html']);
-const views = (outputs: Output[]) => outputs.flatMap((o) => [...html(o).matchAll(/<figure class="kinsort-view"[^>]*data-view="([^"]+)"/g)].map((m) => m[1]));
+const views = (outputs: Output[]) =>
+  outputs.flatMap((o) => [...html(o).matchAll(/<figure class="kinsort-view"[^>]*data-view="([^"]+)"/g)].map((m) => m[1]));
 const BUNDLE = 'window.__kinsortDefine=window.define';
 
 let env: NodeJS.ProcessEnv;
@@ -57,12 +72,16 @@ async function executeOnce(output: string, extra: NodeJS.ProcessEnv): Promise<Ou
   // rest with only a log line; the first chart carries the 5 MB plotting bundle, which can take
   // longer on a busy machine. Wait longer, and fail loudly if even that is not enough.
   const wait = ['--ExecutePreprocessor.iopub_timeout=120', '--ExecutePreprocessor.raise_on_iopub_timeout=True'];
-  await run('/usr/bin/jupyter', ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', ...wait, '--output-dir', out, '--output', output, `${NAME}.ipynb`], {
-    cwd: folder,
-    env: { ...env, ...extra },
-    timeout: 240_000,
-    maxBuffer: 64 << 20,
-  });
+  await run(
+    '/usr/bin/jupyter',
+    ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', ...wait, '--output-dir', out, '--output', output, `${NAME}.ipynb`],
+    {
+      cwd: folder,
+      env: { ...env, ...extra },
+      timeout: 240_000,
+      maxBuffer: 64 << 20,
+    },
+  );
   const cells: Cell[] = JSON.parse(fs.readFileSync(path.join(out, `${output}.ipynb`), 'utf8')).cells;
   return cells.flatMap((c) => c.outputs ?? []);
 }
@@ -74,7 +93,11 @@ beforeAll(async () => {
   delete env.KINSORT_LIGHT;
   full = await execute('full');
   light = await execute('light', { KINSORT_LIGHT: '1' });
-  await run('/usr/bin/jupyter', ['nbconvert', '--to', 'html', path.join(out, 'full.ipynb')], { env, timeout: 120_000, maxBuffer: 64 << 20 });
+  await run('/usr/bin/jupyter', ['nbconvert', '--to', 'html', path.join(out, 'full.ipynb')], {
+    env,
+    timeout: 120_000,
+    maxBuffer: 64 << 20,
+  });
 }, 480_000);
 
 afterAll(async () => {
@@ -94,9 +117,14 @@ describe("the Deno notebook in Deno's kernel", () => {
   });
 
   it('runs top to bottom with no error output', () => {
-    const bad = full.filter((o) => o.output_type === 'error' || (o.output_type === 'stream' && (o.name === 'stderr' || /\bError\b/.test(text(o.text)))));
+    const bad = full.filter(
+      (o) => o.output_type === 'error' || (o.output_type === 'stream' && (o.name === 'stderr' || /\bError\b/.test(text(o.text)))),
+    );
     expect(bad.map((o) => `${o.ename ?? o.name}: ${o.evalue ?? text(o.text).slice(0, 300)}`)).toEqual([]);
-    const streams = full.filter((o) => o.output_type === 'stream').map((o) => text(o.text)).join('');
+    const streams = full
+      .filter((o) => o.output_type === 'stream')
+      .map((o) => text(o.text))
+      .join('');
     expect(streams).toContain('Reloaded and reassigned 2000 holders: all in the same segment.');
     // Nothing went to a file: every view was shown inline.
     expect(streams).not.toContain('view written to');
@@ -111,7 +139,12 @@ describe("the Deno notebook in Deno's kernel", () => {
   });
 
   it('progress: one entry per long step, updated in place to its final state, the title said once', () => {
-    const progress = progressOf(full).map((h) => h.replace(/<[^>]+>/g, ' ').replace(/\s+/g, ' ').trim());
+    const progress = progressOf(full).map((h) =>
+      h
+        .replace(/<[^>]+>/g, ' ')
+        .replace(/\s+/g, ' ')
+        .trim(),
+    );
     expect(progress.length).toBe(2);
     for (const p of progress) expect(p).toMatch(/(\d+) of \1 · done$/);
     expect(progress[1].split('k-means restarts').length - 1).toBe(1);

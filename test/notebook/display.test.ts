@@ -71,7 +71,9 @@ describe('progress text', () => {
     p({ task: 'k-means restarts', done: 1, total: 1, detail: 'k = 5' });
     expect(written[0].toLowerCase().split('k-means restarts').length - 1).toBe(1);
     // Different words all stay.
-    expect(progressHtml('Comparing k', { task: 'k-means restarts', done: 1, total: 2, detail: 'k = 3' })).toMatch(/Comparing k<\/b> · k-means restarts · k = 3/);
+    expect(progressHtml('Comparing k', { task: 'k-means restarts', done: 1, total: 2, detail: 'k = 3' })).toMatch(
+      /Comparing k<\/b> · k-means restarts · k = 3/,
+    );
   });
 });
 
@@ -119,7 +121,9 @@ describe("inside Deno's kernel", () => {
     expect(bundle['text/plain']).toBe(evidence.title);
     // Not enumerable: the value lists, copies and serialises as before.
     expect(Object.keys(evidence)).not.toContain(Symbol.for('Jupyter.display').toString());
-    expect(JSON.stringify(Object.keys(evidence))).toBe(JSON.stringify(['kind', 'title', 'caption', 'fragment', 'html', 'svg', 'save', 'show']));
+    expect(JSON.stringify(Object.keys(evidence))).toBe(
+      JSON.stringify(['kind', 'title', 'caption', 'fragment', 'html', 'svg', 'save', 'show']),
+    );
   });
 
   it('a cell value that needs the plotting bundle first sends the bundle as its own display, then a small value', async () => {

@@ -11,7 +11,14 @@ import { chromium, Browser } from 'playwright-core';
 const repo = path.resolve(__dirname, '../..');
 const env = { ...process.env, PATH: `${path.join(repo, 'node_modules/.bin')}:${process.env.PATH}` };
 const out = fs.mkdtempSync(path.join(os.tmpdir(), 'kinsort-notebook-'));
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
+const ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--no-first-run',
+];
 // Set KINSORT_SCREENSHOTS=folder to keep a PNG of every view (scripts on and off).
 const shots = process.env.KINSORT_SCREENSHOTS;
 
@@ -24,12 +31,16 @@ beforeAll(() => {
     execFileSync('npm', ['run', 'build'], { cwd: repo, env, stdio: 'inherit' });
   }
   execFileSync('npx', ['tslab', 'install', '--python=/usr/bin/python3'], { cwd: repo, env, stdio: 'ignore' });
-  execFileSync('/usr/bin/jupyter', ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', '--output-dir', out, 'views-check.ipynb'], {
-    cwd: path.join(repo, 'notebooks'),
-    env,
-    stdio: 'ignore',
-    timeout: 240_000,
-  });
+  execFileSync(
+    '/usr/bin/jupyter',
+    ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', '--output-dir', out, 'views-check.ipynb'],
+    {
+      cwd: path.join(repo, 'notebooks'),
+      env,
+      stdio: 'ignore',
+      timeout: 240_000,
+    },
+  );
   const nb = JSON.parse(fs.readFileSync(path.join(out, 'views-check.ipynb'), 'utf8'));
   outputs = nb.cells.flatMap((c: { outputs?: Output[] }) => c.outputs ?? []);
   execFileSync('/usr/bin/jupyter', ['nbconvert', '--to', 'html', path.join(out, 'views-check.ipynb')], { env, stdio: 'ignore' });
@@ -42,7 +53,7 @@ afterAll(async () => {
 
 const html = (o: Output): string => {
   const v = o.data?.['text/html'];
-  return Array.isArray(v) ? v.join('') : v ?? '';
+  return Array.isArray(v) ? v.join('') : (v ?? '');
 };
 
 describe('notebooks/views-check.ipynb in the tslab kernel', () => {

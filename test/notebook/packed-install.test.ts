@@ -21,8 +21,15 @@ const project = path.join(tmp, 'project');
 const CSV = path.join(repo, 'demo-data', 'pass-holders.csv');
 const TSC = path.join(repo, 'node_modules', 'typescript', 'bin', 'tsc');
 
-type Output = { output_type: string; name?: string; data?: Record<string, string | string[]>; text?: string | string[]; ename?: string; evalue?: string };
-const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : v ?? '');
+type Output = {
+  output_type: string;
+  name?: string;
+  data?: Record<string, string | string[]>;
+  text?: string | string[];
+  ename?: string;
+  evalue?: string;
+};
+const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : (v ?? ''));
 
 let tarball = '';
 let packages: { name: string; dir: string; json: Record<string, unknown> }[] = [];
@@ -34,7 +41,9 @@ function listPackages(modules: string): { name: string; dir: string; json: Recor
   if (!fs.existsSync(modules)) return found;
   for (const entry of fs.readdirSync(modules)) {
     if (entry.startsWith('.')) continue;
-    const dirs = entry.startsWith('@') ? fs.readdirSync(path.join(modules, entry)).map((e) => path.join(modules, entry, e)) : [path.join(modules, entry)];
+    const dirs = entry.startsWith('@')
+      ? fs.readdirSync(path.join(modules, entry)).map((e) => path.join(modules, entry, e))
+      : [path.join(modules, entry)];
     for (const dir of dirs) {
       const file = path.join(dir, 'package.json');
       if (!fs.existsSync(file)) continue;
@@ -76,12 +85,16 @@ async function executeComplete(file: string, env: NodeJS.ProcessEnv, complete: (
 
 async function execute(file: string, env: NodeJS.ProcessEnv): Promise<Output[]> {
   const wait = ['--ExecutePreprocessor.iopub_timeout=120', '--ExecutePreprocessor.raise_on_iopub_timeout=True'];
-  await run('/usr/bin/jupyter', ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', ...wait, '--output', `${file}-run`, `${file}.ipynb`], {
-    cwd: project,
-    env,
-    timeout: 240_000,
-    maxBuffer: 64 << 20,
-  });
+  await run(
+    '/usr/bin/jupyter',
+    ['nbconvert', '--to', 'notebook', '--execute', '--allow-errors', ...wait, '--output', `${file}-run`, `${file}.ipynb`],
+    {
+      cwd: project,
+      env,
+      timeout: 240_000,
+      maxBuffer: 64 << 20,
+    },
+  );
   const nb = JSON.parse(fs.readFileSync(path.join(project, `${file}-run.ipynb`), 'utf8'));
   return nb.cells.flatMap((c: { outputs?: Output[] }) => c.outputs ?? []);
 }
@@ -90,7 +103,10 @@ const problems = (outputs: Output[]) =>
   outputs
     .filter((o) => o.output_type === 'error' || (o.output_type === 'stream' && (o.name === 'stderr' || /\bError\b/.test(text(o.text)))))
     .map((o) => `${o.ename ?? o.name}: ${o.evalue ?? text(o.text).slice(0, 300)}`);
-const viewsIn = (outputs: Output[]) => outputs.flatMap((o) => [...text(o.data?.['text/html']).matchAll(/<figure class="kinsort-view"[^>]*data-view="([^"]+)"/g)].map((m) => m[1]));
+const viewsIn = (outputs: Output[]) =>
+  outputs.flatMap((o) =>
+    [...text(o.data?.['text/html']).matchAll(/<figure class="kinsort-view"[^>]*data-view="([^"]+)"/g)].map((m) => m[1]),
+  );
 
 // The same small analysis from every entry point: sizes of a seeded k-means on the demo holders.
 const ANALYSIS = (csv: string) =>
@@ -110,7 +126,9 @@ beforeAll(async () => {
   await run('npm', ['install', '--prefer-offline', '--no-audit', '--no-fund', tarball], { cwd: project, timeout: 240_000 });
   packages = listPackages(path.join(project, 'node_modules'));
   bytes = sizeOf(path.join(project, 'node_modules'));
-  console.log(`packed install: ${packages.length} packages (${packages.map((p) => p.name).join(', ')}), node_modules ${(bytes / 1e6).toFixed(1)} MB, tarball ${(fs.statSync(tarball).size / 1e3).toFixed(0)} kB`);
+  console.log(
+    `packed install: ${packages.length} packages (${packages.map((p) => p.name).join(', ')}), node_modules ${(bytes / 1e6).toFixed(1)} MB, tarball ${(fs.statSync(tarball).size / 1e3).toFixed(0)} kB`,
+  );
 }, 300_000);
 
 afterAll(() => {
@@ -122,14 +140,18 @@ describe('the packed tarball installed into a fresh project', () => {
     expect(packages.map((p) => p.name).sort()).toEqual(['kinsort', 'papaparse', 'plotly.js-dist-min']);
     for (const p of packages) {
       const scripts = (p.json.scripts ?? {}) as Record<string, string>;
-      expect(Object.keys(scripts).filter((s) => ['preinstall', 'install', 'postinstall', 'prepare'].includes(s)), p.name).toEqual([]);
+      expect(
+        Object.keys(scripts).filter((s) => ['preinstall', 'install', 'postinstall', 'prepare'].includes(s)),
+        p.name,
+      ).toEqual([]);
       expect(fs.existsSync(path.join(p.dir, 'binding.gyp')), p.name).toBe(false);
     }
     expect(fs.existsSync(path.join(project, 'node_modules', '@types'))).toBe(false);
     expect(bytes).toBeLessThan(15e6);
     // The tarball carries the build, the command, the licence, and nothing of the repository's tooling.
     const shipped = path.join(project, 'node_modules', 'kinsort');
-    for (const f of ['dist/index.js', 'dist/index.mjs', 'dist/index.d.ts', 'bin/kinsort.js', 'LICENSE', 'README.md']) expect(fs.existsSync(path.join(shipped, f)), f).toBe(true);
+    for (const f of ['dist/index.js', 'dist/index.mjs', 'dist/index.d.ts', 'bin/kinsort.js', 'LICENSE', 'README.md'])
+      expect(fs.existsSync(path.join(shipped, f)), f).toBe(true);
     for (const f of ['src', 'test', 'scripts', 'notebooks', 'tsconfig.json']) expect(fs.existsSync(path.join(shipped, f)), f).toBe(false);
     const json = JSON.parse(fs.readFileSync(path.join(shipped, 'package.json'), 'utf8'));
     expect(json.peerDependenciesMeta?.tslab?.optional).toBe(true);
@@ -160,19 +182,31 @@ describe('the packed tarball installed into a fresh project', () => {
         `${ANALYSIS(CSV)}const view: View = seg.cards();\nconst e: KinsortError | undefined = undefined;\n` +
         `export const summary = [average, view.title, e, seg.sizes.length];\n`,
     );
-    for (const mode of [['--module', 'nodenext', '--moduleResolution', 'nodenext'], ['--module', 'commonjs', '--moduleResolution', 'node10']]) {
-      const r = await run('node', [TSC, '--noEmit', '--strict', '--target', 'es2022', ...mode, 'check.ts'], { cwd: project }).catch((e) => e);
+    for (const mode of [
+      ['--module', 'nodenext', '--moduleResolution', 'nodenext'],
+      ['--module', 'commonjs', '--moduleResolution', 'node10'],
+    ]) {
+      const r = await run('node', [TSC, '--noEmit', '--strict', '--target', 'es2022', ...mode, 'check.ts'], { cwd: project }).catch(
+        (e) => e,
+      );
       expect(`${r.stdout ?? ''}${r.stderr ?? ''}`, mode.join(' ')).toBe('');
     }
     // The deliberate mistake is caught: the shipped types are real, not `any`.
-    fs.writeFileSync(path.join(project, 'wrong.ts'), `import { kmeans } from 'kinsort';\nconst k: string = kmeans([[1]], { k: 1 }).withinSS;\nexport { k };\n`);
-    const wrong = await run('node', [TSC, '--noEmit', '--strict', '--module', 'nodenext', '--moduleResolution', 'nodenext', 'wrong.ts'], { cwd: project }).catch((e) => e);
+    fs.writeFileSync(
+      path.join(project, 'wrong.ts'),
+      `import { kmeans } from 'kinsort';\nconst k: string = kmeans([[1]], { k: 1 }).withinSS;\nexport { k };\n`,
+    );
+    const wrong = await run('node', [TSC, '--noEmit', '--strict', '--module', 'nodenext', '--moduleResolution', 'nodenext', 'wrong.ts'], {
+      cwd: project,
+    }).catch((e) => e);
     expect(String(wrong.stdout)).toMatch(/wrong\.ts\(2,7\): error TS2322/);
   }, 120_000);
 
   it('runs a tslab notebook created in the project, views inline', async () => {
     const prefix = path.join(tmp, 'tslab');
-    execFileSync(path.join(repo, 'node_modules/.bin/tslab'), ['install', '--python=/usr/bin/python3', `--prefix=${prefix}`], { stdio: 'ignore' });
+    execFileSync(path.join(repo, 'node_modules/.bin/tslab'), ['install', '--python=/usr/bin/python3', `--prefix=${prefix}`], {
+      stdio: 'ignore',
+    });
     fs.writeFileSync(
       path.join(project, 'in-tslab.ipynb'),
       notebook({ name: 'tslab', display_name: 'TypeScript', language: 'typescript' }, [

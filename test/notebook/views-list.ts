@@ -1,6 +1,15 @@
 // Every view built from the hand-made gallery inputs (test/views/gallery.ts).
 import { allViews } from '../views/gallery';
-import { dendrogramView, heatmapView, kEvidenceView, profileCardsView, projectionView, screeView, silhouetteView, View } from '../../src/views';
+import {
+  dendrogramView,
+  heatmapView,
+  kEvidenceView,
+  profileCardsView,
+  projectionView,
+  screeView,
+  silhouetteView,
+  View,
+} from '../../src/views';
 
 export function allViewsList(hostile: boolean): View[] {
   const v = allViews(hostile);

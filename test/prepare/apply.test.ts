@@ -7,7 +7,7 @@ import { applyPreparation, prepareTable, type Preparation } from '../../src/prep
 function riders(n: number, seed: number) {
   // Small deterministic generator of our own making (test data only).
   let s = seed >>> 0;
-  const next = () => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  const next = () => (s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32;
   const fares = ['adult', 'student', 'senior', 'child'];
   return Array.from({ length: n }, (_, i) => ({
     rider: `r${i + 1}`,
@@ -74,8 +74,13 @@ describe('applyPreparation', () => {
     const fitted = prepareTable(riders(30, 5), options);
     const rows = riders(5, 9).map(({ spend: _spend, ...rest }) => ({ ...rest, spnd: 1, extra: 'x' }));
     expect(() => applyPreparation(fitted.preparation, rows)).toThrow(/lack the used column\(s\) "spend".*Did you mean "spnd"\?/);
-    const ok = applyPreparation(fitted.preparation, riders(5, 9).map((r) => ({ ...r, extra: 'x', other: 2 })));
-    expect(ok.report.notes.filter((n) => n.startsWith('Ignored columns'))).toEqual(['Ignored columns not in the preparation: extra, other.']);
+    const ok = applyPreparation(
+      fitted.preparation,
+      riders(5, 9).map((r) => ({ ...r, extra: 'x', other: 2 })),
+    );
+    expect(ok.report.notes.filter((n) => n.startsWith('Ignored columns'))).toEqual([
+      'Ignored columns not in the preparation: extra, other.',
+    ]);
   });
 
   test('new rows without the id column: refused by name, or numbered 1..n with { id: null }', () => {
@@ -90,7 +95,13 @@ describe('applyPreparation', () => {
   test('missing cells follow the stored policy: median uses the stored training values', () => {
     const train = riders(30, 11);
     train[2].trips = null as never;
-    const fitted = prepareTable(train, { id: 'rider', keep: ['region'], missing: 'median', scale: 'none', ordinalLevels: options.ordinalLevels });
+    const fitted = prepareTable(train, {
+      id: 'rider',
+      keep: ['region'],
+      missing: 'median',
+      scale: 'none',
+      ordinalLevels: options.ordinalLevels,
+    });
     const stored = fitted.preparation.columns.find((c) => c.name === 'trips')!.fill as number;
     const fresh = riders(3, 12).map((r, i) => (i === 1 ? { ...r, trips: null } : r));
     const out = applyPreparation(fitted.preparation, fresh);
@@ -117,13 +128,24 @@ describe('applyPreparation', () => {
     const fitted = prepareTable(rows, options);
     const p = fitted.matrix.cols;
     fc.assert(
-      fc.property(fc.shuffledSubarray(rows.map((_, i) => i), { minLength: rows.length, maxLength: rows.length }), (order) => {
-        const out = applyPreparation(fitted.preparation, order.map((i) => rows[i]));
-        expect(out.ids).toEqual(order.map((i) => rows[i].rider));
-        order.forEach((i, r) => {
-          expect(Array.from(out.matrix.data.subarray(r * p, (r + 1) * p))).toEqual(Array.from(fitted.matrix.data.subarray(i * p, (i + 1) * p)));
-        });
-      }),
+      fc.property(
+        fc.shuffledSubarray(
+          rows.map((_, i) => i),
+          { minLength: rows.length, maxLength: rows.length },
+        ),
+        (order) => {
+          const out = applyPreparation(
+            fitted.preparation,
+            order.map((i) => rows[i]),
+          );
+          expect(out.ids).toEqual(order.map((i) => rows[i].rider));
+          order.forEach((i, r) => {
+            expect(Array.from(out.matrix.data.subarray(r * p, (r + 1) * p))).toEqual(
+              Array.from(fitted.matrix.data.subarray(i * p, (i + 1) * p)),
+            );
+          });
+        },
+      ),
       { numRuns: 50, seed: 42 },
     );
   });

@@ -36,10 +36,23 @@ describe('prepareTable refusals', () => {
   });
 
   test('duplicate and missing ids name both rows / the row', () => {
-    const dup = [{ id: 'a', v: 1 }, { id: 'b', v: 2 }, { id: 'a', v: 3 }];
+    const dup = [
+      { id: 'a', v: 1 },
+      { id: 'b', v: 2 },
+      { id: 'a', v: 3 },
+    ];
     expect(() => prepareTable(dup, { id: 'id' })).toThrow(/id "a" appears twice in column "id" \(rows 1 and 3\)/);
     expect(codeOf(() => prepareTable(dup, { id: 'id' }))).toBe('duplicate-id');
-    expect(() => prepareTable([{ id: 'a', v: 1 }, { id: null, v: 2 }, { id: 'c', v: 5 }], { id: 'id' })).toThrow(/row 2 has no value in the id column "id"/);
+    expect(() =>
+      prepareTable(
+        [
+          { id: 'a', v: 1 },
+          { id: null, v: 2 },
+          { id: 'c', v: 5 },
+        ],
+        { id: 'id' },
+      ),
+    ).toThrow(/row 2 has no value in the id column "id"/);
   });
 
   test('unknown column names in id, use, keep, log, weights get a did-you-mean', () => {
@@ -53,13 +66,19 @@ describe('prepareTable refusals', () => {
   test('conflicting roles and options are refused', () => {
     expect(() => prepareTable(rows, { id: 'id', use: ['fare'], keep: ['fare'] })).toThrow(/"fare" is in both use and keep/);
     expect(() => prepareTable(rows, { id: 'id', use: ['id', 'fare'] })).toThrow(/"id" is the id column/);
-    expect(() => prepareTable(rows, { id: 'id', use: ['fare'], log: ['fare'] })).toThrow(/column "fare" is categorical; log1p applies to numeric columns only/);
+    expect(() => prepareTable(rows, { id: 'id', use: ['fare'], log: ['fare'] })).toThrow(
+      /column "fare" is categorical; log1p applies to numeric columns only/,
+    );
     expect(() => prepareTable(rows, { id: 'id', use: ['fare'], weights: { fare: 0 } })).toThrow(/weights.fare must be a finite number/);
     expect(() => prepareTable(rows, { id: 'id', use: ['fare'], weights: { fare: NaN } })).toThrow(/weights.fare/);
   });
 
   test('negative values under log1p are refused by row and column', () => {
-    const t = [{ id: 'p', s: 1 }, { id: 'q', s: -2 }, { id: 'r', s: 4 }];
+    const t = [
+      { id: 'p', s: 1 },
+      { id: 'q', s: -2 },
+      { id: 'r', s: 4 },
+    ];
     expect(() => prepareTable(t, { id: 'id', log: ['s'] })).toThrow(/row 2 \(id "q"\), column "s" is -2, but log1p/);
   });
 
@@ -79,7 +98,12 @@ describe('prepareTable refusals', () => {
   });
 
   test('all-constant features and empty feature lists are refused', () => {
-    expect(() => prepareTable([{ a: 1, b: 'x' }, { a: 1, b: 'x' }])).toThrow(/every used column is constant.*a, b/);
+    expect(() =>
+      prepareTable([
+        { a: 1, b: 'x' },
+        { a: 1, b: 'x' },
+      ]),
+    ).toThrow(/every used column is constant.*a, b/);
     expect(() => prepareTable(rows, { id: 'id', keep: ['trips', 'fare'] })).toThrow(/no feature columns/);
   });
 

@@ -53,7 +53,15 @@ describe('missing: drop', () => {
   });
 
   test('when every row has a missing feature the error says so', () => {
-    expect(() => prepareTable([{ a: null, b: 1 }, { a: 2, b: null }], { missing: 'drop' })).toThrow(/every one of the 2 rows/);
+    expect(() =>
+      prepareTable(
+        [
+          { a: null, b: 1 },
+          { a: 2, b: null },
+        ],
+        { missing: 'drop' },
+      ),
+    ).toThrow(/every one of the 2 rows/);
   });
 });
 

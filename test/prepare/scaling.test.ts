@@ -39,7 +39,10 @@ describe(`scaling against ${fixture.producedBy}`, () => {
     const factor = Math.sqrt((n - 1) / n);
     for (const name of numeric) {
       const population = fixture.expected.standardScalerPopulation[name] as number[];
-      expectClose(column(p, name), population.map((v) => v * factor));
+      expectClose(
+        column(p, name),
+        population.map((v) => v * factor),
+      );
     }
   });
 
@@ -74,7 +77,9 @@ describe(`scaling against ${fixture.producedBy}`, () => {
   test('one-hot matches OneHotEncoder: sorted levels, one indicator per level', () => {
     const p = prepareTable({ mode: columns.mode });
     expect(p.featureNames).toEqual(fixture.expected.oneHotCategories.map((l: string) => `mode=${l}`));
-    const rows = Array.from({ length: p.matrix.rows }, (_, i) => Array.from(p.matrix.data.subarray(i * p.matrix.cols, (i + 1) * p.matrix.cols)));
+    const rows = Array.from({ length: p.matrix.rows }, (_, i) =>
+      Array.from(p.matrix.data.subarray(i * p.matrix.cols, (i + 1) * p.matrix.cols)),
+    );
     expect(rows).toEqual(fixture.expected.oneHot);
   });
 
@@ -104,7 +109,7 @@ describe(`scaling against ${fixture.producedBy}`, () => {
 
 describe('robust scaling fallbacks (of our own making)', () => {
   test('IQR 0 but not constant: falls back to the sd with a report line', () => {
-    const p = prepareTable({ v: [5, 5, 5, 5, 5, 5, 5, 9, 1] , w: [1, 2, 3, 4, 5, 6, 7, 8, 9] }, { scale: 'robust' });
+    const p = prepareTable({ v: [5, 5, 5, 5, 5, 5, 5, 9, 1], w: [1, 2, 3, 4, 5, 6, 7, 8, 9] }, { scale: 'robust' });
     const spec = p.preparation.columns.find((c) => c.name === 'v')!;
     expect(spec.spreadKind).toBe('sd');
     expect(spec.centre).toBe(5);

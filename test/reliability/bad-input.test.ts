@@ -3,20 +3,57 @@
 // Data of our own making, written out in each test.
 import { describe, expect, it } from 'vitest';
 import {
-  adjustedRandIndex, agglomerate, bootstrapStability, calinskiHarabasz, compareK, daviesBouldin, dissimilarity,
-  gapStatistic, kmeans, kmeansMiniBatch, kmedoids, loadDefinition, normalizedMutualInfo, prepareTable, project,
-  readTable, silhouette, study, makeDissimilarity, findKnee, viewsPage,
+  adjustedRandIndex,
+  agglomerate,
+  bootstrapStability,
+  calinskiHarabasz,
+  compareK,
+  daviesBouldin,
+  dissimilarity,
+  gapStatistic,
+  kmeans,
+  kmeansMiniBatch,
+  kmedoids,
+  loadDefinition,
+  normalizedMutualInfo,
+  prepareTable,
+  project,
+  readTable,
+  silhouette,
+  study,
+  makeDissimilarity,
+  findKnee,
+  viewsPage,
 } from '../../src';
 import { refusal } from './helpers';
 
-const rows = [[1, 2], [3, 4], [5, 6], [7, 9]];
-const HUGE = [[1e300, 1e300], [-1e300, -1e300], [1e300, 9e299], [-1e300, -9e299]];
+const rows = [
+  [1, 2],
+  [3, 4],
+  [5, 6],
+  [7, 9],
+];
+const HUGE = [
+  [1e300, 1e300],
+  [-1e300, -1e300],
+  [1e300, 9e299],
+  [-1e300, -9e299],
+];
 const TINY = HUGE.map((r) => r.map((v) => v / 1e300 / 1e300));
 
 describe('numbers that cannot be used name the row and column', () => {
-  for (const [label, bad, shown] of [['NaN', NaN, 'NaN'], ['+Infinity', Infinity, 'Infinity'], ['-Infinity', -Infinity, '-Infinity']] as const) {
+  for (const [label, bad, shown] of [
+    ['NaN', NaN, 'NaN'],
+    ['+Infinity', Infinity, 'Infinity'],
+    ['-Infinity', -Infinity, '-Infinity'],
+  ] as const) {
     it(`${label} in rows: every method refuses, naming row 2, column 2`, () => {
-      const input = [[1, 2], [3, bad], [4, 5], [6, 1]];
+      const input = [
+        [1, 2],
+        [3, bad],
+        [4, 5],
+        [6, 1],
+      ];
       for (const f of [
         () => kmeans(input, { k: 2 }),
         () => kmeansMiniBatch(input, { k: 2 }),
@@ -33,14 +70,35 @@ describe('numbers that cannot be used name the row and column', () => {
     });
   }
   it('text in a numeric row names the cell and its content', () => {
-    refusal(() => kmeans([[1, 2], ['x' as unknown as number, 3], [4, 5]], { k: 2 }), 'row 2', 'column 1', '"x"');
+    refusal(
+      () =>
+        kmeans(
+          [
+            [1, 2],
+            ['x' as unknown as number, 3],
+            [4, 5],
+          ],
+          { k: 2 },
+        ),
+      'row 2',
+      'column 1',
+      '"x"',
+    );
   });
   it('text in a numeric table column names the row id and the column', () => {
-    const t = readTable([{ id: 'a', x: 1 }, { id: 'b', x: 'two' }, { id: 'c', x: 3 }]);
+    const t = readTable([
+      { id: 'a', x: 1 },
+      { id: 'b', x: 'two' },
+      { id: 'c', x: 3 },
+    ]);
     refusal(() => prepareTable(t, { id: 'id', types: { x: 'numeric' } }), 'row 2', 'id "b"', 'column "x"', '"two"');
   });
   it('a missing cell under the default policy names the row id, the column and the alternatives', () => {
-    const t = readTable([{ id: 'a', x: 1 }, { id: 'b', x: null }, { id: 'c', x: 3 }]);
+    const t = readTable([
+      { id: 'a', x: 1 },
+      { id: 'b', x: null },
+      { id: 'c', x: 3 },
+    ]);
     refusal(() => prepareTable(t, { id: 'id' }), 'id "b"', 'column "x"', "'drop'", "'median'");
   });
 });
@@ -78,21 +136,37 @@ describe('huge and tiny magnitudes: correct, or a clear refusal (never silent In
     refusal(() => agglomerate(TINY, { method: 'single' }), 'underflow');
   });
   it('a 1e-300 value beside ordinary values is fine (it is simply near 0)', () => {
-    const r = kmeans([[1e-300, 0], [0, 0.1], [10, 10], [10.1, 10]], { k: 2, seed: 3 });
+    const r = kmeans(
+      [
+        [1e-300, 0],
+        [0, 0.1],
+        [10, 10],
+        [10.1, 10],
+      ],
+      { k: 2, seed: 3 },
+    );
     expect(r.assignment[0]).toBe(r.assignment[1]);
     expect(r.assignment[2]).toBe(r.assignment[3]);
     expect(r.assignment[0]).not.toBe(r.assignment[2]);
     expect(Number.isFinite(r.withinSS)).toBe(true);
   });
   it('a 1e300 column with z-score scaling is refused naming the column; min-max scaling is exact', () => {
-    const t = readTable([{ id: 'a', x: 1e300 }, { id: 'b', x: -1e300 }, { id: 'c', x: 5e299 }]);
+    const t = readTable([
+      { id: 'a', x: 1e300 },
+      { id: 'b', x: -1e300 },
+      { id: 'c', x: 5e299 },
+    ]);
     refusal(() => prepareTable(t, { id: 'id', scale: 'zscore' }), 'column "x"', 'power of ten');
     const mm = prepareTable(t, { id: 'id', scale: 'minmax' });
     // (x - min) / (max - min) by hand: 1, 0, 0.75.
     expect(Array.from(mm.matrix.data)).toEqual([1, 0, 0.75]);
   });
   it('a 1e-300 column with z-score scaling is refused, never a matrix of NaN', () => {
-    const t = readTable([{ id: 'a', x: 1e-300 }, { id: 'b', x: -1e-300 }, { id: 'c', x: 5e-301 }]);
+    const t = readTable([
+      { id: 'a', x: 1e-300 },
+      { id: 'b', x: -1e-300 },
+      { id: 'c', x: 5e-301 },
+    ]);
     refusal(() => prepareTable(t, { id: 'id', scale: 'zscore' }), 'column "x"');
   });
 });
@@ -116,7 +190,11 @@ describe('empty, one row, identical rows, constant columns', () => {
     expect(dissimilarity([[1, 2]], {}).condensed.length).toBe(0);
   });
   it('identical rows: k above the distinct rows is refused saying so; k = 1 and a tree work', () => {
-    const same = [[1, 1], [1, 1], [1, 1]];
+    const same = [
+      [1, 1],
+      [1, 1],
+      [1, 1],
+    ];
     refusal(() => kmeans(same, { k: 2 }), 'distinct');
     refusal(() => kmedoids(same, { k: 2 }), 'distinct');
     expect(kmeans(same, { k: 1 }).withinSS).toBe(0);
@@ -126,13 +204,43 @@ describe('empty, one row, identical rows, constant columns', () => {
     refusal(() => tree.cut({ k: 2 }), 'height 0', 'at most 1');
     expect(Array.from(tree.cut({ k: 1 }))).toEqual([0, 0, 0]);
     // Rousseeuw (1987): s(i) = 0 when a(i) = b(i) (here both 0).
-    expect(Array.from(silhouette([[1, 1], [1, 1], [1, 1], [1, 1]], [0, 1, 0, 1]).values)).toEqual([0, 0, 0, 0]);
+    expect(
+      Array.from(
+        silhouette(
+          [
+            [1, 1],
+            [1, 1],
+            [1, 1],
+            [1, 1],
+          ],
+          [0, 1, 0, 1],
+        ).values,
+      ),
+    ).toEqual([0, 0, 0, 0]);
   });
   it('a constant column is dropped and reported; all-constant and one-row tables are refused', () => {
-    const d = prepareTable(readTable([{ id: 'a', x: 1, y: 5 }, { id: 'b', x: 2, y: 5 }, { id: 'c', x: 3, y: 5 }]), { id: 'id' });
+    const d = prepareTable(
+      readTable([
+        { id: 'a', x: 1, y: 5 },
+        { id: 'b', x: 2, y: 5 },
+        { id: 'c', x: 3, y: 5 },
+      ]),
+      { id: 'id' },
+    );
     expect(d.featureNames).toEqual(['x']);
     expect(d.report.constantColumns).toEqual(['y']);
-    refusal(() => prepareTable(readTable([{ id: 'a', y: 5 }, { id: 'b', y: 5 }]), { id: 'id' }), 'constant', 'y');
+    refusal(
+      () =>
+        prepareTable(
+          readTable([
+            { id: 'a', y: 5 },
+            { id: 'b', y: 5 },
+          ]),
+          { id: 'id' },
+        ),
+      'constant',
+      'y',
+    );
     refusal(() => study([{ id: 'a', x: 1, y: 2 }], { id: 'id' }).prepare(), 'constant');
   });
 });
@@ -140,14 +248,44 @@ describe('empty, one row, identical rows, constant columns', () => {
 describe('ids: unicode, very long, duplicate, empty', () => {
   it('unicode and 5,000-character ids pass through unchanged', () => {
     const long = 'é'.repeat(5000) + '😀';
-    const d = prepareTable(readTable([{ id: long, x: 1 }, { id: '名前', x: 2 }, { id: 'ﬁ\u0301', x: 3 }]), { id: 'id' });
+    const d = prepareTable(
+      readTable([
+        { id: long, x: 1 },
+        { id: '名前', x: 2 },
+        { id: 'ﬁ\u0301', x: 3 },
+      ]),
+      { id: 'id' },
+    );
     expect(d.ids).toEqual([long, '名前', 'ﬁ\u0301']);
   });
   it('a duplicate id is refused naming the id and both rows', () => {
-    refusal(() => prepareTable(readTable([{ id: 'a', x: 1 }, { id: 'b', x: 1 }, { id: 'a', x: 2 }]), { id: 'id' }), '"a"', 'rows 1 and 3');
+    refusal(
+      () =>
+        prepareTable(
+          readTable([
+            { id: 'a', x: 1 },
+            { id: 'b', x: 1 },
+            { id: 'a', x: 2 },
+          ]),
+          { id: 'id' },
+        ),
+      '"a"',
+      'rows 1 and 3',
+    );
   });
   it('an empty id is refused naming the row', () => {
-    refusal(() => prepareTable(readTable([{ id: 'a', x: 1 }, { id: '', x: 2 }]), { id: 'id' }), 'row 2', '"id"');
+    refusal(
+      () =>
+        prepareTable(
+          readTable([
+            { id: 'a', x: 1 },
+            { id: '', x: 2 },
+          ]),
+          { id: 'id' },
+        ),
+      'row 2',
+      '"id"',
+    );
   });
 });
 
@@ -155,7 +293,10 @@ describe('CSV text: BOM, mixed line endings, ragged rows, quotes, duplicate head
   it('a BOM and \\r\\n, \\n and \\r line endings in one text read as three rows', () => {
     const t = readTable('\uFEFFa,b\r\n1,2\n3,4\r5,6\n');
     expect(t.columns.map((c) => c.name)).toEqual(['a', 'b']);
-    expect(t.columns.map((c) => c.values)).toEqual([['1', '3', '5'], ['2', '4', '6']]);
+    expect(t.columns.map((c) => c.values)).toEqual([
+      ['1', '3', '5'],
+      ['2', '4', '6'],
+    ]);
   });
   it('ragged rows name the line and the field counts', () => {
     refusal(() => readTable('a,b\n1,2\n3\n'), 'line 3', '1 fields', '2');
@@ -168,7 +309,11 @@ describe('CSV text: BOM, mixed line endings, ragged rows, quotes, duplicate head
   it('NaN in records reads as missing; Infinity reaching the preparation is refused naming row id and column', () => {
     const t = readTable([{ a: NaN }, { a: 1 }, { a: 2 }]);
     expect(t.columns[0].values).toEqual([null, 1, 2]);
-    const inf = readTable([{ id: 'p', a: 3 }, { id: 'q', a: Infinity }, { id: 'r', a: 2 }]);
+    const inf = readTable([
+      { id: 'p', a: 3 },
+      { id: 'q', a: Infinity },
+      { id: 'r', a: 2 },
+    ]);
     refusal(() => prepareTable(inf, { id: 'id' }), 'id "q"', 'column "a"');
   });
   it('a cell that is an object is refused naming row and column', () => {
@@ -197,7 +342,10 @@ describe('k out of range, unknown names with a "did you mean"', () => {
     refusal(() => gapStatistic(rows, { kfrom: 1 } as never), 'Did you mean "kFrom"');
     refusal(() => compareK(rows, { form: 2 } as never), 'Did you mean "from"');
     refusal(() => agglomerate(rows, { method: 'ward' }).cut({ kk: 2 } as never), 'Did you mean "k"');
-    const t = readTable([{ id: 'a', x: 1 }, { id: 'b', x: 2 }]);
+    const t = readTable([
+      { id: 'a', x: 1 },
+      { id: 'b', x: 2 },
+    ]);
     refusal(() => prepareTable(t, { id: 'id', scale: 'z-score' as never }), 'Did you mean "zscore"');
     refusal(() => prepareTable(t, { id: 'id', missing: 'drops' as never }), 'Did you mean "drop"');
     refusal(() => prepareTable(t, { id: 'idd' }), 'Did you mean "id"');
@@ -217,7 +365,12 @@ describe('assignment arrays of the wrong length or kind', () => {
 });
 
 describe('the fluent layer refuses the same things as clearly', () => {
-  const recs = [{ id: 'a', x: 1, y: 0 }, { id: 'b', x: 2, y: 1 }, { id: 'c', x: 3, y: 0 }, { id: 'd', x: 9, y: 1 }];
+  const recs = [
+    { id: 'a', x: 1, y: 0 },
+    { id: 'b', x: 2, y: 1 },
+    { id: 'c', x: 3, y: 0 },
+    { id: 'd', x: 9, y: 1 },
+  ];
   it('unknown roles and options, k out of range, unknown linkage and metric, bad segment numbers', () => {
     refusal(() => study(recs, { idd: 'id' } as never), 'Did you mean "id"');
     const s = study(recs, { id: 'id' }).prepare();
@@ -232,7 +385,18 @@ describe('the fluent layer refuses the same things as clearly', () => {
     refusal(() => seg.segmentOf('zz'), '"zz"');
   });
   it('a 1e300 column in the fluent layer is refused naming the column', () => {
-    refusal(() => study([{ id: 'a', x: 1e300 }, { id: 'b', x: -1e300 }, { id: 'c', x: 1 }], { id: 'id' }).prepare(), 'column "x"');
+    refusal(
+      () =>
+        study(
+          [
+            { id: 'a', x: 1e300 },
+            { id: 'b', x: -1e300 },
+            { id: 'c', x: 1 },
+          ],
+          { id: 'id' },
+        ).prepare(),
+      'column "x"',
+    );
   });
 });
 
@@ -255,7 +419,10 @@ describe('misused entry points (plain JavaScript callers) refuse instead of cras
     refusal(() => (findKnee as unknown as (xs: number[]) => unknown)([1, 2, 3]), 'two lists');
   });
   it('saving a definition where it cannot be written names the path', () => {
-    const def = study([{ a: 1 }, { a: 2 }, { a: 4 }]).prepare().kmeans({ k: 2 }).definition();
+    const def = study([{ a: 1 }, { a: 2 }, { a: 4 }])
+      .prepare()
+      .kmeans({ k: 2 })
+      .definition();
     refusal(() => def.save('/proc/kinsort-cannot-write/def.json'), 'cannot write', '/proc/kinsort-cannot-write/def.json');
   });
 });

@@ -28,12 +28,28 @@ function expectOneLineRefusal(r: ReturnType<typeof kinsort>, ...mention: (string
   for (const m of mention) typeof m === 'string' ? expect(lines[0]).toContain(m) : expect(lines[0]).toMatch(m);
 }
 
-const FIT = (data: string, ...more: string[]) => ['fit', at(data), '--id', 'rider', '--use', 'trips,peak,tenure', '--method', 'kmeans', '--k', '3', '--out', at('def.json'), ...more];
+const FIT = (data: string, ...more: string[]) => [
+  'fit',
+  at(data),
+  '--id',
+  'rider',
+  '--use',
+  'trips,peak,tenure',
+  '--method',
+  'kmeans',
+  '--k',
+  '3',
+  '--out',
+  at('def.json'),
+  ...more,
+];
 
 beforeAll(() => {
   if (!existsSync(join(root, 'dist/cli/main.js'))) {
     try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], { stdio: 'ignore' });
+      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
+        stdio: 'ignore',
+      });
     } catch {
       /* type errors elsewhere still emit JavaScript */
     }

@@ -37,7 +37,9 @@ const USE = ['--id', 'rider', '--use', 'trips,peak,tenure', '--method', 'kmeans'
 beforeAll(() => {
   if (!existsSync(join(root, 'dist/cli/main.js'))) {
     try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], { stdio: 'ignore' });
+      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
+        stdio: 'ignore',
+      });
     } catch {
       /* type errors elsewhere still emit JavaScript */
     }
@@ -54,7 +56,18 @@ describe('command names that every plain object inherits are unknown commands', 
     expectOneLineRefusal(kinsort(name), `unknown command "${name}"`, 'Commands: fit, assign, sql');
   });
   it('an inherited name as a --metric value is an unknown metric', () => {
-    expectOneLineRefusal(kinsort('fit', at('good.csv'), ...USE.map((a) => (a === 'kmeans' ? 'kmedoids' : a)), '--metric', 'constructor', '--out', at('x.json')), 'Unknown metric "constructor"');
+    expectOneLineRefusal(
+      kinsort(
+        'fit',
+        at('good.csv'),
+        ...USE.map((a) => (a === 'kmeans' ? 'kmedoids' : a)),
+        '--metric',
+        'constructor',
+        '--out',
+        at('x.json'),
+      ),
+      'Unknown metric "constructor"',
+    );
   });
 });
 
@@ -84,7 +97,10 @@ describe('--out never overwrites an input', () => {
 describe('a repeated flag is refused, not silently the last one', () => {
   it('--k twice, --out twice, --for twice', () => {
     expectOneLineRefusal(kinsort('fit', at('good.csv'), ...USE, '--k', '4', '--out', at('r.json')), '--k is given more than once');
-    expectOneLineRefusal(kinsort('assign', at('def.json'), at('good.csv'), '--for', 'database', '--for', 'spreadsheet'), '--for is given more than once');
+    expectOneLineRefusal(
+      kinsort('assign', at('def.json'), at('good.csv'), '--for', 'database', '--for', 'spreadsheet'),
+      '--for is given more than once',
+    );
     expect(existsSync(at('r.json'))).toBe(false);
   });
 });
@@ -133,7 +149,9 @@ describe('scored CSV: formula-looking ids guarded for a spreadsheet, exact for a
   });
 
   it('scoredCsv: a leading tab or carriage return is guarded too; database mode writes them as given', () => {
-    const outcome = { rows: ['\t=1', '\r=1', '\t7'].map((id) => ({ id, segment: 1, distance: 0.5, far: false })) } as unknown as AssignmentOutcome;
+    const outcome = {
+      rows: ['\t=1', '\r=1', '\t7'].map((id) => ({ id, segment: 1, distance: 0.5, far: false })),
+    } as unknown as AssignmentOutcome;
     expect(scoredCsv('rider', outcome).split('\n').slice(1, 4)).toEqual(["'\t=1,1,0.5,0", '"\'\r=1",1,0.5,0', "'\t7,1,0.5,0"]);
     expect(scoredCsv('rider', outcome, 'database').split('\n').slice(1, 4)).toEqual(['\t=1,1,0.5,0', '"\r=1",1,0.5,0', '\t7,1,0.5,0']);
     expect(['=a', '+a', '-a', '@a', '\ta', '\ra'].every(readsAsFormula)).toBe(true);
@@ -154,7 +172,9 @@ describe('special files and long names', () => {
     expectOneLineRefusal(kinsort('assign', at('def.json'), at('fifo.csv')), 'named pipe');
   });
   it('a 60,000-character column name is refused without a quadratic suggestion', () => {
-    expectOneLineRefusal(kinsort('fit', at('good.csv'), ...USE.map((a) => (a === 'trips,peak,tenure' ? 'q'.repeat(60_000) : a)), '--out', at('z.json')));
+    expectOneLineRefusal(
+      kinsort('fit', at('good.csv'), ...USE.map((a) => (a === 'trips,peak,tenure' ? 'q'.repeat(60_000) : a)), '--out', at('z.json')),
+    );
   });
 });
 
@@ -163,8 +183,22 @@ describe('kinsort fit: the summary silhouette on many rows', () => {
     writeFileSync(at('many.csv'), toCsv(riders(12_000, 77)));
     const sampled = kinsort('fit', at('many.csv'), ...USE, '--seed', '1', '--restarts', '1', '--out', at('many.json'));
     expect(sampled.status, sampled.stderr).toBe(0);
-    expect(sampled.stdout).toMatch(/average silhouette \(euclidean, on a seeded sample of 10,000 of 12,000 rows; --silhouette full for all\): 0\.\d+/);
-    const full = kinsort('fit', at('many.csv'), ...USE, '--seed', '1', '--restarts', '1', '--silhouette', 'full', '--out', at('many-full.json'));
+    expect(sampled.stdout).toMatch(
+      /average silhouette \(euclidean, on a seeded sample of 10,000 of 12,000 rows; --silhouette full for all\): 0\.\d+/,
+    );
+    const full = kinsort(
+      'fit',
+      at('many.csv'),
+      ...USE,
+      '--seed',
+      '1',
+      '--restarts',
+      '1',
+      '--silhouette',
+      'full',
+      '--out',
+      at('many-full.json'),
+    );
     expect(full.status, full.stderr).toBe(0);
     expect(full.stdout).toMatch(/average silhouette \(euclidean\): 0\.\d+/);
     const value = (s: string) => Number(/silhouette[^:]*: (0\.\d+)/.exec(s)![1]);
@@ -176,7 +210,9 @@ describe('kinsort fit: the summary silhouette on many rows', () => {
     const r = kinsort('fit', at('many.csv'), ...USE.map((a) => (a === 'kmeans' ? 'hierarchy' : a)), '--out', at('many-tree.json'));
     expect(r.status, r.stderr).toBe(0);
     const lines = r.stderr.trim().split('\n');
-    expect(lines[0]).toBe('kinsort fit: ward linkage on 12,000 rows: about 1.4e8 distance evaluations (4.3e8 multiply-adds); the work grows with the square of the rows');
+    expect(lines[0]).toBe(
+      'kinsort fit: ward linkage on 12,000 rows: about 1.4e8 distance evaluations (4.3e8 multiply-adds); the work grows with the square of the rows',
+    );
     expect(lines.slice(1)).toEqual(Array.from({ length: 10 }, (_, i) => `kinsort fit: agglomerating, ${(i + 1) * 10}% of merges done`));
   }, 120_000);
 });

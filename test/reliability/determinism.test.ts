@@ -3,8 +3,17 @@
 // making (test/reliability/data.ts, fixed seeds).
 import { describe, expect, it } from 'vitest';
 import {
-  agglomerate, bootstrapStability, compareK, gapStatistic, kmeans, kmeansMiniBatch, kmedoids, LINKAGE_METHODS,
-  prepareTable, readTable, study,
+  agglomerate,
+  bootstrapStability,
+  compareK,
+  gapStatistic,
+  kmeans,
+  kmeansMiniBatch,
+  kmedoids,
+  LINKAGE_METHODS,
+  prepareTable,
+  readTable,
+  study,
 } from '../../src';
 import { groupedRows, permutation } from './data';
 
@@ -12,7 +21,9 @@ const rows = groupedRows(60, 3, 3, 21);
 
 /** Plain JSON of a result, typed arrays as lists, functions left out. */
 function snapshot(value: unknown): string {
-  return JSON.stringify(value, (_k, v) => (ArrayBuffer.isView(v) ? Array.from(v as unknown as ArrayLike<number>) : typeof v === 'function' ? undefined : v));
+  return JSON.stringify(value, (_k, v) =>
+    ArrayBuffer.isView(v) ? Array.from(v as unknown as ArrayLike<number>) : typeof v === 'function' ? undefined : v,
+  );
 }
 
 describe('the same seed twice gives identical results', () => {

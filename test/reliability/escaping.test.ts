@@ -11,7 +11,14 @@ import { chromium, type Browser } from 'playwright-core';
 import { study, viewsPage, type View } from '../../src';
 import { groupedRows } from './data';
 
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--no-first-run'];
+const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--no-first-run',
+];
 
 const HOSTILE = [
   '<script>alert(1)</script>',
@@ -107,14 +114,20 @@ async function inspect(html: string, name: string, charts: number): Promise<Page
     }
     return {
       alerts: (window as unknown as { __alerts: number }).__alerts,
-      onAttributes: all.flatMap((e) => Array.from(e.attributes).filter((a) => /^on/i.test(a.name)).map((a) => `${e.tagName}[${a.name}]`)),
+      onAttributes: all.flatMap((e) =>
+        Array.from(e.attributes)
+          .filter((a) => /^on/i.test(a.name))
+          .map((a) => `${e.tagName}[${a.name}]`),
+      ),
       imgs: document.querySelectorAll('img, iframe, object, embed').length,
       // An <svg> whose parent is not one of ours would mean data opened an element.
       // (plotly's own hidden text-measuring svg, #js-plotly-tester, is the one expected outsider).
       foreignSvg: Array.from(document.querySelectorAll('svg'))
         .filter((e) => e.closest('.ks-static, .ks-live, .js-plotly-plot') === null && e.id !== 'js-plotly-tester')
         .map((e) => e.outerHTML.slice(0, 120)),
-      anchors: Array.from(document.querySelectorAll('a')).map((a) => a.getAttribute('href') ?? '').filter((h) => /javascript:/i.test(h)),
+      anchors: Array.from(document.querySelectorAll('a'))
+        .map((a) => a.getAttribute('href') ?? '')
+        .filter((h) => /javascript:/i.test(h)),
       scriptsWithData: scripts.filter((s) => s.type !== 'application/json' && /alert\(1\)/.test(s.textContent ?? '')).length,
       badJson,
       drawn: document.querySelectorAll('[data-drawn="plotly"]').length,
@@ -151,11 +164,15 @@ describe('hostile strings never become markup (real browser DOM, scripts on)', (
     expect(state.text).toContain(HOSTILE[0]);
   }, 90_000);
 
-  it.each([0, 5])('view %i alone as its own offline page (the single-view wrapper; every view is on the page above)', async (i) => {
-    const v = views[i];
-    const state = await inspect(v.html(), `view-${i}`, v.fragment().includes('class="ks-live"') ? 1 : 0);
-    expectInert(state);
-  }, 90_000);
+  it.each([0, 5])(
+    'view %i alone as its own offline page (the single-view wrapper; every view is on the page above)',
+    async (i) => {
+      const v = views[i];
+      const state = await inspect(v.html(), `view-${i}`, v.fragment().includes('class="ks-live"') ? 1 : 0);
+      expectInert(state);
+    },
+    90_000,
+  );
 
   it('the HTML write-up', async () => {
     const state = await inspect(writeUp.html(), 'write-up', 0);

@@ -21,22 +21,96 @@ beforeAll(() => {
   const evil = riders(24, 4).map((r, i) => ({ ...r, rider: i % 5 === 0 ? `=x${i}\u001b[31m\n@` : r.rider }));
   writeFileSync(at('evil.csv'), toCsv(evil));
   execFileSync('mkfifo', [at('fifo')]);
-  const io = { out: () => {}, err: (t: string) => { throw new Error(t); } };
+  const io = {
+    out: () => {},
+    err: (t: string) => {
+      throw new Error(t);
+    },
+  };
   run(['fit', at('d.csv'), '--id', 'rider', '--use', 'trips,peak', '--method', 'kmeans', '--k', '2', '--out', at('def.json')], io);
 });
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 const WORDS = [
-  'fit', 'assign', 'sql', 'help', 'constructor', 'toString', '__proto__', 'hasOwnProperty', 'valueOf', 'prototype',
-  '--id', '--use', '--keep', '--method', '--k', '--linkage', '--metric', '--scale', '--missing', '--log', '--seed',
-  '--restarts', '--note', '--out', '--for', '--silhouette', '--table', '--id-column', '--help', '-h', '--', '-', '--k=2',
-  '--__proto__', '--constructor', '--toString', '--out=x', '--for=database',
-  'rider', 'trips', 'peak', 'trips,peak', 'trips,,peak', 'kmeans', 'kmedoids', 'hierarchy', 'ward', 'euclidean', 'manhattan',
-  'zscore', 'drop', 'median', 'spreadsheet', 'database', 'sample', 'full', '2', '3', '0', '-1', '1e3', '99999', 'NaN', '',
-  ' ', 'x\u001b[2J', 'a\nb', '\r', 'é名😀', '\u202e', 'x'.repeat(300),
+  'fit',
+  'assign',
+  'sql',
+  'help',
+  'constructor',
+  'toString',
+  '__proto__',
+  'hasOwnProperty',
+  'valueOf',
+  'prototype',
+  '--id',
+  '--use',
+  '--keep',
+  '--method',
+  '--k',
+  '--linkage',
+  '--metric',
+  '--scale',
+  '--missing',
+  '--log',
+  '--seed',
+  '--restarts',
+  '--note',
+  '--out',
+  '--for',
+  '--silhouette',
+  '--table',
+  '--id-column',
+  '--help',
+  '-h',
+  '--',
+  '-',
+  '--k=2',
+  '--__proto__',
+  '--constructor',
+  '--toString',
+  '--out=x',
+  '--for=database',
+  'rider',
+  'trips',
+  'peak',
+  'trips,peak',
+  'trips,,peak',
+  'kmeans',
+  'kmedoids',
+  'hierarchy',
+  'ward',
+  'euclidean',
+  'manhattan',
+  'zscore',
+  'drop',
+  'median',
+  'spreadsheet',
+  'database',
+  'sample',
+  'full',
+  '2',
+  '3',
+  '0',
+  '-1',
+  '1e3',
+  '99999',
+  'NaN',
+  '',
+  ' ',
+  'x\u001b[2J',
+  'a\nb',
+  '\r',
+  'é名😀',
+  '\u202e',
+  'x'.repeat(300),
 ];
 const FILES = ['d.csv', 'evil.csv', 'def.json', 'fifo', 'absent.csv', 'folder/'].map((f) => (f === 'folder/' ? dir : at(f)));
-const token = fc.oneof(fc.constantFrom(...WORDS), fc.constantFrom(...FILES), fc.constantFrom('/dev/zero', '/proc/nope/x.json'), fc.string({ maxLength: 6 }));
+const token = fc.oneof(
+  fc.constantFrom(...WORDS),
+  fc.constantFrom(...FILES),
+  fc.constantFrom('/dev/zero', '/proc/nope/x.json'),
+  fc.string({ maxLength: 6 }),
+);
 
 /** Every --out value goes into the temporary folder. */
 function confine(args: string[]): string[] {
@@ -79,7 +153,9 @@ describe('command-line argument fuzz (run() in-process, bounded time, seeded)', 
     fc.assert(
       fc.property(fc.integer({ min: 0, max: base.length }), fc.array(token, { maxLength: 3 }), fc.boolean(), (where, extra, swap) => {
         runs++;
-        const args = confine(swap ? ['assign', at('def.json'), at('evil.csv'), ...extra] : [...base.slice(0, where), ...extra, ...base.slice(where)]);
+        const args = confine(
+          swap ? ['assign', at('def.json'), at('evil.csv'), ...extra] : [...base.slice(0, where), ...extra, ...base.slice(where)],
+        );
         let err = '';
         const status = run(args, { out: () => {}, err: (t) => void (err += t) });
         expect([0, 2]).toContain(status);

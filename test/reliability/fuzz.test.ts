@@ -14,10 +14,33 @@ const budget = (seed: number) => ({ seed, numRuns: 1_000_000, interruptAfterTime
 
 const DELIMITERS = [',', ';', '\t'] as const;
 const ENDINGS = ['\n', '\r\n', '\r'];
-const PIECES = ['"', '""', ',', ';', '\t', '\n', '\r\n', '\r', ' ', 'a', 'é', '名', '😀', '\u200b', '\uFEFF', '1', '-', '.', 'e5', 'NA', 'x'];
+const PIECES = [
+  '"',
+  '""',
+  ',',
+  ';',
+  '\t',
+  '\n',
+  '\r\n',
+  '\r',
+  ' ',
+  'a',
+  'é',
+  '名',
+  '😀',
+  '\u200b',
+  '\uFEFF',
+  '1',
+  '-',
+  '.',
+  'e5',
+  'NA',
+  'x',
+];
 
 /** Text of any shape built from the pieces that matter to a CSV reader. */
-const chaos = fc.tuple(fc.boolean(), fc.array(fc.oneof(fc.constantFrom(...PIECES), fc.string({ maxLength: 3, unit: 'binary' })), { maxLength: 60 }))
+const chaos = fc
+  .tuple(fc.boolean(), fc.array(fc.oneof(fc.constantFrom(...PIECES), fc.string({ maxLength: 3, unit: 'binary' })), { maxLength: 60 }))
   .map(([bom, parts]) => (bom ? '\uFEFF' : '') + parts.join(''));
 
 function quoteField(value: string, delimiter: string): string {
@@ -30,7 +53,10 @@ const wellFormed = fc
     delimiter: fc.constantFrom(...DELIMITERS),
     bom: fc.boolean(),
     endings: fc.array(fc.constantFrom(...ENDINGS), { minLength: 12, maxLength: 12 }),
-    payloads: fc.array(fc.array(fc.constantFrom(...PIECES.filter((p) => p !== '\uFEFF')), { maxLength: 8 }).map((p) => `x${p.join('')}x`), { minLength: 1, maxLength: 10 }),
+    payloads: fc.array(
+      fc.array(fc.constantFrom(...PIECES.filter((p) => p !== '\uFEFF')), { maxLength: 8 }).map((p) => `x${p.join('')}x`),
+      { minLength: 1, maxLength: 10 },
+    ),
     numbers: fc.array(fc.double({ noNaN: true, noDefaultInfinity: true, min: -1e6, max: 1e6 }), { minLength: 10, maxLength: 10 }),
   })
   .map(({ delimiter, bom, endings, payloads, numbers }) => {
@@ -78,9 +104,53 @@ describe('CSV intake fuzz (readTable on generated text, bounded time, seeded)', 
 
 /** Cells that test the text rule: codes, exponents, signs, whitespace of every kind, markers in every case, unicode, comma numbers, true/false spellings. */
 const ADVERSARIAL = [
-  '007', '01', '1', '1.0', '1e3', '1000', '-0', '0', '+5', '.5', '1.', '1,5', '1,234', 'Infinity', '-inf', '0x10',
-  ' 5 ', '\t5', '5\u00a0', '\u3000', ' ', 'NA', 'na', ' NA ', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'NAN', 'null', 'NULL', 'Null',
-  'TRUE', 'True', 'false', 'é', 'e\u0301', '名', '😀', '\u200b', 'a"b', 'x,y', 'line\nbreak', '12345678901234567890', '1e-17', '1e300',
+  '007',
+  '01',
+  '1',
+  '1.0',
+  '1e3',
+  '1000',
+  '-0',
+  '0',
+  '+5',
+  '.5',
+  '1.',
+  '1,5',
+  '1,234',
+  'Infinity',
+  '-inf',
+  '0x10',
+  ' 5 ',
+  '\t5',
+  '5\u00a0',
+  '\u3000',
+  ' ',
+  'NA',
+  'na',
+  ' NA ',
+  'N/A',
+  'n/a',
+  '#N/A',
+  'NaN',
+  'nan',
+  'NAN',
+  'null',
+  'NULL',
+  'Null',
+  'TRUE',
+  'True',
+  'false',
+  'é',
+  'e\u0301',
+  '名',
+  '😀',
+  '\u200b',
+  'a"b',
+  'x,y',
+  'line\nbreak',
+  '12345678901234567890',
+  '1e-17',
+  '1e300',
 ];
 const adversarialCell = fc.oneof(fc.constantFrom(...ADVERSARIAL), fc.double({ noNaN: true, noDefaultInfinity: true }).map(String));
 
@@ -93,7 +163,10 @@ describe('CSV intake fuzz: the text rule families (ids, codes, whitespace, marke
     let fitted = 0;
     fc.assert(
       fc.property(
-        fc.array(fc.tuple(adversarialCell, adversarialCell, fc.double({ noNaN: true, noDefaultInfinity: true, min: -100, max: 100 })), { minLength: 4, maxLength: 12 }),
+        fc.array(fc.tuple(adversarialCell, adversarialCell, fc.double({ noNaN: true, noDefaultInfinity: true, min: -100, max: 100 })), {
+          minLength: 4,
+          maxLength: 12,
+        }),
         (rows) => {
           runs++;
           const ids = rows.map(([id], i) => `${id}#${i}`);
@@ -135,7 +208,8 @@ describe('CSV intake fuzz: the text rule families (ids, codes, whitespace, marke
         fc.uint8Array({ maxLength: 40 }),
         (rows, trailing, bytes) => {
           runs++;
-          const text = ',a,b\n' + rows.map((r, i) => [String(i + 1), ...r].map(quote).join(',')).join('\n') + '\n' + ',,\n'.repeat(trailing);
+          const text =
+            ',a,b\n' + rows.map((r, i) => [String(i + 1), ...r].map(quote).join(',')).join('\n') + '\n' + ',,\n'.repeat(trailing);
           onlyKinsortErrors(() => {
             const t = readTable(text);
             expect(t.columns[0].name).toBe('row_name');
@@ -145,7 +219,11 @@ describe('CSV intake fuzz: the text rule families (ids, codes, whitespace, marke
           // Any bytes: text, or a KinsortError naming the encoding problem; never U+FFFD put in silently.
           const decoded = onlyKinsortErrors(() => {
             const s = decodeCsvBytes(bytes, 'fuzz');
-            expect(Buffer.from(s, 'utf8').equals(Buffer.from(bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? bytes.subarray(3) : bytes))).toBe(true);
+            expect(
+              Buffer.from(s, 'utf8').equals(
+                Buffer.from(bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? bytes.subarray(3) : bytes),
+              ),
+            ).toBe(true);
           });
           expect(typeof decoded).toBe('boolean');
         },
@@ -158,7 +236,12 @@ describe('CSV intake fuzz: the text rule families (ids, codes, whitespace, marke
 
 describe('definition loader fuzz (loadDefinition on mutated valid JSON, bounded time, seeded)', () => {
   const records = riders(80, 12);
-  const seg = study(records, { id: 'rider', use: ['trips', 'peak', 'tenure', 'fare', 'autopay', 'band'], keep: ['postcode'], ordinalLevels: { band: ['low', 'mid', 'high'] } })
+  const seg = study(records, {
+    id: 'rider',
+    use: ['trips', 'peak', 'tenure', 'fare', 'autopay', 'band'],
+    keep: ['postcode'],
+    ordinalLevels: { band: ['low', 'mid', 'high'] },
+  })
     .prepare({ missing: 'median' })
     .kmeans({ k: 3, seed: 1, restarts: 2 });
   const text = seg.definition().toJSON();
@@ -173,7 +256,17 @@ describe('definition loader fuzz (loadDefinition on mutated valid JSON, bounded 
   const strange = fc.oneof(
     fc.constantFrom('NaN', 'Infinity', '-Infinity', '1e999', '', ' ', '__proto__', 'constructor', '-0', '0x10'),
     // Tampering families: control characters, names that clash in case, duplicated levels.
-    fc.constantFrom('a\nCREATE TABLE pwned AS SELECT 1; --', 'x\u0000y', '\u001b[2J', 'Trips', 'TRIPS', 'standard', 'kinsort-text-0', 'ascii-case', ','),
+    fc.constantFrom(
+      'a\nCREATE TABLE pwned AS SELECT 1; --',
+      'x\u0000y',
+      '\u001b[2J',
+      'Trips',
+      'TRIPS',
+      'standard',
+      'kinsort-text-0',
+      'ascii-case',
+      ',',
+    ),
     fc.constantFrom(1e308, -1e308, 5e-324, -0, 0, -1, -5, 1.5, 2 ** 53, 0.5, 1e300),
     fc.constantFrom(['standard', 'standard'], ['yes', 'yes'], ['low', 'high'], { __proto__: null, polluted: true }),
     fc.constantFrom(null, true, false, [], {}, [null], [[]], { kind: 'x' }),

@@ -17,7 +17,9 @@ import { refusal } from './helpers';
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-hostile-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-const seg = study(riders(60, 3), { id: 'rider', use: ['trips', 'peak', 'tenure'] }).prepare({}).kmeans({ k: 3, seed: 1, restarts: 2 });
+const seg = study(riders(60, 3), { id: 'rider', use: ['trips', 'peak', 'tenure'] })
+  .prepare({})
+  .kmeans({ k: 3, seed: 1, restarts: 2 });
 
 describe('one rule for every save(): folders made, failures a KinsortError naming the path, no hang', () => {
   it('a view, a write-up (HTML and Markdown) and a definition all create missing folders', () => {
@@ -36,7 +38,7 @@ describe('one rule for every save(): folders made, failures a KinsortError namin
     expect(loadDefinition(targets.def).definition.segments).toHaveLength(3);
   });
 
-  it('/proc/nope/y.html: a refusal naming the path, not a hang (node\'s recursive mkdir loops there)', () => {
+  it("/proc/nope/y.html: a refusal naming the path, not a hang (node's recursive mkdir loops there)", () => {
     for (const save of [
       (p: string) => seg.cards().save(p),
       (p: string) => seg.silhouette().save(p),
@@ -123,7 +125,14 @@ describe('k above the distinct rows', () => {
   });
 
   it('a hierarchy cut will not split identical rows; at most the distinct count is allowed', () => {
-    const rows = [[0, 0], [0, 0], [0, 0], [5, 1], [5, 1], [9, 9]];
+    const rows = [
+      [0, 0],
+      [0, 0],
+      [0, 0],
+      [5, 1],
+      [5, 1],
+      [9, 9],
+    ];
     for (const method of ['ward', 'average', 'single'] as const) {
       const tree = agglomerate(rows, { method });
       refusal(() => tree.cut({ k: 4 }), 'height 0', 'at most 3');
@@ -143,7 +152,9 @@ describe('Ward from rows says how much work is coming, then reports progress', (
     expect(events[0].detail).toContain('ward linkage on 300 rows: about 90,000 distance evaluations');
     expect(events.at(-1)!.done).toBe(299);
     const fluent: string[] = [];
-    study(riders(40, 2), { id: 'rider', use: ['trips', 'peak'] }).prepare({}).agglomerate({ method: 'ward', onProgress: (e) => fluent.push(e.detail ?? '') });
+    study(riders(40, 2), { id: 'rider', use: ['trips', 'peak'] })
+      .prepare({})
+      .agglomerate({ method: 'ward', onProgress: (e) => fluent.push(e.detail ?? '') });
     expect(fluent[0]).toMatch(/^ward linkage on 40 rows/);
   });
 

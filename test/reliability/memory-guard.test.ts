@@ -37,7 +37,10 @@ describe('over the budget: refused before allocating, with the size and the alte
     for (const method of ['average', 'complete', 'weighted'] as const) refusal(() => agglomerate(rows, { method }), ...SIZE);
   });
   it('the fluent layer: kmedoids, average linkage and the dissimilarity', () => {
-    const s = study(rows.map((r, i) => ({ id: `r${i}`, a: r[0], b: r[1], c: r[2] })), { id: 'id' }).prepare();
+    const s = study(
+      rows.map((r, i) => ({ id: `r${i}`, a: r[0], b: r[1], c: r[2] })),
+      { id: 'id' },
+    ).prepare();
     refusal(() => s.kmedoids({ k: 3 }), ...SIZE);
     refusal(() => s.agglomerate({ method: 'average' }), ...SIZE);
     refusal(() => s.dissimilarity({ metric: 'euclidean' }), ...SIZE);

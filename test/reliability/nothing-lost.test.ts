@@ -50,7 +50,9 @@ describe('row counts through intake → preparation → fitting → assignment �
     expect(table.rowCount).toBe(160);
 
     // Preparation with the drop policy: kept + dropped = input, disjoint, each dropped with a reason.
-    const s = study(table, { id: 'rider', use: ['trips', 'peak', 'tenure', 'fare', 'autopay'], keep: ['postcode'] }).prepare({ missing: 'drop' });
+    const s = study(table, { id: 'rider', use: ['trips', 'peak', 'tenure', 'fare', 'autopay'], keep: ['postcode'] }).prepare({
+      missing: 'drop',
+    });
     const rep = s.report;
     expect(rep.inputRows).toBe(160);
     expect(rep.keptRows + rep.dropped.length).toBe(160);

@@ -25,13 +25,17 @@ console.log(JSON.stringify(after));
 `;
 
 describe('memory handed to worker threads and kept for WebAssembly kernels', () => {
-  it.skipIf(!built)('is released after each call: repeated dissimilarity and k-means calls do not grow the process', () => {
-    const out = execFileSync(process.execPath, ['--expose-gc', '-e', SCRIPT], { encoding: 'utf8', timeout: 120_000 });
-    const rss: number[] = JSON.parse(out.trim().split('\n').pop()!);
-    const dissimilarityGrowth = rss[7] - rss[1];
-    const kmeansGrowth = rss[15] - rss[9];
-    // Kept, each call would add 64 MB (dissimilarity) and about 17 MB (k-means memory): 384 and 100 MB here.
-    expect(dissimilarityGrowth).toBeLessThan(100);
-    expect(kmeansGrowth).toBeLessThan(40);
-  }, 150_000);
+  it.skipIf(!built)(
+    'is released after each call: repeated dissimilarity and k-means calls do not grow the process',
+    () => {
+      const out = execFileSync(process.execPath, ['--expose-gc', '-e', SCRIPT], { encoding: 'utf8', timeout: 120_000 });
+      const rss: number[] = JSON.parse(out.trim().split('\n').pop()!);
+      const dissimilarityGrowth = rss[7] - rss[1];
+      const kmeansGrowth = rss[15] - rss[9];
+      // Kept, each call would add 64 MB (dissimilarity) and about 17 MB (k-means memory): 384 and 100 MB here.
+      expect(dissimilarityGrowth).toBeLessThan(100);
+      expect(kmeansGrowth).toBeLessThan(40);
+    },
+    150_000,
+  );
 });

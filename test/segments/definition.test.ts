@@ -16,7 +16,14 @@ import { toNested } from '../../src/core/matrix';
 import { riders } from './definition-data';
 
 const USE = ['trips', 'peak', 'tenure', 'fare', 'autopay', 'band'];
-const PREPARE = { id: 'rider', use: USE, keep: ['postcode'], log: ['trips'], weights: { fare: 0.5 }, ordinalLevels: { band: ['low', 'mid', 'high'] } };
+const PREPARE = {
+  id: 'rider',
+  use: USE,
+  keep: ['postcode'],
+  log: ['trips'],
+  weights: { fare: 0.5 },
+  ordinalLevels: { band: ['low', 'mid', 'high'] },
+};
 
 function fitKmeans(records = riders(160, 11), note?: string) {
   const prepared = prepareTable(records, PREPARE);
@@ -72,7 +79,12 @@ describe('a definition built from k-means', () => {
     const handle = loadDefinition(definition);
     const rows = toNested(prepared.matrix);
     const order = rows.map((_, i) => i).reverse();
-    expect(handle.matchesTraining(order.map((i) => prepared.ids[i]), order.map((i) => rows[i]))).toBe(true);
+    expect(
+      handle.matchesTraining(
+        order.map((i) => prepared.ids[i]),
+        order.map((i) => rows[i]),
+      ),
+    ).toBe(true);
     const nudged = rows.map((r) => r.slice());
     nudged[5][0] += 1e-12;
     expect(handle.matchesTraining(prepared.ids, nudged)).toBe(false);
@@ -249,14 +261,18 @@ describe('loading a damaged or newer definition', () => {
       d.writtenBy = 'kinsort 9.0.0';
     });
     expect(() => loadDefinition(newer)).toThrow(
-      new RegExp(`written by kinsort 9\\.0\\.0, format ${DEFINITION_FORMAT_VERSION + 1}; this kinsort .* reads formats up to ${DEFINITION_FORMAT_VERSION} — upgrade`),
+      new RegExp(
+        `written by kinsort 9\\.0\\.0, format ${DEFINITION_FORMAT_VERSION + 1}; this kinsort .* reads formats up to ${DEFINITION_FORMAT_VERSION} — upgrade`,
+      ),
     );
   });
   it('names a missing key and its expected type', () => {
     expect(() => loadDefinition(edit((d) => delete d.training))).toThrow(/key "training" is missing \(expected an object\)/);
   });
   it('names a key of the wrong type', () => {
-    expect(() => loadDefinition(edit((d) => (d.segments[1].size = '40')))).toThrow(/segments\[1\]: key "size" holds string "40"; expected a finite number/);
+    expect(() => loadDefinition(edit((d) => (d.segments[1].size = '40')))).toThrow(
+      /segments\[1\]: key "size" holds string "40"; expected a finite number/,
+    );
   });
   it('finds damaged numbers: a centre too short or holding null (NaN written as JSON)', () => {
     expect(() => loadDefinition(edit((d) => d.segments[0].center.pop()))).toThrow(/segments\[0\]\.center: has \d+ numbers; expected \d+/);
@@ -283,7 +299,16 @@ describe('the loader under generated damage (fuzz, bounded)', () => {
     };
     walk(base, []);
     const sample = riders(8, 2);
-    const junk = fc.oneof(fc.constant(undefined), fc.constant(null), fc.double(), fc.string(), fc.integer(), fc.constant([]), fc.constant({}), fc.boolean());
+    const junk = fc.oneof(
+      fc.constant(undefined),
+      fc.constant(null),
+      fc.double(),
+      fc.string(),
+      fc.integer(),
+      fc.constant([]),
+      fc.constant({}),
+      fc.boolean(),
+    );
     fc.assert(
       fc.property(fc.integer({ min: 1, max: paths.length - 1 }), junk, fc.integer({ min: 0, max: text.length }), (p, value, cut) => {
         const d = JSON.parse(text);
@@ -330,20 +355,23 @@ describe('the writer', () => {
     const vec = fc.array(fc.double({ noNaN: true, noDefaultInfinity: true }), { minLength: dims, maxLength: dims });
     fc.assert(
       // Notes and titles are prose: line breaks and tabs allowed, other control characters refused (tested elsewhere).
-      fc.property(fc.array(vec, { minLength: 1, maxLength: 5 }), fc.string().map((t) => t.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, '')), (centers, note) => {
-        const d = {
-          ...base,
-          note,
-          training: { ...base.training, rows: centers.length, reproducedRows: 0 },
-          segments: centers.map((center, c) => ({ number: c + 1, title: note, size: 1, center, farBeyond: Math.abs(center[0]) })),
-        };
-        const once = writeDefinitionJson(readDefinition(writeDefinitionJson(d)));
-        expect(writeDefinitionJson(readDefinition(once))).toBe(once);
-        const read = readDefinition(once);
-        read.segments.forEach((s, c) => expect(s.center).toEqual(centers[c].map((v) => (Object.is(v, -0) ? 0 : v))));
-      }),
+      fc.property(
+        fc.array(vec, { minLength: 1, maxLength: 5 }),
+        fc.string().map((t) => t.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, '')),
+        (centers, note) => {
+          const d = {
+            ...base,
+            note,
+            training: { ...base.training, rows: centers.length, reproducedRows: 0 },
+            segments: centers.map((center, c) => ({ number: c + 1, title: note, size: 1, center, farBeyond: Math.abs(center[0]) })),
+          };
+          const once = writeDefinitionJson(readDefinition(writeDefinitionJson(d)));
+          expect(writeDefinitionJson(readDefinition(once))).toBe(once);
+          const read = readDefinition(once);
+          read.segments.forEach((s, c) => expect(s.center).toEqual(centers[c].map((v) => (Object.is(v, -0) ? 0 : v))));
+        },
+      ),
       { numRuns: 60 },
     );
   });
 });
-

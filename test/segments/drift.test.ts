@@ -81,12 +81,20 @@ describe('drift of new rows, worked by hand', () => {
 
 describe('unseen levels and filled values by column', () => {
   it('groups them by column with row counts', () => {
-    const rows = Array.from({ length: 12 }, (_, i) => ({ id: `T${i}`, x: i === 0 ? null : i % 6, fare: i % 2 ? 'adult' : 'student', zone: ['n', 's', 'e'][i % 3] }));
+    const rows = Array.from({ length: 12 }, (_, i) => ({
+      id: `T${i}`,
+      x: i === 0 ? null : i % 6,
+      fare: i % 2 ? 'adult' : 'student',
+      zone: ['n', 's', 'e'][i % 3],
+    }));
     const prepared = prepareTable(rows, { id: 'id', use: ['x', 'fare', 'zone'], missing: 'median' });
     const def = buildDefinition({
       preparation: prepared.preparation,
       method: { name: 'kmeans', options: {} },
-      centers: [prepared.matrix.data.slice(0, prepared.matrix.cols), prepared.matrix.data.slice(prepared.matrix.cols, 2 * prepared.matrix.cols)].map((c) => Array.from(c)),
+      centers: [
+        prepared.matrix.data.slice(0, prepared.matrix.cols),
+        prepared.matrix.data.slice(prepared.matrix.cols, 2 * prepared.matrix.cols),
+      ].map((c) => Array.from(c)),
       training: { ids: prepared.ids, matrix: prepared.matrix, assignment: rows.map((_, i) => i % 2) },
     });
     const fresh = [
@@ -97,7 +105,10 @@ describe('unseen levels and filled values by column', () => {
     ];
     const drift = loadDefinition(def).assign(fresh).drift();
     const zone = drift.columns.find((c) => c.column === 'zone')!;
-    expect(zone.unseenLevels).toEqual([{ level: 'w', rows: 2 }, { level: 'q', rows: 1 }]);
+    expect(zone.unseenLevels).toEqual([
+      { level: 'w', rows: 2 },
+      { level: 'q', rows: 1 },
+    ]);
     const x = drift.columns.find((c) => c.column === 'x')!;
     // Training x (row T0 missing): 1,2,3,4,5,0,1,2,3,4,5, sorted 0 1 1 2 2 3 3 4 4 5 5, median 3.
     expect(x.filled).toEqual({ value: 3, rows: 2 });
@@ -125,11 +136,17 @@ describe('the drift view', () => {
     const def = buildDefinition({
       preparation: prepared.preparation,
       method: { name: 'kmeans', options: {} },
-      centers: [Array.from(prepared.matrix.data.slice(0, prepared.matrix.cols)), Array.from(prepared.matrix.data.slice(prepared.matrix.cols * 9))],
+      centers: [
+        Array.from(prepared.matrix.data.slice(0, prepared.matrix.cols)),
+        Array.from(prepared.matrix.data.slice(prepared.matrix.cols * 9)),
+      ],
       segments: [{ number: 1, title: bad }],
       training: { ids: prepared.ids, matrix: prepared.matrix, assignment: rows.map((_, i) => (i < 5 ? 0 : 1)) },
     });
-    const html = loadDefinition(def).assign([{ id: bad, x: 3, zone: bad }]).drift().html();
+    const html = loadDefinition(def)
+      .assign([{ id: bad, x: 3, zone: bad }])
+      .drift()
+      .html();
     expect(html).not.toMatch(/<img/i);
     expect(html).not.toMatch(/<[^>]+\son[a-z]+\s*=/i);
     expect(html).toContain('&lt;img src=x');

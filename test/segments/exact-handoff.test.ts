@@ -42,8 +42,13 @@ describe('category levels keep their text', () => {
     expect(p.preparation.columns.find((c) => c.name === 'code')!.levels).toEqual(['01', '02', '1']);
     expect(p.profile.columns.zip).toEqual(['02134', '10001', '02134', '00501']);
     const seg = study('id,code,x,zip\na,01,1,02134\nb,1,2,10001\nc,02,9,02134\nd,1,8,00501\n', {
-      id: 'id', use: ['code', 'x'], keep: ['zip'], types: { code: 'categorical' },
-    }).prepare().kmeans({ k: 2, seed: 1 });
+      id: 'id',
+      use: ['code', 'x'],
+      keep: ['zip'],
+      types: { code: 'categorical' },
+    })
+      .prepare()
+      .kmeans({ k: 2, seed: 1 });
     const kept = seg.profiles().flatMap((p) => p.kept.map((k) => JSON.stringify(k)));
     expect(kept.join(' ')).toContain('02134');
     expect(seg.cards().html()).toContain('02134');
@@ -57,10 +62,18 @@ describe('category levels keep their text', () => {
   });
 
   it('tabs and no-break spaces are text; only ASCII spaces are trimmed, and only to read numbers and markers', () => {
-    const p = prepareTable({ id: ['a', 'b', 'c', 'd'], g: ['\tA', 'A', 'A\u00a0', 'A'], x: [' 5 ', '6', '7', '8'] }, { id: 'id', types: { g: 'categorical' } });
+    const p = prepareTable(
+      { id: ['a', 'b', 'c', 'd'], g: ['\tA', 'A', 'A\u00a0', 'A'], x: [' 5 ', '6', '7', '8'] },
+      { id: 'id', types: { g: 'categorical' } },
+    );
     expect(p.preparation.columns.find((c) => c.name === 'g')!.levels).toEqual(['\tA', 'A', 'A\u00a0']);
     expect(Array.from(p.mixed.columns.find((c) => c.name === 'x')!.values)).toEqual([5, 6, 7, 8]);
-    refusal(() => prepareTable({ id: ['a', 'b'], x: ['\t5', '6'] }, { id: 'id', types: { x: 'numeric' } }), 'row 1 (id "a")', 'column "x"', 'not a number');
+    refusal(
+      () => prepareTable({ id: ['a', 'b'], x: ['\t5', '6'] }, { id: 'id', types: { x: 'numeric' } }),
+      'row 1 (id "a")',
+      'column "x"',
+      'not a number',
+    );
   });
 });
 
@@ -100,7 +113,10 @@ describe('assign never re-infers from the batch', () => {
   });
 
   it('missing markers are the stored ones, compared after trimming ASCII spaces only', () => {
-    const med = study(train + '070,NA,north\n', { id: 'id' }).prepare({ missing: 'median' }).kmeans({ k: 2, seed: 3 }).definition();
+    const med = study(train + '070,NA,north\n', { id: 'id' })
+      .prepare({ missing: 'median' })
+      .kmeans({ k: 2, seed: 3 })
+      .definition();
     const out = med.assign('id,x,zone\na, nan ,north\nb,#N/A,north\nc,NULL,north\nd,\tNA,north\n');
     expect(out.report.imputed[0].ids).toEqual(['a', 'b', 'c']);
     expect(out.report.refused.map((r) => r.id)).toEqual(['d']);
@@ -157,7 +173,9 @@ describe('a definition reproduces its training rows, or says how far it does not
   const csv = toCsv(records);
 
   it('k-means stopped by maxIterations is settled: assign on the training rows gives the fitted segments', () => {
-    const seg = study(records, { id: 'rider', use: ['trips', 'peak', 'tenure'] }).prepare().kmeans({ k: 6, seed: 2, restarts: 1, maxIterations: 1, refine: false }); // transfers off: an early stop
+    const seg = study(records, { id: 'rider', use: ['trips', 'peak', 'tenure'] })
+      .prepare()
+      .kmeans({ k: 6, seed: 2, restarts: 1, maxIterations: 1, refine: false }); // transfers off: an early stop
     expect(seg.notes.join(' ')).toMatch(/stopped at maxIterations \(\d+\).*Lloyd step/);
     const def = seg.definition();
     expect(def.definition.training.reproducedRows).toBe(400);
@@ -181,7 +199,9 @@ describe('a definition reproduces its training rows, or says how far it does not
     expect(cut.describeMethod()).toContain(`gives ${agreement.reproduced} of the 400 training rows their segment`);
     const profiles = cut.profiles();
     expect(profiles.reduce((s, p) => s + p.rule!.reproduced, 0)).toBe(agreement.reproduced);
-    expect(cut.cards().html()).toMatch(/Definition<\/b>: its nearest-centre rule puts [\d.]+\u00a0% of these rows \(\d+ of \d+\) back in this segment/);
+    expect(cut.cards().html()).toMatch(
+      /Definition<\/b>: its nearest-centre rule puts [\d.]+\u00a0% of these rows \(\d+ of \d+\) back in this segment/,
+    );
     expect(cut.writeUp().markdown()).toContain(`gives ${agreement.reproduced} of the 400 training rows their segment`);
 
     const relabelled = cut.relabelByRule();
@@ -195,7 +215,9 @@ describe('a definition reproduces its training rows, or says how far it does not
   });
 
   it('k-medoids records its figure too', () => {
-    const seg = study(records.slice(0, 120), { id: 'rider', use: ['trips', 'peak', 'tenure'] }).prepare().kmedoids({ k: 3 });
+    const seg = study(records.slice(0, 120), { id: 'rider', use: ['trips', 'peak', 'tenure'] })
+      .prepare()
+      .kmedoids({ k: 3 });
     const def = seg.definition();
     expect(def.definition.training.reproducedRows).toBe(seg.ruleAgreement()!.reproduced);
   });
@@ -246,8 +268,15 @@ describe('everyday CSV files', () => {
 
 describe('names from the data are never object keys', () => {
   it('a column named __proto__ survives into the profiles and the cards', () => {
-    const text = 'id,trips,__proto__\n' + riders(40, 5).map((r, i) => `${r.rider},${r.trips},${i % 2 ? 'even' : 'odd'}`).join('\n') + '\n';
-    const seg = study(text, { id: 'id', use: ['trips'], keep: ['__proto__'] }).prepare().kmeans({ k: 2, seed: 1 });
+    const text =
+      'id,trips,__proto__\n' +
+      riders(40, 5)
+        .map((r, i) => `${r.rider},${r.trips},${i % 2 ? 'even' : 'odd'}`)
+        .join('\n') +
+      '\n';
+    const seg = study(text, { id: 'id', use: ['trips'], keep: ['__proto__'] })
+      .prepare()
+      .kmeans({ k: 2, seed: 1 });
     expect(Object.keys(seg.data.profile.columns)).toContain('__proto__');
     const kept = seg.profiles()[0].kept.map((k) => k.name);
     expect(kept).toContain('__proto__');
@@ -255,12 +284,17 @@ describe('names from the data are never object keys', () => {
   });
 
   it('column names that differ only in letter case are refused when the definition is built', () => {
-    const seg = study({ id: ['a', 'b', 'c', 'd'], X: [1, 2, 8, 9], x: [3, 1, 7, 8] }, { id: 'id' }).prepare().kmeans({ k: 2, seed: 1 });
+    const seg = study({ id: ['a', 'b', 'c', 'd'], X: [1, 2, 8, 9], x: [3, 1, 7, 8] }, { id: 'id' })
+      .prepare()
+      .kmeans({ k: 2, seed: 1 });
     refusal(() => seg.definition(), '"X" and "x" differ only in letter case');
   });
 
   it('the loaded definition is the stored one: loading and saving keep the schema byte for byte', () => {
-    const def = study(toCsv(riders(60, 4)), { id: 'rider', use: ['trips', 'fare', 'autopay'], keep: ['postcode'] }).prepare().kmeans({ k: 3, seed: 1 }).definition();
+    const def = study(toCsv(riders(60, 4)), { id: 'rider', use: ['trips', 'fare', 'autopay'], keep: ['postcode'] })
+      .prepare()
+      .kmeans({ k: 3, seed: 1 })
+      .definition();
     expect(loadDefinition(def.toJSON()).toJSON()).toBe(def.toJSON());
   });
 });

@@ -19,7 +19,10 @@ describe('profileSegments on text columns', () => {
   });
 
   it('keeps one indicator per level for three or more levels', () => {
-    const fareLevels = profiles[1].differences.filter((d) => d.variable === 'fare').map((d) => d.level).sort();
+    const fareLevels = profiles[1].differences
+      .filter((d) => d.variable === 'fare')
+      .map((d) => d.level)
+      .sort();
     expect(fareLevels).toEqual(['adult', 'senior', 'student']);
   });
 });

@@ -15,7 +15,8 @@ const rules = seg.rules({ depth: 4, minLeaf: 10 });
 const zoneRules = zoneRulesFor(training);
 
 function valuesSql(rows: Row[]): string {
-  const cell = (v: Row[string], numeric: boolean) => (v === null || v === undefined ? 'NULL' : numeric ? doubleLiteral(Number(v)) : quoteString(String(v)));
+  const cell = (v: Row[string], numeric: boolean) =>
+    v === null || v === undefined ? 'NULL' : numeric ? doubleLiteral(Number(v)) : quoteString(String(v));
   return rows.map((r) => `(${[...TEXT.map((c) => cell(r[c], false)), ...NUMERIC.map((c) => cell(r[c], true))].join(', ')})`).join(', ');
 }
 
@@ -23,7 +24,10 @@ describe.skipIf(!serverAvailable.clickhouse)('toSql on ClickHouse (Distributed o
   const ch = useServer('clickhouse');
   it('agrees with apply() on every training and new row', async () => {
     const [one, two] = ch.server.shards.map((s) => (sql: string) => clickhouseHttp(s.httpPort, sql));
-    const columns = [...TEXT.map((c) => `${quoteIdentifier(c)} Nullable(String)`), ...NUMERIC.map((c) => `${quoteIdentifier(c)} Nullable(Float64)`)].join(', ');
+    const columns = [
+      ...TEXT.map((c) => `${quoteIdentifier(c)} Nullable(String)`),
+      ...NUMERIC.map((c) => `${quoteIdentifier(c)} Nullable(Float64)`),
+    ].join(', ');
     for (const shard of [one, two]) await shard(`CREATE TABLE holders_local (${columns}) ENGINE = MergeTree() ORDER BY tuple()`);
     await one(`CREATE TABLE holders AS holders_local ENGINE = Distributed(${ch.server.cluster}, default, holders_local, rand())`);
     const rows = [...training, ...fresh];
@@ -32,7 +36,13 @@ describe.skipIf(!serverAvailable.clickhouse)('toSql on ClickHouse (Distributed o
     await two(`INSERT INTO holders_local VALUES ${valuesSql(rows.slice(half))}`);
     for (const set of [rules, zoneRules]) {
       const answer = await one(`${set.toSql({ table: 'holders', id: 'holder_id', dialect: 'clickhouse' })} FORMAT TabSeparated`);
-      const got = new Map(answer.trim().split('\n').map((line) => line.split('\t')).map(([id, s]) => [id, Number(s)]));
+      const got = new Map(
+        answer
+          .trim()
+          .split('\n')
+          .map((line) => line.split('\t'))
+          .map(([id, s]) => [id, Number(s)]),
+      );
       const want = set.apply(rows);
       expect(got.size).toBe(rows.length);
       let mismatches = 0;

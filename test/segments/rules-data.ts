@@ -37,12 +37,31 @@ export function newRows(training: Row[]): Row[] {
   });
 }
 
-export const NUMERIC = ['trips_per_week', 'peak_share', 'weekend_share', 'avg_trip_km', 'topups_per_month', 'tenure_months', 'monthly_spend'];
+export const NUMERIC = [
+  'trips_per_week',
+  'peak_share',
+  'weekend_share',
+  'avg_trip_km',
+  'topups_per_month',
+  'tenure_months',
+  'monthly_spend',
+];
 export const TEXT = ['holder_id', 'fare_type', 'autopay', 'home_zone', 'age_band'];
 
 /** Rules that must split on the zone whose name needs quoting (segments made from the zone and trips). */
 export function zoneRulesFor(training: Row[]): SegmentRules {
-  const truth = Int32Array.from(training.map((r) => (r.home_zone === AWKWARD_ZONE || r.home_zone === 'Outer Vale' ? 0 : (r.trips_per_week as number) > 10 ? 2 : 1)));
-  const specs = [specFromCells('home_zone', training.map((r) => r.home_zone)), specFromCells('trips_per_week', training.map((r) => r.trips_per_week))];
+  const truth = Int32Array.from(
+    training.map((r) => (r.home_zone === AWKWARD_ZONE || r.home_zone === 'Outer Vale' ? 0 : (r.trips_per_week as number) > 10 ? 2 : 1)),
+  );
+  const specs = [
+    specFromCells(
+      'home_zone',
+      training.map((r) => r.home_zone),
+    ),
+    specFromCells(
+      'trips_per_week',
+      training.map((r) => r.trips_per_week),
+    ),
+  ];
   return fitRules({ specs, cells: specs.map((s) => training.map((r) => r[s.name])), assignment: truth, k: 3 }, { depth: 3, minLeaf: 5 });
 }

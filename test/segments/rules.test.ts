@@ -78,7 +78,10 @@ describe('seg.rules()', () => {
     const sql = rules.toSql({ table: 'pass "holders"', id: 'holder_id' });
     expect(sql).toMatch(/^SELECT "holder_id", CASE\n/);
     expect(sql).toContain('FROM "pass ""holders"""');
-    const fake = rulesSql([{ segment: 1, conditions: [{ column: 'home_zone', test: 'oneOf', levels: [AWKWARD_ZONE], orMissing: false }] }], { table: 't' });
+    const fake = rulesSql(
+      [{ segment: 1, conditions: [{ column: 'home_zone', test: 'oneOf', levels: [AWKWARD_ZONE], orMissing: false }] }],
+      { table: 't' },
+    );
     expect(fake).toContain(`"home_zone" IN ('Harbour''s "Quay" — Süd')`);
   });
 

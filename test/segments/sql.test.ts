@@ -166,7 +166,11 @@ describe('SQL text', () => {
     expect(quoteString("it's")).toBe("'it''s'");
     // Unicode and very long ids travel through CSV, DuckDB and back unchanged.
     const idOf = (id: string, i: number) => (i % 3 === 0 ? `${id}-Zürich-東京-🚇` : i % 3 === 1 ? id + 'x'.repeat(400) : id);
-    const records = riders(60, 61).map((r, i) => ({ 'rider "id"': idOf(r.rider, i), 'trips; DROP TABLE x': r.trips, "fare'type": r.fare === 'student' ? "o'brien" : r.fare }));
+    const records = riders(60, 61).map((r, i) => ({
+      'rider "id"': idOf(r.rider, i),
+      'trips; DROP TABLE x': r.trips,
+      "fare'type": r.fare === 'student' ? "o'brien" : r.fare,
+    }));
     const prepared = prepareTable(records, { id: 'rider "id"', use: ['trips; DROP TABLE x', "fare'type"] });
     const result = kmeans(prepared.matrix, { k: 2, seed: 1 });
     const handle = loadDefinition(

@@ -10,7 +10,7 @@ describe.skipIf(!serverAvailable.postgres)('PostgreSQL 15 on loopback', () => {
     const client = new Client({ connectionString: pg.server.url });
     await client.connect();
     try {
-      const { rows } = await client.query('SELECT split_part(version(), \' \', 2) AS v, 1.5::float8 * 2 AS x');
+      const { rows } = await client.query("SELECT split_part(version(), ' ', 2) AS v, 1.5::float8 * 2 AS x");
       expect(rows[0].v).toMatch(/^15\./);
       expect(rows[0].x).toBe(3);
     } finally {

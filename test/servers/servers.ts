@@ -3,7 +3,7 @@
 // Where Debian's server programs are absent the engine's tests are skipped with the reason, unless
 // KINSORT_REQUIRE_SERVERS=1 (set by .ci/run), which turns a missing server into a failure.
 import { afterAll, beforeAll } from 'vitest';
-// eslint-disable-next-line @typescript-eslint/no-require-imports
+
 const servers = require('../../scripts/db-servers.js') as {
   startPostgres(): Promise<PostgresServer>;
   startClickHouse(): Promise<ClickHouseServer>;

@@ -22,7 +22,11 @@ describe('prepared.variableTree()', () => {
     // Twin: the same columns from the table, on the rows the 'drop' policy kept.
     const records = readTable(csv);
     const kept = new Set(prepared.data.rowNumbers);
-    const table = { ...records, rowCount: kept.size, columns: records.columns.map((c) => ({ ...c, values: c.values.filter((_, i) => kept.has(i)) })) };
+    const table = {
+      ...records,
+      rowCount: kept.size,
+      columns: records.columns.map((c) => ({ ...c, values: c.values.filter((_, i) => kept.has(i)) })),
+    };
     const twin = variableTree(table, { columns: names });
     expect(vars.tree.merges.map((m) => [m.left, m.right])).toEqual(twin.merges.map((m) => [m.left, m.right]));
     vars.tree.merges.forEach((m, i) => expect(m.height).toBeCloseTo(twin.merges[i].height, 12));
@@ -47,7 +51,14 @@ describe('prepared.variableTree()', () => {
     expect(h.caption).toMatch(/4 framed, numbered squares/);
     expect(h.html()).toContain('Left out: fare_type');
     expect(h.html()).toMatch(/autopay entered as binary: &quot;no&quot; = 0, &quot;yes&quot; = 1/);
-    const odd = study([{ '<b>a': 1, b: 2 }, { '<b>a': 2, b: 1 }, { '<b>a': 3, b: 5 }, { '<b>a': 4, b: 3 }]).prepare().variableTree();
+    const odd = study([
+      { '<b>a': 1, b: 2 },
+      { '<b>a': 2, b: 1 },
+      { '<b>a': 3, b: 5 },
+      { '<b>a': 4, b: 3 },
+    ])
+      .prepare()
+      .variableTree();
     expect(odd.heatmap().html()).not.toContain('<b>a');
     expect(odd.heatmap().html()).toContain('&lt;b&gt;a');
   });

@@ -40,7 +40,9 @@ describe('input shapes', () => {
 
   test('CSV text gives the same table as records, numbers kept as their text', () => {
     const t = readTable('id,trips,fare,peak\nr1,3,adult,true\nr2,5.5,student,false\nr3,8,senior,true\n');
-    expect(plain(t)).toEqual(expected.map(([n, v, type]) => [n, (v as unknown[]).map((x) => (typeof x === 'number' ? String(x) : x)), type]));
+    expect(plain(t)).toEqual(
+      expected.map(([n, v, type]) => [n, (v as unknown[]).map((x) => (typeof x === 'number' ? String(x) : x)), type]),
+    );
     expect(t.columns.map((c) => c.inferred)).toEqual(readTable(records).columns.map((c) => c.inferred));
   });
 
@@ -49,7 +51,9 @@ describe('input shapes', () => {
     const columns = ['id', 'trips', 'fare', 'peak'];
     expect(plain(readTable({ columns, values }))).toEqual(expected);
     expect(plain(readTable({ $columns: columns, $data: values }))).toEqual(expected);
-    expect(() => readTable({ columns, values: [values[0], values[1].slice(0, 3)] })).toThrow(/row 2 has 3 values but there are 4 column names/);
+    expect(() => readTable({ columns, values: [values[0], values[1].slice(0, 3)] })).toThrow(
+      /row 2 has 3 values but there are 4 column names/,
+    );
   });
 
   test('a real arquero 7 table (columnNames() + array(name))', () => {

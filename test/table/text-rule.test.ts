@@ -17,9 +17,43 @@ const markers = new Set(DEFAULT_MISSING_MARKERS);
 
 describe('text rule kinsort-text-1', () => {
   it('numbers: the plain notation only, after trimming ASCII spaces', () => {
-    const yes: [string, number][] = [['0', 0], ['-0', -0], ['7', 7], ['-2.5', -2.5], ['1e3', 1000], ['1E-3', 0.001], ['1.0', 1], [' 5 ', 5], ['12345678901234567890', 12345678901234567890]];
+    const yes: [string, number][] = [
+      ['0', 0],
+      ['-0', -0],
+      ['7', 7],
+      ['-2.5', -2.5],
+      ['1e3', 1000],
+      ['1E-3', 0.001],
+      ['1.0', 1],
+      [' 5 ', 5],
+      ['12345678901234567890', 12345678901234567890],
+    ];
     for (const [t, v] of yes) expect(cellNumber(t), t).toBe(v);
-    const no = ['', ' ', '+5', '007', '01', '.5', '1.', 'Infinity', '-Infinity', 'inf', 'NaN', '0x10', '1,5', '1,234', '\t5', '5\t', '\u00a05', '1e', '1e+', '--1', '1 000', '1e999', '١٢'];
+    const no = [
+      '',
+      ' ',
+      '+5',
+      '007',
+      '01',
+      '.5',
+      '1.',
+      'Infinity',
+      '-Infinity',
+      'inf',
+      'NaN',
+      '0x10',
+      '1,5',
+      '1,234',
+      '\t5',
+      '5\t',
+      '\u00a05',
+      '1e',
+      '1e+',
+      '--1',
+      '1 000',
+      '1e999',
+      '١٢',
+    ];
     for (const t of no) expect(cellNumber(t), JSON.stringify(t)).toBeUndefined();
     expect(cellNumber('1,5', ',')).toBe(1.5);
     expect(cellNumber('1.5', ',')).toBeUndefined();
@@ -29,8 +63,10 @@ describe('text rule kinsort-text-1', () => {
   });
 
   it('missing: empty, ASCII spaces only, or a marker after trimming ASCII spaces; nothing else', () => {
-    for (const t of ['', '   ', 'NA', ' NA ', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'null', 'NULL']) expect(isMissingText(t, markers), JSON.stringify(t)).toBe(true);
-    for (const t of ['na', 'Null', 'None', '-', '\tNA', 'NA\u00a0', '\t', '\u00a0', 'NAN', '.']) expect(isMissingText(t, markers), JSON.stringify(t)).toBe(false);
+    for (const t of ['', '   ', 'NA', ' NA ', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'null', 'NULL'])
+      expect(isMissingText(t, markers), JSON.stringify(t)).toBe(true);
+    for (const t of ['na', 'Null', 'None', '-', '\tNA', 'NA\u00a0', '\t', '\u00a0', 'NAN', '.'])
+      expect(isMissingText(t, markers), JSON.stringify(t)).toBe(false);
   });
 
   it('trimming removes U+0020 only', () => {

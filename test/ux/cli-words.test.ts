@@ -9,7 +9,19 @@ const DATA = resolve(__dirname, '../../demo-data/pass-holders.csv');
 function fit(extra: string[]): { status: number; err: string } {
   let err = '';
   const status = run(
-    ['fit', DATA, '--id', 'holder_id', '--use', 'trips_per_week,peak_share', '--k', '3', '--out', '/nonexistent/never-written.json', ...extra],
+    [
+      'fit',
+      DATA,
+      '--id',
+      'holder_id',
+      '--use',
+      'trips_per_week,peak_share',
+      '--k',
+      '3',
+      '--out',
+      '/nonexistent/never-written.json',
+      ...extra,
+    ],
     { out: () => undefined, err: (t) => void (err += t) },
   );
   return { status, err };

@@ -71,7 +71,9 @@ describe('values in the column units', () => {
 
 describe('the caution', () => {
   it('appears once on the write-up page', () => {
-    const seg = study(rows, { id: 'id', use: ['trips', 'peak'] }).prepare({}).kmeans({ k: 2, seed: 1 });
+    const seg = study(rows, { id: 'id', use: ['trips', 'peak'] })
+      .prepare({})
+      .kmeans({ k: 2, seed: 1 });
     const page = seg.writeUp().html();
     expect(page.match(/protected/gi)).toHaveLength(1);
     expect(profileCardsView(profiles(), { caution: false }).fragment()).not.toContain('<p class="ks-caution">');

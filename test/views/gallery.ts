@@ -86,14 +86,31 @@ export function allViews(hostile = false) {
       gap: 0.5 + Math.min(k, 3) * 0.2 - (k > 3 ? 0.02 * k : 0),
       gapSE: 0.04,
       stabilityBySegment: Array.from({ length: k }, (_, s) => (k <= 3 ? 0.97 - 0.02 * s : 0.9 - 0.1 * s)),
-      get stability() { return this.stabilityBySegment.reduce((a, b) => a + b, 0) / k; },
-      get weakestStability() { return Math.min(...this.stabilityBySegment); },
+      get stability() {
+        return this.stabilityBySegment.reduce((a, b) => a + b, 0) / k;
+      },
+      get weakestStability() {
+        return Math.min(...this.stabilityBySegment);
+      },
     })),
     recommended: 3,
     headline: "k = 3 recommended: every segment stable, the gap statistic's pick, where the within-SS also bends",
-    reasons: ['Silhouette, Calinski–Harabasz and Davies–Bouldin all favour k = 3.', 'The gap statistic first reaches within one SE of the next k at k = 3.'],
+    reasons: [
+      'Silhouette, Calinski–Harabasz and Davies–Bouldin all favour k = 3.',
+      'The gap statistic first reaches within one SE of the next k at k = 3.',
+    ],
     byCriterion: { silhouette: 3, calinskiHarabasz: 3, daviesBouldin: 3, gap: 3, knee: 3, stability: 3 },
   };
   const projection = handProjection(rows);
-  return { rows, assignment, ids, tree: treeWithLabels, sil, profiles, comparison, projection, dissimilarity: sampleDissimilarity(rows, ids) };
+  return {
+    rows,
+    assignment,
+    ids,
+    tree: treeWithLabels,
+    sil,
+    profiles,
+    comparison,
+    projection,
+    dissimilarity: sampleDissimilarity(rows, ids),
+  };
 }

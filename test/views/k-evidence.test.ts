@@ -12,12 +12,19 @@ const count = (text: string, pattern: RegExp) => (text.match(pattern) ?? []).len
 describe('kEvidenceView', () => {
   const blobs = compareK(fixture.gap.blobs.rows, { from: 2, to: 7, seed: 1 });
 
-  it('draws six panels, the rule\'s three first, each with its own pick ringed and the recommended k shaded', () => {
+  it("draws six panels, the rule's three first, each with its own pick ringed and the recommended k shaded", () => {
     const view = kEvidenceView(blobs);
     const svg = view.svg();
     expect(view.title).toBe(blobs.headline);
     const titles = [...svg.matchAll(/font-weight="650" fill="#[0-9a-f]{6}">([^<]+)<\/text>/g)].map((m) => m[1]);
-    expect(titles).toEqual(['Stability', 'Gap statistic', 'Within-segment SS', 'Average silhouette', 'Calinski–Harabasz', 'Davies–Bouldin']);
+    expect(titles).toEqual([
+      'Stability',
+      'Gap statistic',
+      'Within-segment SS',
+      'Average silhouette',
+      'Calinski–Harabasz',
+      'Davies–Bouldin',
+    ]);
     expect(count(svg, /◯ k = 4</g)).toBe(6); // every criterion picks 4 on these blobs
     expect(count(svg, /r="7.5" fill="none"/g)).toBe(6); // one ring per panel
     expect(count(svg, /fill-opacity="0.1"/g)).toBe(6); // the same band in every panel

@@ -5,7 +5,11 @@ import { describe, expect, it } from 'vitest';
 import { projectionView, heatmapView } from '../../src/views';
 import { sampleData, handProjection, sampleDissimilarity } from './gallery';
 
-const viewBox = (svg: string) => svg.match(/viewBox="0 0 ([\d.]+) ([\d.]+)"/)!.slice(1).map(Number);
+const viewBox = (svg: string) =>
+  svg
+    .match(/viewBox="0 0 ([\d.]+) ([\d.]+)"/)!
+    .slice(1)
+    .map(Number);
 
 describe('projection still', () => {
   it('keeps equal units on both axes and every legend entry inside the picture', () => {
@@ -24,7 +28,12 @@ describe('projection still', () => {
     const mean = (s: number, c: number) => {
       let t = 0;
       let m = 0;
-      for (let i = 0; i < rows.length; i++) if (k8[i] === s) (t += p.scores.data[i * 2 + c]), m++;
+      for (let i = 0; i < rows.length; i++) {
+        if (k8[i] === s) {
+          t += p.scores.data[i * 2 + c];
+          m++;
+        }
+      }
       return t / m;
     };
     const discs = [...svg.matchAll(/<circle cx="([\d.-]+)" cy="([\d.-]+)" r="10"/g)].map((m) => [Number(m[1]), Number(m[2])]);

@@ -6,9 +6,7 @@ import { profileSegments } from '../../src/segments/profile';
 import { quantileSorted } from '../../src/core/quantile';
 import { KinsortError } from '../../src/core/errors';
 
-const fixture = JSON.parse(
-  fs.readFileSync(path.join(__dirname, '../reference/fixtures/segment-profile.json'), 'utf8'),
-);
+const fixture = JSON.parse(fs.readFileSync(path.join(__dirname, '../reference/fixtures/segment-profile.json'), 'utf8'));
 
 describe('profileSegments against NumPy / SciPy (test/reference/segment-profile.py, data of our own making)', () => {
   const inp = fixture.inputs;
@@ -95,9 +93,7 @@ describe('profileSegments behaviour', () => {
 
   it('refuses bad input with clear messages', () => {
     expect(() => profileSegments({ assignment: [0, 1], features: [[1], [2], [3]] })).toThrow(/3/);
-    expect(() => profileSegments({ assignment: [0, 1], features: [[1], [2]], medoids: [1, 0] })).toThrow(
-      /medoid of segment 1 is row 2/,
-    );
+    expect(() => profileSegments({ assignment: [0, 1], features: [[1], [2]], medoids: [1, 0] })).toThrow(/medoid of segment 1 is row 2/);
     expect(() => profileSegments({ assignment: [0, 1], features: [[1], [2]], used: { a: [1] } })).toThrow(
       /column "a" has 1 values for 2 rows/,
     );
@@ -107,10 +103,16 @@ describe('profileSegments behaviour', () => {
   it('property: share-weighted segment means of a column equal the overall mean', () => {
     fc.assert(
       fc.property(
-        fc.array(fc.tuple(fc.integer({ min: 0, max: 3 }), fc.integer({ min: -1000, max: 1000 }).map((v) => v / 10)), {
-          minLength: 4,
-          maxLength: 40,
-        }),
+        fc.array(
+          fc.tuple(
+            fc.integer({ min: 0, max: 3 }),
+            fc.integer({ min: -1000, max: 1000 }).map((v) => v / 10),
+          ),
+          {
+            minLength: 4,
+            maxLength: 40,
+          },
+        ),
         (pairs) => {
           const values = pairs.map((p) => p[1]);
           if (new Set(values).size < 2) return;

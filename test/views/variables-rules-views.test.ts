@@ -27,15 +27,27 @@ function build() {
   const tree = variableTree(rows, { names });
   const zone = rows.map((r) => (r[0] > 0 ? LEVEL : 'plain'));
   const target = Int32Array.from(rows.map((r) => (r[0] > 0 ? 0 : r[2] > 0 ? 1 : 2)));
-  const specs = [specFromCells(HOSTILE, zone), specFromCells('b', rows.map((r) => r[2]))];
-  const rules = fitRules({ specs, cells: [zone, rows.map((r) => r[2])], assignment: target, k: 3, titles: { 1: HOSTILE } }, { depth: 2, minLeaf: 3 });
+  const specs = [
+    specFromCells(HOSTILE, zone),
+    specFromCells(
+      'b',
+      rows.map((r) => r[2]),
+    ),
+  ];
+  const rules = fitRules(
+    { specs, cells: [zone, rows.map((r) => r[2])], assignment: target, k: 3, titles: { 1: HOSTILE } },
+    { depth: 2, minLeaf: 3 },
+  );
   return { tree, rules };
 }
 
 describe('variable and rules views escape data', () => {
   const { tree, rules } = build();
   const views = [
-    correlationHeatmapView({ names: tree.names, correlation: tree.correlation, order: tree.order }, { assignment: tree.cut({ k: 2 }), notes: [`Left out: ${HOSTILE}`] }),
+    correlationHeatmapView(
+      { names: tree.names, correlation: tree.correlation, order: tree.order },
+      { assignment: tree.cut({ k: 2 }), notes: [`Left out: ${HOSTILE}`] },
+    ),
     variableGroupsView(tree.groups({ k: 2 })),
     rulesView(rules),
     rulesTreeView(labelledTree(rules.tree.root, rules.columns), { names: { 1: HOSTILE } }),

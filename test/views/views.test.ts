@@ -1,14 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { allViews, handProjection, sampleData, sampleDissimilarity } from './gallery';
-import {
-  dendrogramView,
-  heatmapView,
-  kEvidenceView,
-  profileCardsView,
-  projectionView,
-  screeView,
-  silhouetteView,
-} from '../../src/views';
+import { dendrogramView, heatmapView, kEvidenceView, profileCardsView, projectionView, screeView, silhouetteView } from '../../src/views';
 import { makeDissimilarity } from '../../src/measure/condensed';
 import { KinsortError } from '../../src/core/errors';
 import { everyNth } from '../../src/views/common';
@@ -32,23 +24,26 @@ function build(hostile: boolean) {
 
 describe('every view', () => {
   const { views } = build(false);
-  it.each(views.map((view) => [view.kind, view]))('%s has a title, a caption, a static stand-in and a complete offline page', (_kind, view) => {
-    expect(view.title.length).toBeGreaterThan(5);
-    expect(view.caption).toMatch(/\.$/);
-    const fragment = view.fragment();
-    expect(fragment).toContain('class="ks-static"');
-    expect(view.svg()).toMatch(/^<svg[\s\S]*<\/svg>$/);
-    const page = view.html();
-    expect(page.startsWith('<!doctype html>')).toBe(true);
-    // Offline: no external script, stylesheet or font.
-    expect(page).not.toMatch(/<script[^>]+src=/i);
-    expect(page).not.toMatch(/<link[^>]+href=/i);
-    // Cards, silhouettes and dendrograms are plain HTML / SVG only; every other view also has a live chart.
-    if (!['profile-cards', 'silhouette', 'dendrogram'].includes(view.kind)) {
-      expect(page.split('window.__kinsortDefine=window.define').length - 1).toBe(1);
-      expect(fragment).toContain('class="ks-live" hidden');
-    }
-  });
+  it.each(views.map((view) => [view.kind, view]))(
+    '%s has a title, a caption, a static stand-in and a complete offline page',
+    (_kind, view) => {
+      expect(view.title.length).toBeGreaterThan(5);
+      expect(view.caption).toMatch(/\.$/);
+      const fragment = view.fragment();
+      expect(fragment).toContain('class="ks-static"');
+      expect(view.svg()).toMatch(/^<svg[\s\S]*<\/svg>$/);
+      const page = view.html();
+      expect(page.startsWith('<!doctype html>')).toBe(true);
+      // Offline: no external script, stylesheet or font.
+      expect(page).not.toMatch(/<script[^>]+src=/i);
+      expect(page).not.toMatch(/<link[^>]+href=/i);
+      // Cards, silhouettes and dendrograms are plain HTML / SVG only; every other view also has a live chart.
+      if (!['profile-cards', 'silhouette', 'dendrogram'].includes(view.kind)) {
+        expect(page.split('window.__kinsortDefine=window.define').length - 1).toBe(1);
+        expect(fragment).toContain('class="ks-live" hidden');
+      }
+    },
+  );
 
   it('charts carry labelled axes in the static SVG', () => {
     const byKind = Object.fromEntries(views.map((v) => [v.kind, v.svg()]));

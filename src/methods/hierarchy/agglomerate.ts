@@ -79,7 +79,12 @@ export function agglomerate(input: RowsInput | Dissimilarity, options: Agglomera
 
 /** The first progress event, before any work: how much work is coming (work-estimate.ts). */
 function announce(progress: ProgressCallback | undefined, n: number, coordinates: number, method: string): void {
-  report(progress, { task: 'agglomerating', done: 0, total: Math.max(1, n - 1), detail: agglomerationWork(n, coordinates, method).summary });
+  report(progress, {
+    task: 'agglomerating',
+    done: 0,
+    total: Math.max(1, n - 1),
+    detail: agglomerationWork(n, coordinates, method).summary,
+  });
 }
 
 function fromRows(rows: Matrix, method: LinkageMethod, metric: MetricName, p: number | undefined, tick: MergeTick | undefined): Tree {
@@ -167,7 +172,13 @@ function fromDissimilarity(d: Dissimilarity, method: LinkageMethod, tick: MergeT
 }
 
 /** NN-chain on the condensed layout. `owned`: the array is ours to overwrite. Ward works on squares. */
-function nnChainCondensed(n: number, condensed: Float64Array, method: ReducibleMethod, owned: boolean, tick: MergeTick | undefined): RawMerges {
+function nnChainCondensed(
+  n: number,
+  condensed: Float64Array,
+  method: ReducibleMethod,
+  owned: boolean,
+  tick: MergeTick | undefined,
+): RawMerges {
   const work = owned ? condensed : Float64Array.from(condensed);
   if (method === 'ward') for (let k = 0; k < work.length; k++) work[k] *= work[k];
   return nnChainOnMatrix(n, work, method, tick);

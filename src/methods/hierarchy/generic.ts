@@ -119,9 +119,7 @@ export function matrixSpace(n: number, work: Float64Array, method: GenericMethod
         const dxi = work[at(i, x)];
         const dyi = work[at(i, y)];
         work[at(i, y)] =
-          method === 'centroid'
-            ? (nx * dxi + ny * dyi) / total - (nx * ny * dxy) / (total * total)
-            : 0.5 * dxi + 0.5 * dyi - 0.25 * dxy;
+          method === 'centroid' ? (nx * dxi + ny * dyi) / total - (nx * ny * dxy) / (total * total) : 0.5 * dxi + 0.5 * dyi - 0.25 * dxy;
       }
       sizes[y] = total;
     },

@@ -38,8 +38,8 @@ export function nnChain(n: number, steps: ChainSteps, tick?: MergeTick): RawMerg
 
   for (let k = 0; k < n - 1; k++) {
     if (chainLength === 0) chain[chainLength++] = active[0];
-    let x = 0;
-    let y = 0;
+    let x: number;
+    let y: number;
     for (;;) {
       x = chain[chainLength - 1];
       const predecessor = chainLength > 1 ? chain[chainLength - 2] : -1;

@@ -8,50 +8,65 @@ import { condensedRowStarts } from './condensed-rows';
 /** Prim over a condensed dissimilarity. Heights are the MST edge weights. */
 export function singleFromCondensed(n: number, condensed: Float64Array, tick?: MergeTick): RawMerges {
   const starts = condensedRowStarts(n);
-  return prim(n, (x, remaining, count, best, from) => {
-    for (let p = 0; p < count; p++) {
-      const i = remaining[p];
-      const d = i < x ? condensed[starts[i] + x] : condensed[starts[x] + i];
-      if (d < best[i]) {
-        best[i] = d;
-        from[i] = x;
+  return prim(
+    n,
+    (x, remaining, count, best, from) => {
+      for (let p = 0; p < count; p++) {
+        const i = remaining[p];
+        const d = i < x ? condensed[starts[i] + x] : condensed[starts[x] + i];
+        if (d < best[i]) {
+          best[i] = d;
+          from[i] = x;
+        }
       }
-    }
-  }, false, tick);
+    },
+    false,
+    tick,
+  );
 }
 
 /** Prim on rows with Euclidean distances computed on the fly (compared squared). */
 export function singleFromRowsEuclidean(n: number, dims: number, data: Float64Array, tick?: MergeTick): RawMerges {
-  return prim(n, (x, remaining, count, best, from) => {
-    const xo = x * dims;
-    for (let p = 0; p < count; p++) {
-      const i = remaining[p];
-      const io = i * dims;
-      let s = 0;
-      for (let t = 0; t < dims; t++) {
-        const diff = data[xo + t] - data[io + t];
-        s += diff * diff;
+  return prim(
+    n,
+    (x, remaining, count, best, from) => {
+      const xo = x * dims;
+      for (let p = 0; p < count; p++) {
+        const i = remaining[p];
+        const io = i * dims;
+        let s = 0;
+        for (let t = 0; t < dims; t++) {
+          const diff = data[xo + t] - data[io + t];
+          s += diff * diff;
+        }
+        if (s < best[i]) {
+          best[i] = s;
+          from[i] = x;
+        }
       }
-      if (s < best[i]) {
-        best[i] = s;
-        from[i] = x;
-      }
-    }
-  }, true, tick);
+    },
+    true,
+    tick,
+  );
 }
 
 /** Prim on rows with any pair function (other metrics). */
 export function singleFromPairs(n: number, pair: (i: number, j: number) => number, tick?: MergeTick): RawMerges {
-  return prim(n, (x, remaining, count, best, from) => {
-    for (let p = 0; p < count; p++) {
-      const i = remaining[p];
-      const d = pair(x, i);
-      if (d < best[i]) {
-        best[i] = d;
-        from[i] = x;
+  return prim(
+    n,
+    (x, remaining, count, best, from) => {
+      for (let p = 0; p < count; p++) {
+        const i = remaining[p];
+        const d = pair(x, i);
+        if (d < best[i]) {
+          best[i] = d;
+          from[i] = x;
+        }
       }
-    }
-  }, false, tick);
+    },
+    false,
+    tick,
+  );
 }
 
 type Relax = (x: number, remaining: Int32Array, count: number, best: Float64Array, from: Int32Array) => void;

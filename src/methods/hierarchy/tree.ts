@@ -175,7 +175,10 @@ export function buildTree(
     if (typeof given !== 'number' || Number.isNaN(given) || given < 0) {
       let top = 0;
       for (const merge of merges) top = Math.max(top, merge.height);
-      throw new KinsortError(`cut: height must be a number ≥ 0 (this tree's merges lie between 0 and ${top}); got ${describe(given)}.`, 'bad-option');
+      throw new KinsortError(
+        `cut: height must be a number ≥ 0 (this tree's merges lie between 0 and ${top}); got ${describe(given)}.`,
+        'bad-option',
+      );
     }
     const h = given;
     return segmentsFromMerges((i) => reach[i] <= h);
@@ -265,4 +268,3 @@ export function buildTree(
     copheneticCorrelation,
   };
 }
-

@@ -23,7 +23,15 @@ export function blockSums(mem: KmeansMemory, lo: number, hi: number, b: number):
   sums.fill(0);
   counts.fill(0);
   if (mem.segmentSums) {
-    mem.segmentSums(at.rows + lo * d * 8, at.assignment + lo * 4, at.sums + b * k * d * 8, at.counts + b * k * 8, hi - lo, d * 8, 16 * (d >> 1));
+    mem.segmentSums(
+      at.rows + lo * d * 8,
+      at.assignment + lo * 4,
+      at.sums + b * k * d * 8,
+      at.counts + b * k * 8,
+      hi - lo,
+      d * 8,
+      16 * (d >> 1),
+    );
     return;
   }
   const { rows, assignment } = mem;

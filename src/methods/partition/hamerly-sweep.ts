@@ -32,7 +32,9 @@ export function firstAssignment(mem: KmeansMemory, from: StartFrom): void {
 /** One Hamerly sweep over every block (the centre moves and half gaps are in `mem`). */
 export function hamerlySweep(mem: KmeansMemory): void {
   const { d, k } = mem.layout;
-  forEachBlock(mem, (lo, hi, b) => sweep(mem, lo, hi, b, mem.sums.subarray(b * k * d, (b + 1) * k * d), mem.counts.subarray(b * k, (b + 1) * k)));
+  forEachBlock(mem, (lo, hi, b) =>
+    sweep(mem, lo, hi, b, mem.sums.subarray(b * k * d, (b + 1) * k * d), mem.counts.subarray(b * k, (b + 1) * k)),
+  );
 }
 
 /** First assignment from what k-means++ already knows (nearest centre and bounds). */
@@ -173,7 +175,14 @@ function scanPair(mem: KmeansMemory, i0: number, i1: number, b: number, distance
  * order against the own distance (ties: the lower segment number), bounds reset to the nearest
  * and second-nearest distances, and the block's segment sums and counts follow a move.
  */
-function moveToNearest(mem: KmeansMemory, i: number, distances: Float64Array, from: number, sums: Float64Array, counts: Float64Array): void {
+function moveToNearest(
+  mem: KmeansMemory,
+  i: number,
+  distances: Float64Array,
+  from: number,
+  sums: Float64Array,
+  counts: Float64Array,
+): void {
   const { rows, assignment, upper, lower } = mem;
   const { d, k } = mem.layout;
   const a = assignment[i];

@@ -8,7 +8,15 @@
 // order: a fixed summation order (as scikit-learn sums over fixed chunks of rows), which keeps
 // the rounding of the large sums independent of how a pass is written.
 import { defaultTrials } from './seeding-trials';
-import { kernelModule, type BoundPass, type KernelName, type PairScan, type SegmentSums, type TakeKernel, type TrialTotals } from './wasm-kernels';
+import {
+  kernelModule,
+  type BoundPass,
+  type KernelName,
+  type PairScan,
+  type SegmentSums,
+  type TakeKernel,
+  type TrialTotals,
+} from './wasm-kernels';
 
 export interface KmeansLayout {
   readonly n: number;
@@ -183,7 +191,15 @@ export function blockOf(layout: KmeansLayout, i: number): number {
 export function memoryViews(
   layout: KmeansLayout,
   buffer: ArrayBufferLike,
-  extra: { wasm?: WebAssembly.Memory; sweep?: TrialTotals; take?: TakeKernel; segmentSums?: SegmentSums; pairScan?: PairScan; boundPass?: BoundPass; rows?: Float64Array } = {},
+  extra: {
+    wasm?: WebAssembly.Memory;
+    sweep?: TrialTotals;
+    take?: TakeKernel;
+    segmentSums?: SegmentSums;
+    pairScan?: PairScan;
+    boundPass?: BoundPass;
+    rows?: Float64Array;
+  } = {},
 ): KmeansMemory {
   const { at, length } = layout;
   const f64 = (f: Float64Field) => new Float64Array(buffer, at[f], length[f]);
@@ -229,7 +245,13 @@ let spare: WebAssembly.Memory | undefined;
  * arrays are plain and `rows` is `data` itself. 'finish' is plain with only what the exact
  * finish of a run needs (assignment, centres, per-segment totals).
  */
-export function takeKmeansMemory(data: Float64Array, n: number, d: number, k: number, kind: 'wasm' | 'plain' | 'finish' = 'wasm'): KmeansMemory {
+export function takeKmeansMemory(
+  data: Float64Array,
+  n: number,
+  d: number,
+  k: number,
+  kind: 'wasm' | 'plain' | 'finish' = 'wasm',
+): KmeansMemory {
   if (kind === 'wasm') {
     const inWasm = wasmMemory(kmeansLayout(n, d, k));
     if (inWasm) {

@@ -127,6 +127,9 @@ function checkDistinctInDissimilarity(k: number, diss: Dissimilarity): void {
 function checkCountForDissimilarity(k: unknown, n: number): void {
   if (k === undefined) throw new KinsortError('kmedoids: the option k (number of segments) is required, e.g. { k: 3 }.', 'bad-k');
   if (typeof k !== 'number' || !Number.isInteger(k) || k < 1 || k > n) {
-    throw new KinsortError(`kmedoids: k must be a whole number from 1 to ${n} (the rows of the dissimilarity); got ${describe(k)}.`, 'bad-k');
+    throw new KinsortError(
+      `kmedoids: k must be a whole number from 1 to ${n} (the rows of the dissimilarity); got ${describe(k)}.`,
+      'bad-k',
+    );
   }
 }

@@ -116,7 +116,13 @@ export interface SwapRun {
 }
 
 /** SWAP with FastPAM1 bookkeeping: best exchange per pass, until none lowers the cost. */
-export function pamSwap(condensed: Float64Array, n: number, start: number[], maxSwaps: number, onPass?: (passes: number, swaps: number) => void): SwapRun {
+export function pamSwap(
+  condensed: Float64Array,
+  n: number,
+  start: number[],
+  maxSwaps: number,
+  onPass?: (passes: number, swaps: number) => void,
+): SwapRun {
   let state = pamState(condensed, n, start);
   const k = start.length;
   const row = new Float64Array(n);
@@ -194,7 +200,15 @@ export function pamSwap(condensed: Float64Array, n: number, start: number[], max
  * The change of cost when `candidate` replaces `medoid`, summed as R's cluster::pam sums it (row
  * by row, with its own case split), for settling near ties exactly as R does.
  */
-function changeAsR(condensed: Float64Array, n: number, state: PamState, medoid: number, candidate: number, medoidRow: Float64Array, candidateRow: Float64Array): number {
+function changeAsR(
+  condensed: Float64Array,
+  n: number,
+  state: PamState,
+  medoid: number,
+  candidate: number,
+  medoidRow: Float64Array,
+  candidateRow: Float64Array,
+): number {
   condensedRow(condensed, n, medoid, medoidRow);
   condensedRow(condensed, n, candidate, candidateRow);
   const { nearestDistance, secondDistance } = state;

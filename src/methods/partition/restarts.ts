@@ -63,7 +63,8 @@ function runOn(mem: KmeansMemory, plan: RestartPlan, onDone: (done: number) => v
   const tolerance = plan.relativeTolerance * (spread.totalSS / (n * d));
   const root = createRandom(plan.seed);
   const withinByRestart: number[] = [];
-  let kept: (LloydRun & { restart: number; within: number; refinedRows: number; assignment: Int32Array; centres: Float64Array }) | undefined;
+  let kept:
+    (LloydRun & { restart: number; within: number; refinedRows: number; assignment: Int32Array; centres: Float64Array }) | undefined;
   for (let r = 0; r < restarts; r++) {
     if (start instanceof Float64Array) mem.centres.set(start);
     else if (start === 'random') seedRandomRows(mem.rows, n, d, k, root.fork(r), mem.centres);

@@ -11,7 +11,15 @@
 // and the totals are added in block order. The draws and choices between passes are serial.
 import type { Random } from '../../random';
 import { distancesToPoint, squaredDistance, twoByFour } from '../../measure/squared-distance';
-import { acrossBlocks, blockRange, forEachBlock, interleaveInPairs, releaseKmeansMemory, takeKmeansMemory, type KmeansMemory } from './kmeans-memory';
+import {
+  acrossBlocks,
+  blockRange,
+  forEachBlock,
+  interleaveInPairs,
+  releaseKmeansMemory,
+  takeKmeansMemory,
+  type KmeansMemory,
+} from './kmeans-memory';
 import { defaultTrials } from './seeding-trials';
 
 let seedingWasmWanted = true;
@@ -219,5 +227,14 @@ function takeCandidate(mem: KmeansMemory, lo: number, hi: number, c: number, cho
 /** takeCandidate as WebAssembly (kernels/take.wat): the same numbers. */
 function takeByWasm(mem: KmeansMemory, lo: number, hi: number, c: number, chosen: number): number {
   const { padded, at } = mem.layout;
-  return mem.take!(at.closest + lo * 8, at.nearest + lo * 4, at.secondLower + lo * 8, at.cumulative + lo * 8, at.stored + (lo * padded + chosen) * 8, hi - lo, padded * 8, c);
+  return mem.take!(
+    at.closest + lo * 8,
+    at.nearest + lo * 4,
+    at.secondLower + lo * 8,
+    at.cumulative + lo * 8,
+    at.stored + (lo * padded + chosen) * 8,
+    hi - lo,
+    padded * 8,
+    c,
+  );
 }

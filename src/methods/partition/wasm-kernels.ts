@@ -16,7 +16,15 @@ export type TakeKernel = (
   closest: number, nearest: number, secondLower: number, cumulative: number, stored: number, count: number, storedStride: number, centre: number,
 ) => number; // prettier-ignore
 /** kernels/segment-sums.wat: segment sums and counts of a range of rows. */
-export type SegmentSums = (rows: number, assignment: number, sums: number, counts: number, count: number, rowBytes: number, pairBytes: number) => void;
+export type SegmentSums = (
+  rows: number,
+  assignment: number,
+  sums: number,
+  counts: number,
+  count: number,
+  rowBytes: number,
+  pairBytes: number,
+) => void;
 /** kernels/pair-scan.wat: squared distances of two rows to every padded centre. */
 export type PairScan = (rowA: number, rowB: number, centres: number, groups: number, rowBytes: number, outA: number, outB: number) => void;
 /** kernels/bound-pass.wat: the bound pass of a Hamerly sweep; returns the rows listed for a full scan. */

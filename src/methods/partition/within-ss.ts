@@ -19,7 +19,15 @@ export function withinOn(mem: KmeansMemory, bySegment?: number[]): number {
 }
 
 /** Within-SS of rows [lo, hi) per segment, into `parts` (cleared first). */
-function withinParts(rows: Float64Array, d: number, lo: number, hi: number, assignment: Int32Array, centres: Float64Array, parts: Float64Array): void {
+function withinParts(
+  rows: Float64Array,
+  d: number,
+  lo: number,
+  hi: number,
+  assignment: Int32Array,
+  centres: Float64Array,
+  parts: Float64Array,
+): void {
   parts.fill(0);
   let i = lo;
   // Four rows at a time (fourDistances); added to the parts in row order.

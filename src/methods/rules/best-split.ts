@@ -42,7 +42,14 @@ export function sortedPresent(values: Float64Array): Int32Array {
   return Int32Array.from(present);
 }
 
-function bestThreshold(column: RuleColumn, j: number, present: Int32Array, target: Int32Array, classes: number, minLeaf: number): RuleSplit | undefined {
+function bestThreshold(
+  column: RuleColumn,
+  j: number,
+  present: Int32Array,
+  target: Int32Array,
+  classes: number,
+  minLeaf: number,
+): RuleSplit | undefined {
   const v = column.values;
   const n = present.length;
   if (n < 2 * minLeaf) return undefined;
@@ -77,7 +84,14 @@ function bestThreshold(column: RuleColumn, j: number, present: Int32Array, targe
   };
 }
 
-function bestLevelSplit(column: RuleColumn, j: number, rows: Int32Array, target: Int32Array, classes: number, minLeaf: number): RuleSplit | undefined {
+function bestLevelSplit(
+  column: RuleColumn,
+  j: number,
+  rows: Int32Array,
+  target: Int32Array,
+  classes: number,
+  minLeaf: number,
+): RuleSplit | undefined {
   const v = column.values;
   // Class counts per level present at this node.
   const byLevel = new Map<number, Float64Array>();

@@ -45,7 +45,8 @@ export function classificationTree(columns: readonly RuleColumn[], target: Int32
   if (n < 2) throw new KinsortError(`${WHERE}: ${n} row(s); a tree needs at least 2.`, 'empty');
   if (columns.length === 0) throw new KinsortError(`${WHERE}: no columns to split on.`, 'empty');
   columns.forEach((c) => {
-    if (c.values.length !== n) throw new KinsortError(`${WHERE}: column "${c.name}" has ${c.values.length} values for ${n} rows.`, 'bad-input');
+    if (c.values.length !== n)
+      throw new KinsortError(`${WHERE}: column "${c.name}" has ${c.values.length} values for ${n} rows.`, 'bad-input');
   });
   const depth = checkInteger(opts.depth ?? 3, `${WHERE}: depth`, 1, 30);
   const minLeaf = checkInteger(opts.minLeaf ?? Math.max(1, Math.round(n / 100)), `${WHERE}: minLeaf`, 1, n);
@@ -53,7 +54,8 @@ export function classificationTree(columns: readonly RuleColumn[], target: Int32
   let classes = 0;
   for (let i = 0; i < n; i++) {
     const t = target[i];
-    if (!Number.isInteger(t) || t < 0) throw new KinsortError(`${WHERE}: row ${i + 1} has class ${t}; classes are 0, 1, 2, …`, 'bad-assignment');
+    if (!Number.isInteger(t) || t < 0)
+      throw new KinsortError(`${WHERE}: row ${i + 1} has class ${t}; classes are 0, 1, 2, …`, 'bad-assignment');
     if (t + 1 > classes) classes = t + 1;
   }
 
@@ -112,9 +114,22 @@ export function classificationTree(columns: readonly RuleColumn[], target: Int32
 
   const all = new Int32Array(n);
   for (let i = 0; i < n; i++) all[i] = i;
-  const root = grow(all, columns.map((c) => (c.kind === 'categorical' ? undefined : sortedPresent(c.values))), 1, 0);
+  const root = grow(
+    all,
+    columns.map((c) => (c.kind === 'categorical' ? undefined : sortedPresent(c.values))),
+    1,
+    0,
+  );
   prune(root);
-  return { kind: 'rule-tree', columns: columns.map((c) => ({ name: c.name, kind: c.kind, levels: c.levels })), classes, root, depth, minLeaf, minSplit };
+  return {
+    kind: 'rule-tree',
+    columns: columns.map((c) => ({ name: c.name, kind: c.kind, levels: c.levels })),
+    classes,
+    root,
+    depth,
+    minLeaf,
+    minSplit,
+  };
 }
 
 /** Misclassified training rows in the node's leaves, after pruning its subtree at complexity 0. */

@@ -10,7 +10,7 @@ export function averageRanks(values: Float64Array): Float64Array {
   const n = values.length;
   const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => values[a] - values[b] || a - b);
   const ranks = new Float64Array(n);
-  for (let start = 0; start < n; ) {
+  for (let start = 0; start < n;) {
     let end = start + 1;
     while (end < n && values[order[end]] === values[order[start]]) end++;
     const rank = (start + 1 + end) / 2;

@@ -13,9 +13,15 @@ export interface VariableInput {
   entered: string[];
 }
 
-export function readVariables(input: RowsInput | Table, names: readonly string[] | undefined, columns: readonly string[] | undefined, where: string): VariableInput {
+export function readVariables(
+  input: RowsInput | Table,
+  names: readonly string[] | undefined,
+  columns: readonly string[] | undefined,
+  where: string,
+): VariableInput {
   if (isTable(input)) return fromTable(input, columns, where);
-  if (columns !== undefined) throw new KinsortError(`${where}: option columns picks columns of a table; for rows give names.`, 'bad-option');
+  if (columns !== undefined)
+    throw new KinsortError(`${where}: option columns picks columns of a table; for rows give names.`, 'bad-option');
   const m = toMatrix(input as RowsInput, { what: `${where}: rows`, minRows: 3 });
   const given = names ?? (isMatrix(input) ? input.colNames : undefined);
   const out = given ? [...given].map(String) : Array.from({ length: m.cols }, (_, j) => `column ${j + 1}`);
@@ -68,7 +74,7 @@ function fromTable(table: Table, columns: readonly string[] | undefined, where: 
     for (let i = 0; i < n; i++) {
       const v = c.values[i];
       const x = v === null ? NaN : code(v);
-      if (!Number.isFinite(x) || x < 0 && type !== 'numeric') {
+      if (!Number.isFinite(x) || (x < 0 && type !== 'numeric')) {
         throw new KinsortError(
           `${where}: row ${i + 1}, column "${c.name}" ${v === null ? 'is missing' : `holds ${JSON.stringify(v)}`}; a variable ` +
             'tree needs every value (pairwise deletion would correlate different rows for different pairs). Drop or fill those rows first.',

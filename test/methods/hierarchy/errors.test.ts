@@ -15,7 +15,12 @@ function failure(run: () => unknown): KinsortError {
   throw new Error('expected a KinsortError');
 }
 
-const rows = [[0, 0], [1, 0], [5, 5], [6, 5]];
+const rows = [
+  [0, 0],
+  [1, 0],
+  [5, 5],
+  [6, 5],
+];
 
 describe('agglomerate refuses bad input clearly', () => {
   it('fewer than 2 rows', () => {
@@ -24,10 +29,29 @@ describe('agglomerate refuses bad input clearly', () => {
   });
 
   it('NaN / Infinity, naming row and column', () => {
-    const e = failure(() => agglomerate([[1, 2], [3, NaN], [4, 5]], { method: 'ward' }));
+    const e = failure(() =>
+      agglomerate(
+        [
+          [1, 2],
+          [3, NaN],
+          [4, 5],
+        ],
+        { method: 'ward' },
+      ),
+    );
     expect(e.code).toBe('not-finite');
     expect(e.message).toMatch(/row 2.*column 2/);
-    expect(failure(() => agglomerate([[1, Infinity], [3, 4]], { method: 'single' })).message).toMatch(/row 1.*column 2/);
+    expect(
+      failure(() =>
+        agglomerate(
+          [
+            [1, Infinity],
+            [3, 4],
+          ],
+          { method: 'single' },
+        ),
+      ).message,
+    ).toMatch(/row 1.*column 2/);
   });
 
   it('a dissimilarity with negative or non-finite entries, naming the pair', () => {
@@ -40,7 +64,11 @@ describe('agglomerate refuses bad input clearly', () => {
   });
 
   it('a full square matrix passed as number[][] is refused with a pointer to fromCondensed', () => {
-    const square = [[0, 1, 2], [1, 0, 3], [2, 3, 0]];
+    const square = [
+      [0, 1, 2],
+      [1, 0, 3],
+      [2, 3, 0],
+    ];
     const e = failure(() => agglomerate(square, { method: 'average' }));
     expect(e.code).toBe('bad-input');
     expect(e.message).toMatch(/fromCondensed/);

@@ -15,9 +15,18 @@ describe('tie-breaking (documented rule: first minimum in increasing index; merg
   });
 
   it('unit square: single linkage takes the smaller-index pairs first and is the same run after run', () => {
-    const square = [[0, 0], [1, 0], [0, 1], [1, 1]];
+    const square = [
+      [0, 0],
+      [1, 0],
+      [0, 1],
+      [1, 1],
+    ];
     const tree = agglomerate(square, { method: 'single' });
-    expect(tree.merges.map((m) => [m.left, m.right, m.height])).toEqual([[0, 1, 1], [2, 4, 1], [3, 5, 1]]);
+    expect(tree.merges.map((m) => [m.left, m.right, m.height])).toEqual([
+      [0, 1, 1],
+      [2, 4, 1],
+      [3, 5, 1],
+    ]);
     expect(agglomerate(square, { method: 'single' }).merges).toEqual(tree.merges);
     // With tied heights, cut({ k }) still gives exactly k segments, undoing the last merges first.
     expect(Array.from(tree.cut({ k: 2 }))).toEqual([0, 0, 0, 1]);
@@ -34,7 +43,10 @@ describe('routes agree', () => {
     for (const method of LINKAGE_METHODS) {
       const a = agglomerate(rows, { method });
       const b = agglomerate(d, { method });
-      expect(a.merges.map((m) => [m.left, m.right, m.size]), method).toEqual(b.merges.map((m) => [m.left, m.right, m.size]));
+      expect(
+        a.merges.map((m) => [m.left, m.right, m.size]),
+        method,
+      ).toEqual(b.merges.map((m) => [m.left, m.right, m.size]));
       a.merges.forEach((m, i) => expect(m.height).toBeCloseTo(b.merges[i].height, 10));
     }
   });
@@ -47,13 +59,19 @@ describe('routes agree', () => {
     for (const method of ['ward', 'centroid', 'median'] as const) {
       const a = agglomerate(many, { method });
       const b = agglomerate(d, { method });
-      expect(a.merges.map((m) => [m.left, m.right]), method).toEqual(b.merges.map((m) => [m.left, m.right]));
+      expect(
+        a.merges.map((m) => [m.left, m.right]),
+        method,
+      ).toEqual(b.merges.map((m) => [m.left, m.right]));
       a.merges.forEach((m, i) => expect(Math.abs(m.height - b.merges[i].height)).toBeLessThanOrEqual(1e-9 * Math.max(1, m.height)));
     }
   });
 
   it('another metric from rows (manhattan, minkowski p = 3) equals the tree of that dissimilarity', () => {
-    for (const [metric, p] of [['manhattan', undefined], ['minkowski', 3]] as const) {
+    for (const [metric, p] of [
+      ['manhattan', undefined],
+      ['minkowski', 3],
+    ] as const) {
       const d = dissimilarity(rows, { metric, p });
       for (const method of ['single', 'complete', 'average', 'weighted'] as const) {
         const a = agglomerate(rows, { method, metric, p });

@@ -4,7 +4,7 @@ import { kernelModule, type KernelName } from '../../../src/methods/partition/wa
 
 // The committed binaries (kernels/assembled.ts) must be what the wabt assembler makes of the
 // .wat files now: a .wat edited without `npm run kernels` fails here.
-// eslint-disable-next-line @typescript-eslint/no-var-requires
+
 const { assembleKernels } = require('../../../scripts/assemble-kernels.js') as { assembleKernels: () => Promise<Record<string, Buffer>> };
 
 describe('WebAssembly kernels of k-means', () => {

@@ -7,14 +7,18 @@ import { squaredDistance } from './partition-helpers';
 // objective, seeded reproducibility and independence of row order.
 
 /** Small tables on a 0.25 grid so distinct rows are common but ties and duplicates happen too. */
-const table = fc
-  .tuple(fc.integer({ min: 1, max: 4 }), fc.integer({ min: 6, max: 60 }))
-  .chain(([d, n]) =>
-    fc.array(fc.array(fc.integer({ min: -40, max: 40 }).map((v) => v / 4), { minLength: d, maxLength: d }), {
+const table = fc.tuple(fc.integer({ min: 1, max: 4 }), fc.integer({ min: 6, max: 60 })).chain(([d, n]) =>
+  fc.array(
+    fc.array(
+      fc.integer({ min: -40, max: 40 }).map((v) => v / 4),
+      { minLength: d, maxLength: d },
+    ),
+    {
       minLength: n,
       maxLength: n,
-    }),
-  );
+    },
+  ),
+);
 
 function distinctCount(rows: number[][]): number {
   return new Set(rows.map((r) => r.join(','))).size;
@@ -38,14 +42,20 @@ describe('kmeans properties (fast-check)', () => {
 
   it('within-SS never rises between Lloyd iterations', () => {
     fc.assert(
-      fc.property(table, fc.integer({ min: 1, max: 6 }), fc.integer(), fc.constantFrom('k-means++', 'random') as fc.Arbitrary<'k-means++' | 'random'>, (rows, kWanted, seed, start) => {
-        const k = Math.min(kWanted, distinctCount(rows));
-        const fit = kmeans(rows, { k, seed, restarts: 1, tolerance: 0, start, trace: true });
-        const t = fit.withinSSTrace!;
-        expect(t.length).toBe(fit.iterations);
-        for (let i = 1; i < t.length; i++) expect(t[i]).toBeLessThanOrEqual(t[i - 1] * (1 + 1e-12) + 1e-12);
-        expect(fit.withinSS).toBeLessThanOrEqual(t[t.length - 1] * (1 + 1e-12) + 1e-12);
-      }),
+      fc.property(
+        table,
+        fc.integer({ min: 1, max: 6 }),
+        fc.integer(),
+        fc.constantFrom('k-means++', 'random') as fc.Arbitrary<'k-means++' | 'random'>,
+        (rows, kWanted, seed, start) => {
+          const k = Math.min(kWanted, distinctCount(rows));
+          const fit = kmeans(rows, { k, seed, restarts: 1, tolerance: 0, start, trace: true });
+          const t = fit.withinSSTrace!;
+          expect(t.length).toBe(fit.iterations);
+          for (let i = 1; i < t.length; i++) expect(t[i]).toBeLessThanOrEqual(t[i - 1] * (1 + 1e-12) + 1e-12);
+          expect(fit.withinSS).toBeLessThanOrEqual(t[t.length - 1] * (1 + 1e-12) + 1e-12);
+        },
+      ),
       { numRuns: 150 },
     );
   });
@@ -69,7 +79,15 @@ describe('kmeans properties (fast-check)', () => {
   it('permuting the rows, with fixed given centres, permutes the partition (plain Lloyd)', () => {
     fc.assert(
       fc.property(
-        table.chain((rows) => fc.tuple(fc.constant(rows), fc.shuffledSubarray(rows.map((_, i) => i), { minLength: rows.length }))),
+        table.chain((rows) =>
+          fc.tuple(
+            fc.constant(rows),
+            fc.shuffledSubarray(
+              rows.map((_, i) => i),
+              { minLength: rows.length },
+            ),
+          ),
+        ),
         fc.integer({ min: 1, max: 4 }),
         ([rows, order], kWanted) => {
           // Start from the first k distinct rows so the start does not depend on the order.
@@ -84,7 +102,10 @@ describe('kmeans properties (fast-check)', () => {
           }
           const k = start.length;
           const a = kmeans(rows, { k, start, tolerance: 0, refine: false });
-          const b = kmeans(order.map((i) => rows[i]), { k, start, tolerance: 0, refine: false });
+          const b = kmeans(
+            order.map((i) => rows[i]),
+            { k, start, tolerance: 0, refine: false },
+          );
           order.forEach((i, pos) => expect(b.assignment[pos]).toBe(a.assignment[i]));
         },
       ),

@@ -101,7 +101,12 @@ describe('kmeans empty-segment repair (documented rule, worked by hand)', () => 
 });
 
 describe('kmeans refuses bad input', () => {
-  const rows = [[0, 0], [1, 1], [2, 2], [0, 0]];
+  const rows = [
+    [0, 0],
+    [1, 1],
+    [2, 2],
+    [0, 0],
+  ];
   const code = (f: () => unknown) => {
     try {
       f();
@@ -127,15 +132,44 @@ describe('kmeans refuses bad input', () => {
     expect(code(() => kmeans(rows, { k: 2, restart: 3 } as any))[1]).toContain('Did you mean "restarts"');
   });
   it('NaN and Infinity name the row and column', () => {
-    const msg = code(() => kmeans([[0, 1], [2, NaN]], { k: 1 }))[1];
+    const msg = code(() =>
+      kmeans(
+        [
+          [0, 1],
+          [2, NaN],
+        ],
+        { k: 1 },
+      ),
+    )[1];
     expect(msg).toContain('row 2');
     expect(msg).toContain('column 2');
-    expect(code(() => kmeans([[Infinity, 1], [2, 3]], { k: 1 }))[0]).toBe('not-finite');
+    expect(
+      code(() =>
+        kmeans(
+          [
+            [Infinity, 1],
+            [2, 3],
+          ],
+          { k: 1 },
+        ),
+      )[0],
+    ).toBe('not-finite');
   });
   it('given centres of the wrong shape, or with restarts', () => {
     expect(code(() => kmeans(rows, { k: 2, start: [[0, 0]] }))[1]).toContain('1 × 2');
     expect(code(() => kmeans(rows, { k: 2, start: [[0], [1]] }))[1]).toContain('2 × 1');
-    expect(code(() => kmeans(rows, { k: 2, start: [[0, 0], [1, 1]], restarts: 5 }))[1]).toContain('restarts');
+    expect(
+      code(() =>
+        kmeans(rows, {
+          k: 2,
+          start: [
+            [0, 0],
+            [1, 1],
+          ],
+          restarts: 5,
+        }),
+      )[1],
+    ).toContain('restarts');
     expect(code(() => kmeans(rows, { k: 2, start: 'kmeans++' as any }))[0]).toBe('bad-option');
   });
 });

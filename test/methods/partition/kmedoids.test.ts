@@ -102,7 +102,16 @@ describe('kmedoids result and properties', () => {
     const diss = fromCondensed([1, 2, 3]);
     expect(() => kmedoids(diss, { k: 4 })).toThrow(/from 1 to 3/);
     expect(() => kmedoids(rows, { k: 0 })).toThrow(KinsortError);
-    expect(() => kmedoids([[1, 1], [1, 1], [2, 2]], { k: 3 })).toThrow(/only 2 distinct/);
+    expect(() =>
+      kmedoids(
+        [
+          [1, 1],
+          [1, 1],
+          [2, 2],
+        ],
+        { k: 3 },
+      ),
+    ).toThrow(/only 2 distinct/);
     expect(() => kmedoids(diss, { k: 2, metric: 'manhattan' })).toThrow(/leave metric out/);
     expect(() => kmedoids(rows, { k: 2, swaps: 3 } as any)).toThrow(/unknown option/);
   });

@@ -34,7 +34,13 @@ function seedOnce(data: Float64Array, n: number, d: number, k: number, seed: num
   } finally {
     setSeedingWasm(previous);
   }
-  const copy = { ...taken, centres: taken.centres.slice(), nearest: taken.nearest.slice(), closest: taken.closest.slice(), secondLower: taken.secondLower.slice() };
+  const copy = {
+    ...taken,
+    centres: taken.centres.slice(),
+    nearest: taken.nearest.slice(),
+    closest: taken.closest.slice(),
+    secondLower: taken.secondLower.slice(),
+  };
   releaseKmeansMemory(taken);
   return { mem: copy, calls };
 }
@@ -42,7 +48,13 @@ function seedOnce(data: Float64Array, n: number, d: number, k: number, seed: num
 describe('k-means++ trial sweep and take step as WebAssembly', () => {
   // k = 8: one group of four trials; k = 30: five trials, so a second, padded group; d = 1 and
   // odd n; 50,001 × 5 with k = 10 cuts the rows in blocks, the last of odd length; 1,001 × 3 is small.
-  const shapes: [number, number, number][] = [[40_001, 6, 8], [25_000, 9, 30], [200_003, 1, 3], [50_001, 5, 10], [1_001, 3, 5]];
+  const shapes: [number, number, number][] = [
+    [40_001, 6, 8],
+    [25_000, 9, 30],
+    [200_003, 1, 3],
+    [50_001, 5, 10],
+    [1_001, 3, 5],
+  ];
   for (const [n, d, k] of shapes) {
     it(`leaves the seeding state bit for bit as the JavaScript sweep does (${n} × ${d}, k = ${k})`, () => {
       const data = blobs(n, d, n + d + k);
@@ -93,7 +105,11 @@ describe('k-means++ trial sweep and take step as WebAssembly', () => {
 
 describe('segment sums as WebAssembly', () => {
   // Odd and even column counts, one column, and a block structure with an odd last block.
-  const shapes: [number, number, number][] = [[40_001, 7, 9], [30_000, 10, 8], [250_001, 1, 12]];
+  const shapes: [number, number, number][] = [
+    [40_001, 7, 9],
+    [30_000, 10, 8],
+    [250_001, 1, 12],
+  ];
   for (const [n, d, k] of shapes) {
     it(`give bit for bit the sums and counts of the JavaScript loop (${n} × ${d}, k = ${k})`, () => {
       const data = blobs(n, d, n + d);
@@ -114,7 +130,11 @@ describe('segment sums as WebAssembly', () => {
 
 describe('Hamerly sweeps (bound pass and full scans) as WebAssembly', () => {
   // k = 13 pads to 16 centres (three at infinity); k = 4 has no padding; d odd and even.
-  const shapes: [number, number, number][] = [[40_001, 7, 13], [30_000, 10, 4], [999, 2, 6]];
+  const shapes: [number, number, number][] = [
+    [40_001, 7, 13],
+    [30_000, 10, 4],
+    [999, 2, 6],
+  ];
   for (const [n, d, k] of shapes) {
     it(`give bit for bit the iterations of the JavaScript scan (${n} × ${d}, k = ${k}, from given centres)`, () => {
       const data = blobs(n, d, n + k);
@@ -123,7 +143,7 @@ describe('Hamerly sweeps (bound pass and full scans) as WebAssembly', () => {
       expect(shared.pairScan).toBeDefined();
       expect(plain.pairScan).toBeUndefined();
       for (const mem of [shared, plain]) {
-        for (let c = 0; c < k; c++) mem.centres.set(data.subarray(((c * 3001) % n) * d, ((c * 3001) % n + 1) * d), c * d);
+        for (let c = 0; c < k; c++) mem.centres.set(data.subarray(((c * 3001) % n) * d, (((c * 3001) % n) + 1) * d), c * d);
       }
       const runShared = runHamerly(shared, 40, 0, false, 'centres');
       const runPlain = runHamerly(plain, 40, 0, false, 'centres');

@@ -71,25 +71,32 @@ describe(`project against ${fixture.producedBy}`, () => {
 describe('project properties and refusals', () => {
   it('symmetricEigen: A v = λ v, unit orthogonal vectors, values sorted (fast-check)', () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 7 }).chain((d) => fc.array(fc.double({ min: -10, max: 10, noNaN: true }), { minLength: d * d, maxLength: d * d }).map((v) => ({ d, v }))), ({ d, v }) => {
-        const a = new Float64Array(d * d);
-        for (let i = 0; i < d; i++) for (let j = 0; j < d; j++) a[i * d + j] = (v[i * d + j] + v[j * d + i]) / 2;
-        const { values, vectors } = symmetricEigen(a, d);
-        const scale = Math.max(1, ...Array.from(a, Math.abs));
-        for (let c = 0; c < d; c++) {
-          if (c > 0) expect(values[c]).toBeLessThanOrEqual(values[c - 1]);
-          for (let i = 0; i < d; i++) {
-            let av = 0;
-            for (let k = 0; k < d; k++) av += a[i * d + k] * vectors[k * d + c];
-            expect(Math.abs(av - values[c] * vectors[i * d + c])).toBeLessThan(1e-10 * scale);
+      fc.property(
+        fc
+          .integer({ min: 1, max: 7 })
+          .chain((d) =>
+            fc.array(fc.double({ min: -10, max: 10, noNaN: true }), { minLength: d * d, maxLength: d * d }).map((v) => ({ d, v })),
+          ),
+        ({ d, v }) => {
+          const a = new Float64Array(d * d);
+          for (let i = 0; i < d; i++) for (let j = 0; j < d; j++) a[i * d + j] = (v[i * d + j] + v[j * d + i]) / 2;
+          const { values, vectors } = symmetricEigen(a, d);
+          const scale = Math.max(1, ...Array.from(a, Math.abs));
+          for (let c = 0; c < d; c++) {
+            if (c > 0) expect(values[c]).toBeLessThanOrEqual(values[c - 1]);
+            for (let i = 0; i < d; i++) {
+              let av = 0;
+              for (let k = 0; k < d; k++) av += a[i * d + k] * vectors[k * d + c];
+              expect(Math.abs(av - values[c] * vectors[i * d + c])).toBeLessThan(1e-10 * scale);
+            }
+            for (let c2 = 0; c2 < d; c2++) {
+              let dot = 0;
+              for (let k = 0; k < d; k++) dot += vectors[k * d + c] * vectors[k * d + c2];
+              expect(Math.abs(dot - (c === c2 ? 1 : 0))).toBeLessThan(1e-10);
+            }
           }
-          for (let c2 = 0; c2 < d; c2++) {
-            let dot = 0;
-            for (let k = 0; k < d; k++) dot += vectors[k * d + c] * vectors[k * d + c2];
-            expect(Math.abs(dot - (c === c2 ? 1 : 0))).toBeLessThan(1e-10);
-          }
-        }
-      }),
+        },
+      ),
       { numRuns: 100 },
     );
   });
@@ -107,10 +114,30 @@ describe('project properties and refusals', () => {
   });
 
   it('refuses unknown options, too many components, one row and mismatched new rows', () => {
-    expect(() => project([[1, 2], [3, 4]], { componets: 1 } as never)).toThrow(/Did you mean "components"/);
-    expect(() => project([[1, 2], [3, 4]], { components: 3 })).toThrow(/components must be a whole number from 1 to 2/);
+    expect(() =>
+      project(
+        [
+          [1, 2],
+          [3, 4],
+        ],
+        { componets: 1 } as never,
+      ),
+    ).toThrow(/Did you mean "components"/);
+    expect(() =>
+      project(
+        [
+          [1, 2],
+          [3, 4],
+        ],
+        { components: 3 },
+      ),
+    ).toThrow(/components must be a whole number from 1 to 2/);
     expect(() => project([[1, 2]])).toThrow(/at least 2 needed/);
-    const p = project([[1, 2], [3, 5], [0, 1]]);
+    const p = project([
+      [1, 2],
+      [3, 5],
+      [0, 1],
+    ]);
     expect(() => projectNew(p, [[1, 2, 3]])).toThrow(/3 columns but the projection was fitted on 2/);
   });
 });

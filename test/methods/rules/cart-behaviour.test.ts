@@ -35,7 +35,11 @@ describe('classificationTree behaviour', () => {
     const a = Array.from({ length: n }, () => rng.normal());
     const b = Array.from({ length: n }, () => rng.normal());
     const target = Int32Array.from(a.map((v, i) => (v + 0.5 * b[i] > 0 ? 1 : 0) + (b[i] > 1 ? 1 : 0)));
-    for (const [depth, minLeaf] of [[1, 1], [2, 30], [4, 15]]) {
+    for (const [depth, minLeaf] of [
+      [1, 1],
+      [2, 30],
+      [4, 15],
+    ]) {
       const tree = classificationTree([num('a', a), num('b', b)], target, { depth, minLeaf });
       for (const leaf of leaves(tree.root)) {
         expect(leaf.depth).toBeLessThanOrEqual(depth);
@@ -79,7 +83,11 @@ describe('classificationTree behaviour', () => {
         target.push(code % 3 === 0 ? 1 : 0);
       }
     });
-    const tree = classificationTree([{ name: 'zone', kind: 'categorical', values: Float64Array.from(values), levels }], Int32Array.from(target), { depth: 1, minLeaf: 1 });
+    const tree = classificationTree(
+      [{ name: 'zone', kind: 'categorical', values: Float64Array.from(values), levels }],
+      Int32Array.from(target),
+      { depth: 1, minLeaf: 1 },
+    );
     const split = tree.root.split!;
     expect(split.kind).toBe('levels');
     if (split.kind === 'levels') {
@@ -92,7 +100,10 @@ describe('classificationTree behaviour', () => {
     const levels = ['low', 'mid', 'high', 'top'];
     const values = [0, 0, 1, 1, 2, 2, 3, 3];
     const target = Int32Array.from([0, 0, 0, 0, 1, 1, 1, 1]);
-    const tree = classificationTree([{ name: 'band', kind: 'ordinal', values: Float64Array.from(values), levels }], target, { depth: 1, minLeaf: 1 });
+    const tree = classificationTree([{ name: 'band', kind: 'ordinal', values: Float64Array.from(values), levels }], target, {
+      depth: 1,
+      minLeaf: 1,
+    });
     const split = tree.root.split!;
     expect(split.kind === 'threshold' && split.threshold).toBe(1.5);
   });

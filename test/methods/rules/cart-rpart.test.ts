@@ -64,7 +64,15 @@ describe(`classificationTree matches ${fixture.producedBy}`, () => {
       // children to be independent of that convention.
       const byNode = (a: { node: number }, b: { node: number }) => a.node - b.node;
       const canon = (list: { node: number }[]) => list.map((s) => ({ ...s, node: depthOf(s.node) })).sort(byNode);
-      expect(canon(ours).map((s) => JSON.stringify(s)).sort()).toEqual(canon(theirs).map((s) => JSON.stringify(s)).sort());
+      expect(
+        canon(ours)
+          .map((s) => JSON.stringify(s))
+          .sort(),
+      ).toEqual(
+        canon(theirs)
+          .map((s) => JSON.stringify(s))
+          .sort(),
+      );
       // Same partition of the rows into leaves.
       const leaf = t.target.map((_, i) => leafOf(tree, (j) => columns[j].values[i]).id);
       const pairs = new Map<number, number>();
@@ -104,8 +112,14 @@ describe('synthetic: segments defined by two thresholds', () => {
       { name: 'y', kind: 'numeric', values: y },
     ];
     const tree = classificationTree(columns, target, { depth: 2, minLeaf: 1 });
-    const splits = inner(tree.root).map((node) => [columns[node.split!.column].name, node.split!.kind === 'threshold' ? node.split!.threshold : NaN]);
-    expect(splits).toEqual([['x', 2.95], ['y', 6.95]]);
+    const splits = inner(tree.root).map((node) => [
+      columns[node.split!.column].name,
+      node.split!.kind === 'threshold' ? node.split!.threshold : NaN,
+    ]);
+    expect(splits).toEqual([
+      ['x', 2.95],
+      ['y', 6.95],
+    ]);
     for (let i = 0; i < n; i++) expect(leafOf(tree, (j) => columns[j].values[i]).prediction).toBe(target[i]);
   });
 });

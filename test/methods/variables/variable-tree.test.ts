@@ -9,15 +9,29 @@ import { readTable } from '../../../src/table';
 import { createRandom } from '../../../src/random';
 import { KinsortError } from '../../../src/core/errors';
 
-interface Run { similarity: 'pearson' | 'spearman'; strength: 'squared' | 'absolute'; method: 'average'; call: string; heightsSorted: number[]; cuts: number[][] }
+interface Run {
+  similarity: 'pearson' | 'spearman';
+  strength: 'squared' | 'absolute';
+  method: 'average';
+  call: string;
+  heightsSorted: number[];
+  cuts: number[][];
+}
 const fixture = JSON.parse(readFileSync(join(__dirname, '../../reference/fixtures/variable_tree.json'), 'utf8')) as {
   producedBy: string;
-  data: Record<string, {
-    columns: string[];
-    rows: number[][];
-    runs: Run[];
-    groups: { k: number; firstComponentShare: number[]; members: { name: string; group: number; sharedWithOwn: number; sharedWithNext: number; unexplainedRatio: number }[] };
-  }>;
+  data: Record<
+    string,
+    {
+      columns: string[];
+      rows: number[][];
+      runs: Run[];
+      groups: {
+        k: number;
+        firstComponentShare: number[];
+        members: { name: string; group: number; sharedWithOwn: number; sharedWithNext: number; unexplainedRatio: number }[];
+      };
+    }
+  >;
 };
 
 describe('variableTree matches R hclust on 1 − r² and 1 − |r| (' + fixture.producedBy + ')', () => {
@@ -119,7 +133,12 @@ describe('group summaries by hand', () => {
 
 describe('variableTree on a table, and refusals', () => {
   it('binary columns enter as 0/1 (point-biserial), ordinal by rank; unordered categorical refused with the reason', () => {
-    const records = Array.from({ length: 30 }, (_, i) => ({ x: i, y: (i * 7) % 11, member: i % 2 ? 'yes' : 'no', fare: ['adult', 'child', 'senior'][i % 3] }));
+    const records = Array.from({ length: 30 }, (_, i) => ({
+      x: i,
+      y: (i * 7) % 11,
+      member: i % 2 ? 'yes' : 'no',
+      fare: ['adult', 'child', 'senior'][i % 3],
+    }));
     const table = readTable(records);
     const tree = variableTree(table, { columns: ['x', 'y', 'member'] });
     expect(tree.names).toEqual(['x', 'y', 'member']);
@@ -135,10 +154,42 @@ describe('variableTree on a table, and refusals', () => {
   });
 
   it('missing values and constant columns are refused by row and column', () => {
-    const table = readTable([{ a: 1, b: 2 }, { a: 2, b: null }, { a: 3, b: 1 }, { a: 4, b: 5 }]);
+    const table = readTable([
+      { a: 1, b: 2 },
+      { a: 2, b: null },
+      { a: 3, b: 1 },
+      { a: 4, b: 5 },
+    ]);
     expect(() => variableTree(table)).toThrow(/row 2, column "b" is missing/);
-    expect(() => variableTree([[1, 1], [2, 1], [3, 1]], { names: ['u', 'v'] })).toThrow(/"v" has the same value in every row/);
-    expect(() => variableTree([[1, 2], [2, 1], [3, 3]], { similarity: 'kendall' as never })).toThrow(/similarity/);
-    expect(() => variableTree([[1, 2], [2, 1], [3, 3]], { method: 'ward' as never })).toThrow(/not Euclidean/);
+    expect(() =>
+      variableTree(
+        [
+          [1, 1],
+          [2, 1],
+          [3, 1],
+        ],
+        { names: ['u', 'v'] },
+      ),
+    ).toThrow(/"v" has the same value in every row/);
+    expect(() =>
+      variableTree(
+        [
+          [1, 2],
+          [2, 1],
+          [3, 3],
+        ],
+        { similarity: 'kendall' as never },
+      ),
+    ).toThrow(/similarity/);
+    expect(() =>
+      variableTree(
+        [
+          [1, 2],
+          [2, 1],
+          [3, 3],
+        ],
+        { method: 'ward' as never },
+      ),
+    ).toThrow(/not Euclidean/);
   });
 });
