@@ -8,7 +8,7 @@ const { execFileSync } = require('child_process');
 const { writeFileSync } = require('fs');
 const { tmpdir } = require('os');
 const { join } = require('path');
-const { agglomerate, createMatrix, createRandom } = require('../dist');
+const { agglomerate, createMatrix, createRandom } = require('../dist/index');
 
 const CASES = {
   ward8000: { n: 8000, d: 10, method: 'ward', repeats: 3 },
