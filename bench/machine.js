@@ -26,6 +26,9 @@ function availableMB() {
   return os.freemem() / 2 ** 20;
 }
 
+/**
+ * @param {{ mode: string, python?: string | null, pythonMissing?: string | null, npmPeers: unknown }} run
+ */
 function describeMachine({ mode, python, pythonMissing, npmPeers }) {
   return {
     type: 'machine',

@@ -2,7 +2,10 @@
 // Timing helpers shared by every JavaScript tool in the bench: repeat a computation, keep each
 // wall time, report the median. Only the computation is inside the timed region.
 
-/** Median of a list of numbers (the mean of the two middle values for an even count). */
+/**
+ * Median of a list of numbers (the mean of the two middle values for an even count).
+ * @param {number[]} values
+ */
 function median(values) {
   if (values.length === 0) return NaN;
   const sorted = values.slice().sort((a, b) => a - b);
@@ -14,11 +17,15 @@ function median(values) {
  * Run `work()` up to `repeats` times and return every wall time in ms. After the first run, stop
  * early once the runs so far took `budgetMs` in all, so one slow case cannot eat the whole bench.
  * `prepare()` (untimed) is called before each run, e.g. to build fresh inputs.
+ * @param {(input: any) => unknown} work
+ * @param {Partial<Timing>} [timing]
+ * @returns {Promise<number[]>}
  */
 async function timeRepeats(work, { repeats, budgetMs = 30_000, prepare } = {}) {
   const times = [];
   let spent = 0;
-  for (let r = 0; r < repeats; r++) {
+  // No repeats given: no runs (r < undefined is false), as before typing.
+  for (let r = 0; r < /** @type {number} */ (repeats); r++) {
     const input = prepare ? prepare() : undefined;
     if (typeof global.gc === 'function') global.gc(); // only when node runs with --expose-gc
     const start = process.hrtime.bigint();
@@ -33,10 +40,19 @@ async function timeRepeats(work, { repeats, budgetMs = 30_000, prepare } = {}) {
 }
 
 // Hold on to the last result so the engine cannot treat the computation as dead code.
+/** @type {unknown} */
 let sink = null;
+/** @param {unknown} value */
 function keepAlive(value) {
   sink = value;
   return sink;
 }
+
+/**
+ * @typedef {object} Timing
+ * @property {number} repeats
+ * @property {number} [budgetMs]
+ * @property {() => any} [prepare]
+ */
 
 module.exports = { median, timeRepeats };
