@@ -13,11 +13,17 @@ const { createRandom } = require('../dist/random');
 const OUT = path.join(__dirname, '..', 'demo-data');
 const random = createRandom('kinsort demo data v1');
 
+/** @typedef {import('../src/random').Random} Random */
+/** @typedef {Record<string, string | number | null>} Row a pass holder's row, by column */
+
+/** @type {(x: number, lo: number, hi: number) => number} */
 const clamp = (x, lo, hi) => Math.min(hi, Math.max(lo, x));
+/** @type {(x: number, digits: number) => number} */
 const round = (x, digits) => {
   const f = 10 ** digits;
   return Math.round(x * f) / f;
 };
+/** @type {(r: Random, weights: number[]) => number} */
 const pick = (r, weights) => {
   let u = r.next() * weights.reduce((a, b) => a + b, 0);
   for (let i = 0; i < weights.length; i++) {
@@ -26,6 +32,7 @@ const pick = (r, weights) => {
   }
   return weights.length - 1;
 };
+/** @type {(r: Random, shape: number, scale: number) => number} */
 const gamma = (r, shape, scale) => {
   // Marsaglia–Tsang, shape ≥ 1 (boosted below 1).
   if (shape < 1) return gamma(r, shape + 1, scale) * Math.pow(r.next(), 1 / shape);
@@ -42,6 +49,7 @@ const gamma = (r, shape, scale) => {
     if (u < 1 - 0.0331 * x ** 4 || Math.log(u) < 0.5 * x * x + d * (1 - v + Math.log(v))) return d * v * scale;
   }
 };
+/** @type {(r: Random, a: number, b: number) => number} */
 const beta = (r, a, b) => {
   const x = gamma(r, a, 1);
   return x / (x + gamma(r, b, 1));
@@ -124,6 +132,11 @@ const FARES = ['adult', 'student', 'senior', 'reduced'];
 const ZONES = ['Central', 'Northbank', 'Eastfield', 'Outer Vale'];
 const AGES = ['16-24', '25-39', '40-54', '55-66', '67+'];
 
+/**
+ * @param {Random} r
+ * @param {string} id
+ * @param {{ newFare?: boolean }} [options]
+ */
 function passHolder(r, id, options = {}) {
   const kind =
     KINDS[
@@ -152,6 +165,10 @@ function passHolder(r, id, options = {}) {
   return row;
 }
 
+/**
+ * @param {Random} r
+ * @param {Row[]} rows
+ */
 function addNoise(r, rows) {
   // A few outliers: data-entry slips and one extreme heavy user per few hundred rows.
   for (const row of rows) {
@@ -168,8 +185,10 @@ function addNoise(r, rows) {
   }
 }
 
+/** @param {Row[]} rows */
 function toCsv(rows) {
   const columns = Object.keys(rows[0]);
+  /** @param {string | number | null | undefined} v */
   const cell = (v) => {
     if (v === null || v === undefined) return '';
     const s = String(v);
