@@ -7,7 +7,36 @@ const RESTARTS = 5;
 const SEED = 20261202;
 const PCA_COMPONENTS = 5;
 
-/** Cases timed side by side: kinsort against each peer on the same data, in the same run. */
+/** @typedef {import('./data').Kinsort} Kinsort */
+/** @typedef {ReturnType<Kinsort['createMatrix']>} Matrix */
+/**
+ * @typedef {object} Peer one tool kinsort is timed against: a python case, an npm call or an ml-hclust method
+ * @property {string} tool
+ * @property {string} [python]
+ * @property {object} [params]
+ * @property {object} [quickParams]
+ * @property {(peers: import('./npm-peers').NpmPeers, rows: number[][]) => unknown} [npm]
+ * @property {string} [hclust]
+ * @property {number | null} ratioMax
+ * @property {number} [repeats]
+ */
+/**
+ * @typedef {object} MainCase
+ * @property {string} id
+ * @property {string} title
+ * @property {{ n: number, d: number }} full
+ * @property {{ n: number, d: number }} quick
+ * @property {number} [spread]
+ * @property {boolean} [warmUp]
+ * @property {string} kinsortFunction
+ * @property {(ks: Kinsort, m: Matrix, set: import('./compare').BenchSet) => unknown} kinsort
+ * @property {Peer[]} peers
+ */
+
+/**
+ * Cases timed side by side: kinsort against each peer on the same data, in the same run.
+ * @type {MainCase[]}
+ */
 const MAIN_CASES = [
   {
     id: 'dissimilarity',
@@ -160,6 +189,7 @@ const MEMORY_CASE = {
 };
 
 /** Scaling: each main case at n, 2n and 4n (small n), giving the growth factor per doubling. */
+/** @type {Record<string, { full: number, quick: number }>} */
 const SCALING = {
   dissimilarity: { full: 1_000, quick: 100 },
   kmeans: { full: 25_000, quick: 250 }, // below this, fixed costs hide the growth
