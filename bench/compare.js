@@ -49,7 +49,7 @@ async function timeKinsort(kinsort, functionName, call, set, timing) {
  * @param {any} python the python peer (see python-peer.js), or null when not run
  * @param {string} caseName
  * @param {BenchSet} set
- * @param {object} params
+ * @param {object | undefined} params
  * @param {import('./timing').Timing} timing
  * @returns {Promise<Measured>}
  */

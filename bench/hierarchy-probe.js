@@ -10,6 +10,7 @@ const { tmpdir } = require('os');
 const { join } = require('path');
 const { agglomerate, createMatrix, createRandom } = require('../dist/index');
 
+/** @type {Record<string, { n: number, d: number, method: string, repeats: number, child?: boolean, peerOptional?: boolean }>} */
 const CASES = {
   ward8000: { n: 8000, d: 10, method: 'ward', repeats: 3 },
   average5000: { n: 5000, d: 10, method: 'average', repeats: 3 },
@@ -17,7 +18,12 @@ const CASES = {
   ward30000: { n: 30000, d: 8, method: 'ward', repeats: 1, child: true, peerOptional: true },
 };
 
-/** Gaussian blobs of our own making (seeded), so the tree has real structure. */
+/**
+ * Gaussian blobs of our own making (seeded), so the tree has real structure.
+ * @param {number} n
+ * @param {number} d
+ * @param {number} seed
+ */
 function makeData(n, d, seed) {
   const r = createRandom(seed);
   const centres = Array.from({ length: 12 }, () => Array.from({ length: d }, () => r.uniform(-10, 10)));
@@ -29,20 +35,30 @@ function makeData(n, d, seed) {
   return data;
 }
 
+/** @param {number[]} values */
 function median(values) {
   const s = [...values].sort((a, b) => a - b);
   return s[Math.floor(s.length / 2)];
 }
 
+/**
+ * @param {Float64Array} data
+ * @param {number} n
+ * @param {number} d
+ * @param {string} method
+ * @param {number} repeats
+ */
 function timeOurs(data, n, d, method, repeats) {
   const m = createMatrix(n, d, data);
   const times = [];
   const cpu = [];
+  /** @type {import('../src/index').Tree | undefined} */
   let tree;
   for (let r = 0; r < repeats; r++) {
     const c0 = process.cpuUsage();
     const t0 = process.hrtime.bigint();
-    tree = agglomerate(m, { method });
+    // An unknown method name is agglomerate's to reject at run time, as before typing.
+    tree = agglomerate(m, { method: /** @type {import('../src/index').LinkageMethod} */ (method) });
     times.push(Number(process.hrtime.bigint() - t0) / 1e9);
     const c = process.cpuUsage(c0);
     cpu.push((c.user + c.system) / 1e6);
@@ -50,7 +66,7 @@ function timeOurs(data, n, d, method, repeats) {
   return {
     seconds: median(times),
     cpuSeconds: median(cpu),
-    top: tree.merges[n - 2].height,
+    top: /** @type {import('../src/index').Tree} */ (tree).merges[n - 2].height, // repeats ≥ 1
     maxRssMB: process.resourceUsage().maxRSS / 1024,
   };
 }
@@ -75,7 +91,10 @@ for (const name of chosen) {
   writeFileSync(file, Buffer.from(data.buffer));
   const ours = c.child
     ? JSON.parse(
-        execFileSync(process.execPath, [__filename, '--child', file, c.n, c.d, c.method], { encoding: 'utf8', maxBuffer: 1 << 20 }),
+        execFileSync(process.execPath, [__filename, '--child', file, String(c.n), String(c.d), c.method], {
+          encoding: 'utf8',
+          maxBuffer: 1 << 20,
+        }),
       )
     : timeOurs(data, c.n, c.d, c.method, c.repeats);
   if (c.peerOptional && !peerAll) {
@@ -86,9 +105,13 @@ for (const name of chosen) {
     continue;
   }
   const peer = JSON.parse(
-    execFileSync('/usr/bin/python3', [join(__dirname, 'hierarchy_probe_scipy.py'), file, c.n, c.d, c.method, c.repeats], {
-      encoding: 'utf8',
-    }),
+    execFileSync(
+      '/usr/bin/python3',
+      [join(__dirname, 'hierarchy_probe_scipy.py'), file, String(c.n), String(c.d), c.method, String(c.repeats)],
+      {
+        encoding: 'utf8',
+      },
+    ),
   );
   const ratio = ours.seconds / peer.seconds;
   const cpuRatio = ours.cpuSeconds / peer.cpuSeconds;

@@ -4,11 +4,22 @@
 const { prepareDataSet } = require('./data');
 const { timeKinsort, timePython } = require('./compare');
 
+/** @param {number[]} ms */
 function growthPerDoubling(ms) {
   const g = Math.sqrt(ms[2] / ms[0]);
   return Number.isFinite(g) ? g : null;
 }
 
+/**
+ * @param {object} run
+ * @param {import('./data').Kinsort} run.kinsort
+ * @param {import('./cases').MainCase[]} run.cases
+ * @param {Record<string, { full: number, quick: number }>} run.scaling
+ * @param {boolean} run.quick
+ * @param {any} run.python the python peer (see python-peer.js), or null
+ * @param {number} run.seed
+ * @param {import('./timing').Timing} run.timing
+ */
 async function runScaling({ kinsort, cases, scaling, quick, python, seed, timing }) {
   const rows = [];
   for (const c of cases) {
@@ -22,7 +33,10 @@ async function runScaling({ kinsort, cases, scaling, quick, python, seed, timing
     for (const n of sizes) {
       const set = prepareDataSet(kinsort, { n, d, seed, tag: `scale-${c.id}` });
       mine.push((await timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, timing)).ms);
-      if (pythonPeer) theirs.push((await timePython(python, pythonPeer.python, set, pythonPeer.params, timing)).ms);
+      if (pythonPeer)
+        theirs.push(
+          (await timePython(python, /** @type {string} found by p.python */ (pythonPeer.python), set, pythonPeer.params, timing)).ms,
+        );
     }
     rows.push({
       type: 'scaling',

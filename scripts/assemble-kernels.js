@@ -14,6 +14,7 @@ const folder = join(__dirname, '..', 'src', 'methods', 'partition', 'kernels');
 /** name of each .wat file → its binary, assembled by wabt. */
 async function assembleKernels() {
   const wabt = await require('wabt')();
+  /** @type {Record<string, Buffer>} */
   const out = {};
   for (const file of readdirSync(folder)
     .filter((f) => f.endsWith('.wat'))
@@ -30,6 +31,7 @@ async function assembleKernels() {
   return out;
 }
 
+/** @param {Record<string, Buffer>} binaries */
 function generatedSource(binaries) {
   const version = require('wabt/package.json').version;
   const lines = [

@@ -10,14 +10,19 @@ const { chromium } = require('playwright-core');
 
 const root = path.join(__dirname, '..');
 const kinsort = require(path.join(root, 'dist', 'index.js'));
-const { study, readCsvFile, loadDefinition } = kinsort;
+const { study, readCsvFile } = kinsort;
 
+/**
+ * @param {string} name
+ * @param {string} fallback
+ */
 function argument(name, fallback) {
   const i = process.argv.indexOf(name);
   return i >= 0 && process.argv[i + 1] ? process.argv[i + 1] : fallback;
 }
 const outDir = path.resolve(argument('--out', path.join(root, 'docs', 'screenshots')));
 const only = argument('--only', '') ? argument('--only', '').split(',') : null;
+/** @param {string} f */
 const data = (f) => path.join(root, 'demo-data', f);
 
 // The demo recipe (scripts/demo.js), shortened: the same data, features and seeds.
