@@ -46,7 +46,7 @@ async function timeKinsort(kinsort, functionName, call, set, timing) {
 }
 
 /**
- * @param {any} python the python peer (see python-peer.js), or null when not run
+ * @param {import('./python-peer').PythonPeer | null} python null when not run
  * @param {string} caseName
  * @param {BenchSet} set
  * @param {object | undefined} params

@@ -7,6 +7,15 @@ const { timePythonOnce } = require('./python-peer');
 const { availableMB } = require('./machine');
 const { targetText, verdict } = require('./compare');
 
+/** @typedef {{ ms: number, peakMB: number, note?: string }} ChildMeasure */
+
+/**
+ * @param {string} distDir
+ * @param {import('./compare').BenchSet} set
+ * @param {string} method
+ * @param {number} timeoutMs
+ * @returns {Promise<ChildMeasure>}
+ */
 function runKinsortChild(distDir, set, method, timeoutMs) {
   const args = [path.join(__dirname, 'memory-child.js'), distDir, set.dataFile, String(set.n), String(set.d), method];
   return new Promise((resolve) => {
@@ -20,7 +29,8 @@ function runKinsortChild(distDir, set, method, timeoutMs) {
       clearTimeout(timer);
       if (code === 0) {
         try {
-          return resolve(JSON.parse(out.trim().split('\n').pop()));
+          // No last line: JSON.parse(undefined) throws into the catch, as before typing.
+          return resolve(JSON.parse(/** @type {string} */ (out.trim().split('\n').pop())));
         } catch {
           /* fall through to the failure below */
         }
@@ -34,13 +44,26 @@ function runKinsortChild(distDir, set, method, timeoutMs) {
 // SciPy at n = 30,000 took 77 s on a quiet run here (7 GB peak); a loaded machine needs longer.
 const SCIPY_TIMEOUT_MS = 600_000;
 
-/** SciPy's linkage keeps the condensed matrix and a copy: about n² · 8 bytes. */
+/**
+ * SciPy's linkage keeps the condensed matrix and a copy: about n² · 8 bytes.
+ * @param {number} n
+ */
 function scipyNeedsMB(n) {
   return (n * n * 8) / 2 ** 20;
 }
 
+/**
+ * @param {object} run
+ * @param {any} run.kinsort the built package, looked up by function name
+ * @param {string} run.distDir
+ * @param {typeof import('./cases').MEMORY_CASE} run.memoryCase
+ * @param {import('./compare').BenchSet} run.set
+ * @param {import('./python-peer').PythonPeer | null} run.python
+ * @param {boolean} run.skipPython
+ */
 async function runMemoryCase({ kinsort, distDir, memoryCase, set, python, skipPython }) {
   const base = { type: 'case', case: memoryCase.id, title: memoryCase.title, n: set.n, d: set.d };
+  /** @type {ChildMeasure} */
   let mine;
   if (typeof kinsort[memoryCase.kinsortFunction] !== 'function') {
     mine = { ms: NaN, peakMB: NaN, note: `kinsort.${memoryCase.kinsortFunction} is not in dist/ yet` };
@@ -48,6 +71,7 @@ async function runMemoryCase({ kinsort, distDir, memoryCase, set, python, skipPy
     mine = await runKinsortChild(distDir, set, memoryCase.method, 3 * memoryCase.maxMs);
   }
   const limitsMet = mine.ms <= memoryCase.maxMs && mine.peakMB <= memoryCase.maxMB;
+  /** @type {(typeof base & Record<string, unknown> & { kinsortTimes: number[] })[]} */
   const rows = [
     {
       ...base,
@@ -64,6 +88,7 @@ async function runMemoryCase({ kinsort, distDir, memoryCase, set, python, skipPy
     },
   ];
 
+  /** @type {ChildMeasure} */
   let peer = { ms: NaN, peakMB: NaN, note: 'python peer not run' };
   if (python && skipPython) peer.note = 'SciPy at this size skipped (--no-scipy-memory)';
   else if (python) {
@@ -76,7 +101,7 @@ async function runMemoryCase({ kinsort, distDir, memoryCase, set, python, skipPy
         const reply = await timePythonOnce(memoryCase.method, set, {}, { repeats: 1, budgetMs: 0, timeoutMs: SCIPY_TIMEOUT_MS });
         peer = { ms: reply.times[0], peakMB: reply.peakMB };
       } catch (err) {
-        peer.note = `SciPy failed: ${err.message}`;
+        peer.note = `SciPy failed: ${/** @type {Error} */ (err).message}`;
       }
     }
   }

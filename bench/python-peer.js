@@ -28,8 +28,10 @@ function pythonPeerAvailable() {
 function startPythonPeer() {
   const child = spawn(PYTHON, [PEER_SCRIPT], { env: peerEnvironment(), stdio: ['pipe', 'pipe', 'pipe'] });
   const lines = readline.createInterface({ input: child.stdout });
+  /** @type {{ resolve: (reply: any) => void, reject: (err: Error) => void }[]} */
   const waiting = [];
   let stderr = '';
+  /** @type {number | null} */
   let exited = null;
   child.stderr.on('data', (chunk) => {
     stderr = (stderr + chunk).slice(-4000);
@@ -50,6 +52,10 @@ function startPythonPeer() {
     for (const w of waiting.splice(0)) w.reject(new Error(`python peer exited (${code}): ${stderr}`));
   });
 
+  /**
+   * @param {object} command
+   * @returns {Promise<any>} the peer's JSON reply
+   */
   function ask(command) {
     if (exited !== null) return Promise.reject(new Error(`python peer exited (${exited}): ${stderr}`));
     return new Promise((resolve, reject) => {
@@ -60,7 +66,14 @@ function startPythonPeer() {
 
   return {
     info: () => ask({ op: 'info' }),
-    /** Time one case on a data set written by data.js; resolves to { times: [ms…] }. */
+    /**
+     * Time one case on a data set written by data.js; resolves to { times: [ms…] }.
+     * @param {string} caseName
+     * @param {import('./compare').BenchSet} dataSet
+     * @param {object | undefined} params
+     * @param {{ repeats: number, budgetMs?: number }} timing
+     * @returns {Promise<{ times: number[] }>}
+     */
     time: (caseName, dataSet, params, { repeats, budgetMs }) =>
       ask({
         op: 'time',
@@ -79,7 +92,14 @@ function startPythonPeer() {
   };
 }
 
-/** One fresh python process for one case, reporting its peak resident memory (the memory case). */
+/**
+ * One fresh python process for one case, reporting its peak resident memory (the memory case).
+ * @param {string} caseName
+ * @param {import('./compare').BenchSet} dataSet
+ * @param {object} params
+ * @param {{ repeats: number, budgetMs: number, timeoutMs: number }} limits
+ * @returns {Promise<{ times: number[], peakMB: number }>}
+ */
 function timePythonOnce(caseName, dataSet, params, { repeats, budgetMs, timeoutMs }) {
   const command = {
     op: 'time',
@@ -108,7 +128,8 @@ function timePythonOnce(caseName, dataSet, params, { repeats, budgetMs, timeoutM
       if (timedOut) return reject(new Error(`python peer (once) stopped by the bench after ${timeoutMs / 1000} s`));
       if (code !== 0) return reject(new Error(`python peer (once) ended with ${signal ?? code}: ${err}`));
       try {
-        const reply = JSON.parse(out.trim().split('\n').pop());
+        // No last line: JSON.parse(undefined) throws into the catch below, as before typing.
+        const reply = JSON.parse(/** @type {string} */ (out.trim().split('\n').pop()));
         if (reply.error) reject(new Error(reply.error));
         else resolve(reply);
       } catch {
@@ -117,5 +138,7 @@ function timePythonOnce(caseName, dataSet, params, { repeats, budgetMs, timeoutM
     });
   });
 }
+
+/** @typedef {ReturnType<typeof startPythonPeer>} PythonPeer */
 
 module.exports = { pythonPeerAvailable, startPythonPeer, timePythonOnce, PYTHON };

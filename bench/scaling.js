@@ -16,7 +16,7 @@ function growthPerDoubling(ms) {
  * @param {import('./cases').MainCase[]} run.cases
  * @param {Record<string, { full: number, quick: number }>} run.scaling
  * @param {boolean} run.quick
- * @param {any} run.python the python peer (see python-peer.js), or null
+ * @param {import('./python-peer').PythonPeer | null} run.python
  * @param {number} run.seed
  * @param {import('./timing').Timing} run.timing
  */
