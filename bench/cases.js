@@ -170,7 +170,10 @@ const MAIN_CASES = [
  */
 const HCLUST_MAX_ROWS = { full: 2_000, quick: 200 }; // quick: the main cases take the skip path
 
-/** ml-hclust's own cases: kinsort against it at a size where it finishes. */
+/**
+ * ml-hclust's own cases: kinsort against it at a size where it finishes.
+ * @type {{ id: string, method: import('../src/index').LinkageMethod, full: { n: number, d: number }, quick: { n: number, d: number } }[]}
+ */
 const HCLUST_CASES = [
   { id: 'ward-small', method: 'ward', full: { n: 2_000, d: 10 }, quick: { n: 100, d: 10 } },
   { id: 'average-small', method: 'average', full: { n: 2_000, d: 10 }, quick: { n: 100, d: 10 } },

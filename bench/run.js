@@ -23,7 +23,9 @@ const { caseTable, scalingTable, machineText } = require('./report');
 
 const DIST = path.join(__dirname, '..', 'dist');
 
+/** @param {string[]} argv */
 function parseArgs(argv) {
+  /** @type {{ quick: boolean, json: string | null, only: Set<string> | null, python: boolean, scipyMemory: boolean, scaling: boolean }} */
   const args = { quick: false, json: null, only: null, python: true, scipyMemory: true, scaling: true };
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
@@ -49,11 +51,15 @@ function loadKinsort() {
 async function main() {
   const args = parseArgs(process.argv.slice(2));
   const toStdout = args.json === '-';
+  /** @param {string} text */
   const say = (text) => (toStdout ? process.stderr : process.stdout).write(text + '\n');
+  /** @param {string} text */
   const progress = (text) => process.stderr.write(`  … ${text}\n`);
+  /** @param {string} id */
   const wanted = (id) => !args.only || args.only.has(id);
 
   const kinsort = loadKinsort();
+  /** @param {{ quick: { n: number, d: number }, full: { n: number, d: number } }} c */
   const size = (c) => (args.quick ? c.quick : c.full);
   const hclustMaxRows = args.quick ? HCLUST_MAX_ROWS.quick : HCLUST_MAX_ROWS.full;
   // Repeats: medians of up to 5 (quick: one run, it only proves the harness works); a tool stops
@@ -74,6 +80,7 @@ async function main() {
   });
 
   const rows = [];
+  /** @type {Record<string, { n: number, ms: number }>} */
   const hclustMeasured = {};
   try {
     // ml-hclust first, at a size it finishes, so the big cases can say how long it would take.
@@ -82,6 +89,7 @@ async function main() {
       const set = prepareDataSet(kinsort, { ...size(hc), seed: SEED, tag: hc.id });
       const nested = toNestedRows(set.data, set.n, set.d);
       progress(`${hc.method} ${set.n} × ${set.d}: kinsort and ml-hclust, interleaved`);
+      /** @type {import('./cases').MainCase['kinsort']} */
       const call = (ks, m) => ks.agglomerate(m, { method: hc.method });
       const [mine, theirs] = await timeInterleaved(
         [
@@ -91,7 +99,8 @@ async function main() {
         timing,
       );
       hclustMeasured[hc.method] = { n: set.n, ms: theirs.ms };
-      const title = MAIN_CASES.find((c) => c.id === hc.method).title;
+      // Every ml-hclust method is also a main case of that name.
+      const title = /** @type {import('./cases').MainCase} */ (MAIN_CASES.find((c) => c.id === hc.method)).title;
       rows.push(makeRow({ caseId: hc.id, title, set, tool: `ml-hclust agnes ${hc.method}`, kinsort: mine, peer: theirs, ratioMax: 0.01 }));
     }
 
@@ -100,18 +109,29 @@ async function main() {
       const set = prepareDataSet(kinsort, { ...size(c), seed: SEED, tag: c.id, spread: c.spread });
       const nested = c.peers.some((p) => p.npm || p.hclust) ? toNestedRows(set.data, set.n, set.d) : null;
       progress(`${c.id} ${set.n} × ${set.d}: kinsort, ${c.peers.map((p) => p.tool).join(', ')}, interleaved`);
+      // In the closures below the peer's fields are those the if/else chain chose it by, and
+      // `nested` was built because a peer has npm or hclust: the casts only say so.
+      /** @type {import('./compare').InterleavedTool[]} */
       const tools = [{ run: (t) => timeKinsort(kinsort, c.kinsortFunction, c.kinsort, set, t), warmUp: c.warmUp }];
       for (const peer of c.peers) {
         if (peer.python)
           tools.push({
-            run: (t) => timePython(python, peer.python, set, (args.quick && peer.quickParams) || peer.params, t),
+            run: (t) => timePython(python, /** @type {string} */ (peer.python), set, (args.quick && peer.quickParams) || peer.params, t),
             warmUp: c.warmUp,
           });
-        else if (peer.npm) tools.push({ run: (t) => timeNpm((r) => peer.npm(npmPeers, r), nested, t), maxRepeats: peer.repeats });
+        else if (peer.npm)
+          tools.push({
+            run: (t) =>
+              timeNpm((r) => /** @type {NonNullable<typeof peer.npm>} */ (peer.npm)(npmPeers, r), /** @type {number[][]} */ (nested), t),
+            maxRepeats: peer.repeats,
+          });
         else if (set.n > hclustMaxRows) {
-          const note = hclustSkipNote(set.n, hclustMaxRows, hclustMeasured[peer.hclust]);
+          const note = hclustSkipNote(set.n, hclustMaxRows, hclustMeasured[/** @type {string} */ (peer.hclust)]);
           tools.push({ run: async () => ({ ms: NaN, times: [], note }) });
-        } else tools.push({ run: (t) => timeNpm((r) => npmPeers.agglomerate(r, peer.hclust), nested, t) });
+        } else
+          tools.push({
+            run: (t) => timeNpm((r) => npmPeers.agglomerate(r, /** @type {string} */ (peer.hclust)), /** @type {number[][]} */ (nested), t),
+          });
       }
       const [mine, ...theirs] = await timeInterleaved(tools, timing);
       c.peers.forEach((peer, i) =>
@@ -125,6 +145,7 @@ async function main() {
       rows.push(...(await runMemoryCase({ kinsort, distDir: DIST, memoryCase: MEMORY_CASE, set, python, skipPython: !args.scipyMemory })));
     }
 
+    /** @type {Awaited<ReturnType<typeof runScaling>>} */
     let scaling = [];
     if (args.scaling) {
       progress('scaling: n, 2n, 4n');
@@ -154,6 +175,11 @@ async function main() {
   }
 }
 
+/**
+ * @param {number} n
+ * @param {number} maxRows
+ * @param {{ n: number, ms: number } | undefined} measured
+ */
 function hclustSkipNote(n, maxRows, measured) {
   const estimate =
     measured && Number.isFinite(measured.ms)
@@ -162,11 +188,16 @@ function hclustSkipNote(n, maxRows, measured) {
   return `ml-hclust skipped above n = ${maxRows}: it is cubic in n${estimate}`;
 }
 
+/** @param {number} ms */
 function seconds(ms) {
   return ms >= 10_000 ? `${Math.round(ms / 1000)} s` : `${(ms / 1000).toFixed(1)} s`;
 }
 
 // JSON has no NaN: write missing figures as null.
+/**
+ * @param {string} key
+ * @param {unknown} value
+ */
 function finiteOrNull(key, value) {
   return typeof value === 'number' && !Number.isFinite(value) ? null : value;
 }
