@@ -27,7 +27,7 @@ function availableMB() {
 }
 
 /**
- * @param {{ mode: string, python?: string | null, pythonMissing?: string | null, npmPeers: unknown }} run
+ * @param {{ mode: string, python?: PythonInfo | null, pythonMissing?: string | null, npmPeers: Record<string, string> }} run
  */
 function describeMachine({ mode, python, pythonMissing, npmPeers }) {
   return {
@@ -48,5 +48,15 @@ function describeMachine({ mode, python, pythonMissing, npmPeers }) {
     exposeGc: typeof global.gc === 'function',
   };
 }
+
+/**
+ * @typedef {object} PythonInfo what the python peer reports about itself (bench/peer.py)
+ * @property {string} python
+ * @property {string} numpy
+ * @property {string} scipy
+ * @property {string} sklearn
+ * @property {string} blasKernel
+ * @property {{ internal_api: string, num_threads: number }[]} [threadpools]
+ */
 
 module.exports = { describeMachine, availableMB };

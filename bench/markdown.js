@@ -5,7 +5,12 @@
 const fs = require('fs');
 const { formatMs } = require('./report');
 
+/**
+ * @param {string[]} headers
+ * @param {string[][]} rows
+ */
 function mdTable(headers, rows) {
+  /** @param {string} cell */
   const esc = (cell) => String(cell).replace(/\|/g, '\\|');
   return [
     `| ${headers.map(esc).join(' | ')} |`,
@@ -14,13 +19,20 @@ function mdTable(headers, rows) {
   ].join('\n');
 }
 
-const mb = (x) => (Number.isFinite(x) ? x.toFixed(0) : '—');
+/** @param {number | null | undefined} x */
+const mb = (x) => (Number.isFinite(x) ? /** @type {number} */ (x).toFixed(0) : '—');
+/** @param {import('./report').CaseRow} r */
 const ratio = (r) => (r.ratio === null || r.ratio === undefined ? '—' : `${r.ratio.toFixed(3)}×`);
+/** @param {number | null | undefined} x */
 const ms = (x) => (x === null || x === undefined ? '—' : formatMs(x));
 
+/** @param {any[]} lines the bench's JSON lines, parsed (each has a `type`) */
 function toMarkdown(lines) {
+  /** @type {import('./report').MachineRow | undefined} */
   const machine = lines.find((l) => l.type === 'machine');
+  /** @type {import('./report').CaseRow[]} */
   const cases = lines.filter((l) => l.type === 'case');
+  /** @type {import('./report').ScalingRow[]} */
   const scaling = lines.filter((l) => l.type === 'scaling');
   const out = [];
   if (machine) {

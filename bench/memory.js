@@ -71,7 +71,7 @@ async function runMemoryCase({ kinsort, distDir, memoryCase, set, python, skipPy
     mine = await runKinsortChild(distDir, set, memoryCase.method, 3 * memoryCase.maxMs);
   }
   const limitsMet = mine.ms <= memoryCase.maxMs && mine.peakMB <= memoryCase.maxMB;
-  /** @type {(typeof base & Record<string, unknown> & { kinsortTimes: number[] })[]} */
+  /** @type {(import('./report').CaseRow & Record<string, unknown> & { kinsortTimes: number[] })[]} */
   const rows = [
     {
       ...base,

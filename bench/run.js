@@ -79,6 +79,7 @@ async function main() {
     npmPeers: npmPeers.versions,
   });
 
+  /** @type {import('./report').CaseRow[]} */
   const rows = [];
   /** @type {Record<string, { n: number, ms: number }>} */
   const hclustMeasured = {};
