@@ -21,23 +21,33 @@ const http = require('http');
 const POSTGRES_BIN = process.env.KINSORT_POSTGRES_BIN || '/usr/lib/postgresql/15/bin';
 const CLICKHOUSE_SERVER = process.env.KINSORT_CLICKHOUSE_SERVER || '/usr/sbin/clickhouse-server';
 
-/** A TCP port nobody listens on right now (the kernel picks it). */
+/**
+ * A TCP port nobody listens on right now (the kernel picks it).
+ * @returns {Promise<number>}
+ */
 function freePort() {
   return new Promise((resolve, reject) => {
     const server = net.createServer();
     server.unref();
     server.on('error', reject);
     server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address();
+      // Listening on TCP, so the address is an AddressInfo, never a pipe name or null.
+      const { port } = /** @type {import('net').AddressInfo} */ (server.address());
       server.close(() => resolve(port));
     });
   });
 }
 
+/** @param {number} ms */
 const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
 const isRoot = () => typeof process.getuid === 'function' && process.getuid() === 0;
 
-/** PostgreSQL refuses to run as root: as root, its programs run as the `postgres` user. */
+/**
+ * PostgreSQL refuses to run as root: as root, its programs run as the `postgres` user.
+ * @param {string} program
+ * @param {string[]} args
+ * @param {import('child_process').ExecFileSyncOptions} [options]
+ */
 function asPostgresUser(program, args, options = {}) {
   const file = path.join(POSTGRES_BIN, program);
   return isRoot() ? execFileSync('runuser', ['-u', 'postgres', '--', file, ...args], options) : execFileSync(file, args, options);
@@ -51,6 +61,7 @@ function clickhouseAvailable() {
   return fs.existsSync(CLICKHOUSE_SERVER);
 }
 
+/** @param {string} name */
 function temporaryFolder(name) {
   const folder = fs.mkdtempSync(path.join(os.tmpdir(), `kinsort-${name}-`));
   fs.chmodSync(folder, 0o755);
@@ -87,6 +98,14 @@ async function startPostgres() {
   return { ...info, stop: () => stopFolder(folder) };
 }
 
+/** @typedef {{ http: number, tcp: number, interserver: number }} ShardPorts */
+
+/**
+ * @param {string} folder
+ * @param {number} shard
+ * @param {ShardPorts} ports
+ * @param {number[]} shardPorts
+ */
 function clickhouseConfig(folder, shard, ports, shardPorts) {
   const dir = path.join(folder, `shard${shard}`);
   for (const sub of ['data', 'tmp', 'user_files', 'log']) fs.mkdirSync(path.join(dir, sub), { recursive: true });
@@ -128,12 +147,18 @@ const CLICKHOUSE_USERS = `<?xml version="1.0"?>
 </yandex>
 `;
 
-/** One statement over ClickHouse's HTTP interface; resolves to the response text. */
+/**
+ * One statement over ClickHouse's HTTP interface; resolves to the response text.
+ * @param {number} port
+ * @param {string} sql
+ * @returns {Promise<string>}
+ */
 function clickhouseHttp(port, sql) {
   return new Promise((resolve, reject) => {
     const request = http.request(
       { host: '127.0.0.1', port, method: 'POST', path: '/', headers: { 'Content-Type': 'text/plain; charset=utf-8' } },
       (response) => {
+        /** @type {Buffer[]} */
         const chunks = [];
         response.on('data', (c) => chunks.push(c));
         response.on('end', () => {
@@ -148,6 +173,11 @@ function clickhouseHttp(port, sql) {
   });
 }
 
+/**
+ * @param {number} port
+ * @param {import('child_process').ChildProcess} process
+ * @param {string} log
+ */
 async function waitUntilAnswering(port, process, log) {
   for (let i = 0; i < 300; i++) {
     if (process.exitCode !== null) break;
@@ -173,6 +203,7 @@ async function startClickHouse() {
   }
   const folder = temporaryFolder('clickhouse');
   fs.writeFileSync(path.join(folder, 'users.xml'), CLICKHOUSE_USERS);
+  /** @type {ShardPorts[]} */
   const ports = [];
   for (let s = 0; s < 2; s++) ports.push({ http: await freePort(), tcp: await freePort(), interserver: await freePort() });
   const pids = [];
@@ -208,6 +239,7 @@ async function startClickHouse() {
   return { ...info, stop: () => stopFolder(folder) };
 }
 
+/** @param {number} pid */
 function processAlive(pid) {
   try {
     process.kill(pid, 0);
@@ -218,6 +250,7 @@ function processAlive(pid) {
 }
 
 /** Stop whatever `start` left in `folder` (PostgreSQL via pg_ctl, ClickHouse by its pids), then remove the folder. */
+/** @param {string} folder */
 function stopFolder(folder) {
   const data = path.join(folder, 'data');
   if (fs.existsSync(path.join(data, 'postmaster.pid'))) {
