@@ -13,9 +13,14 @@ if (!fs.existsSync(path.join(root, 'dist', 'index.js'))) {
   console.error('kinsort demo: dist/ is missing; run "npm run build" first.');
   process.exit(2);
 }
+/** @type {typeof import('../src/index')} */
 const kinsort = require(path.join(root, 'dist', 'index.js'));
 const { study, readCsvFile, plottingScript, loadDefinition } = kinsort;
 
+/**
+ * @param {string} name
+ * @param {string} fallback
+ */
 function argument(name, fallback) {
   const i = process.argv.indexOf(name);
   return i >= 0 && process.argv[i + 1] ? process.argv[i + 1] : fallback;
@@ -41,6 +46,7 @@ const K = 5;
 
 // Names go to the segment whose card shows the trait, not to a fixed number, so they stay right
 // even if a different seed or a change in the k-means core numbers the segments differently.
+/** @type {{ trait: [string, string | null, number], title: string, text: string }[]} */
 const NAMES = [
   {
     trait: ['peak_share', null, +1],
@@ -53,7 +59,11 @@ const NAMES = [
   { trait: ['tenure_months', null, -1], title: 'Occasional newcomers', text: 'Few trips a week and recently joined; little autopay.' },
 ];
 
-/** Segment (1..k) whose card shows each trait most strongly, each segment used once. */
+/**
+ * Segment (1..k) whose card shows each trait most strongly, each segment used once.
+ * @param {import('../src/index').SegmentProfile[]} profiles
+ * @param {typeof NAMES} names
+ */
 function segmentsByTrait(profiles, names) {
   const taken = new Set();
   return names.map(({ trait: [variable, level, sign] }) => {
@@ -73,6 +83,11 @@ function segmentsByTrait(profiles, names) {
   });
 }
 
+/**
+ * @param {string} text
+ * @param {string} start
+ * @param {string} end
+ */
 function between(text, start, end) {
   const a = text.indexOf(start);
   const b = text.indexOf(end, a + start.length);
@@ -83,6 +98,9 @@ function between(text, start, end) {
 /**
  * The evidence for k and the k the demo fits, as one story: the recommendation and its rule, what
  * the other criteria say, and either agreement with the fitted k or the reason to depart from it.
+ * @param {import('../src/index').CompareKResult} evidence
+ * @param {number} k
+ * @param {import('../src/index').StabilityResult} stability
  */
 function evidenceInWords(evidence, k, stability) {
   const row = evidence.table.find((r) => r.k === k);
@@ -104,7 +122,8 @@ function evidenceInWords(evidence, k, stability) {
         (strength === undefined ? 'stays below 0.8 at every k' : `holds at 0.8 or more up to k = ${strength}`) +
         ` (${atRecommended.predictionStrength.toFixed(2)} at k = ${evidence.recommended}): the groups overlap, so half the rows place ` +
         `the boundaries less firmly, while on all rows every segment at k = ${evidence.recommended} keeps a bootstrap Jaccard of ` +
-        `${atRecommended.weakestStability.toFixed(2)} or more.`,
+        // The demo's compareK keeps stability on (its default), so every row carries it.
+        `${/** @type {number} */ (atRecommended.weakestStability).toFixed(2)} or more.`,
     );
   }
   if (evidence.recommended === k) {
@@ -115,8 +134,9 @@ function evidenceInWords(evidence, k, stability) {
   } else {
     sentences.push(
       `We fit k = ${k}, not the recommended k = ${evidence.recommended}: ` +
-        (row && row.weakestStability >= 0.75
-          ? `every segment at k = ${k} is stable too (weakest Jaccard ${row.weakestStability.toFixed(2)}) and ${k} segments serve the operator's campaigns better.`
+        // Stability on (compareK's default): the casts only say so; undefined would compare false as before.
+        (row && /** @type {number} */ (row.weakestStability) >= 0.75
+          ? `every segment at k = ${k} is stable too (weakest Jaccard ${/** @type {number} */ (row.weakestStability).toFixed(2)}) and ${k} segments serve the operator's campaigns better.`
           : `this departs from the evidence and the segments should be read with care.`),
     );
   }
@@ -129,12 +149,17 @@ function evidenceInWords(evidence, k, stability) {
   return sentences.join(' ');
 }
 
+/** @param {unknown} s */
 function escape(s) {
-  return String(s).replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]);
+  return String(s).replace(
+    /[&<>"']/g,
+    (c) => /** @type {Record<string, string>} */ ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c],
+  );
 }
 
 function main() {
   const started = Date.now();
+  /** @param {string} line */
   const say = (line) => console.log(`  ${line}`);
   console.log('kinsort demo: segmenting the demo pass holders');
 
@@ -224,6 +249,8 @@ function main() {
 try {
   main();
 } catch (e) {
-  console.error(`kinsort demo: ${e && e.message ? e.message : e}`);
+  // Anything can be thrown; an Error is told by its message.
+  const thrown = /** @type {any} */ (e);
+  console.error(`kinsort demo: ${thrown && thrown.message ? thrown.message : thrown}`);
   process.exit(1);
 }
