@@ -22,6 +22,7 @@ function argument(name, fallback) {
 }
 const outDir = path.resolve(argument('--out', path.join(root, 'docs', 'screenshots')));
 const only = argument('--only', '') ? argument('--only', '').split(',') : null;
+const { NAMES, segmentsByTrait } = require('./demo-names');
 /** @param {string} f */
 const data = (f) => path.join(root, 'demo-data', f);
 
@@ -33,14 +34,9 @@ function views() {
     keep: ['home_zone', 'age_band', 'monthly_spend'],
   }).prepare({ scale: 'robust', log: ['trips_per_week', 'avg_trip_km', 'topups_per_month', 'tenure_months'], missing: 'median' });
   const seg = holders.kmeans({ k: 5, seed: 11, restarts: 25 });
-  const titles = [
-    'Weekday peak commuters',
-    'Students topping up',
-    'Long-distance regulars',
-    'Weekend and off-peak riders',
-    'Occasional newcomers',
-  ];
-  titles.forEach((title, s) => seg.name(s + 1, { title }));
+  // Named as the demo names them: by the trait each card shows, not by segment number.
+  const numbers = segmentsByTrait(seg.profiles(), NAMES);
+  NAMES.forEach((n, i) => seg.name(numbers[i], { title: n.title, text: n.text }));
   const stations = study(readCsvFile(data('stations.csv')), { id: 'station' }).prepare({
     scale: 'zscore',
     log: ['weekday_boardings', 'weekend_boardings', 'parking_spaces', 'bike_docks'],

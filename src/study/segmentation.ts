@@ -62,8 +62,14 @@ const NAME_OPTIONS = ['title', 'text'];
 export class Segmentation {
   readonly method: DefinitionMethodName;
   readonly k: number;
-  /** Segment of every prepared row, 0..k-1 (people-facing numbers are 1..k). */
+  /**
+   * Segment of every prepared row, 0..k-1: the functional core's numbering (index into `centers`,
+   * `sizes`). Everything a person reads (names, cards, profiles, members, definitions, `segments`)
+   * numbers segments 1..k.
+   */
   readonly assignment: Int32Array;
+  /** Segment of every prepared row, 1..k, as names, cards, members and definitions number them. */
+  readonly segments: Int32Array;
   /** Ids of the prepared rows, in the same order as `assignment`. */
   readonly ids: readonly string[];
   /** Rows per segment, segment 1 first. */
@@ -95,6 +101,7 @@ export class Segmentation {
   constructor(parts: SegmentationParts) {
     this.method = parts.method;
     this.assignment = parts.assignment;
+    this.segments = Int32Array.from(parts.assignment, (a) => a + 1);
     this.centers = parts.centers;
     this.k = parts.centers.length;
     this.medoids = parts.medoids;

@@ -358,12 +358,14 @@ function evidenceTable(rows: readonly KEvidenceRow[], panels: readonly PanelSpec
   const body = rows
     .map(
       (r) =>
-        `<tr${r.k === rec ? ' class="ks-chosen" style="font-weight:700;background:#fbecef"' : ''}><td style="white-space:nowrap">${r.k}${r.k === rec ? ' · recommended' : ''}</td>` +
+        `<tr${r.k === rec ? ' class="ks-chosen" style="font-weight:700;background:#fbecef"' : ''}><td style="white-space:nowrap">${r.k}${r.k === rec ? ' ◂' : ''}</td>` +
         panels.map((p) => cell(valueOf(r, p))).join('') +
         (withMean ? cell(r.stability) : '') +
         (withStrength ? cell(r.predictionStrength) : '') +
         '</tr>',
     )
     .join('');
-  return `<table class="ks-table"><thead>${head}</thead><tbody>${body}</tbody></table>`;
+  // Scrolls sideways rather than being cut when the notebook is narrower than the table.
+  const note = rec === undefined ? '' : `<p style="font-size:12px;margin:4px 0 0">◂ and shading: the recommended k.</p>`;
+  return `<div style="overflow-x:auto"><table class="ks-table"><thead>${head}</thead><tbody>${body}</tbody></table></div>${note}`;
 }

@@ -161,9 +161,10 @@ describe("the Deno notebook in Deno's kernel", () => {
   it('exported to HTML: plotly draws the charts with scripts on', async () => {
     browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
     const page = await browser.newPage({ viewport: { width: 1100, height: 900 } });
-    await page.goto('file://' + path.join(out, 'full.html'));
+    await page.goto('file://' + path.join(out, 'full.html'), { timeout: 120_000 });
+    // Live charts: the evidence for k and the projection (silhouettes and cards are SVG and HTML only).
     const charts = await page.locator('figure.kinsort-view .ks-live').count();
-    expect(charts).toBeGreaterThanOrEqual(3);
+    expect(charts).toBe(2);
     await page.waitForFunction((n) => document.querySelectorAll('[data-drawn="plotly"]').length === n, charts, { timeout: 90_000 });
-  }, 120_000);
+  }, 240_000);
 });
