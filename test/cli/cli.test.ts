@@ -1,27 +1,23 @@
 // The kinsort command line, run as a child process (node bin/kinsort.js, on the built dist/).
 // Results are compared with the functional core called in-process on the same files; data of our
 // own making (test/segments/definition-data.ts, fixed seeds).
-import { spawnSync, execFileSync } from 'child_process';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'fs';
 import { tmpdir } from 'os';
-import { join, resolve } from 'path';
+import { join } from 'path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readCsvFile } from '../../src/table';
 import { prepareTable } from '../../src/prepare';
 import { kmeans } from '../../src/methods/partition';
 import { loadDefinition } from '../../src/study/definition-handle';
 import { riders, toCsv } from '../segments/definition-data';
+import { REPO_ROOT, buildDistIfMissing, cliIn } from './cli-runner';
 
-const root = resolve(__dirname, '../..');
-const bin = join(root, 'bin/kinsort.js');
+const root = REPO_ROOT;
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-cli-'));
 const train = join(dir, 'train.csv');
 const fresh = join(dir, 'new.csv');
 
-function kinsort(...args: string[]) {
-  const r = spawnSync(process.execPath, [bin, ...args], { cwd: dir, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+const kinsort = cliIn(dir);
 
 const FIT = [
   'fit',
@@ -46,15 +42,7 @@ const FIT = [
 
 beforeAll(() => {
   // `npm test` builds dist/ first; running this folder alone builds it when absent.
-  if (!existsSync(join(root, 'dist/cli/main.js'))) {
-    try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
-        stdio: 'ignore',
-      });
-    } catch {
-      /* type errors elsewhere still emit JavaScript */
-    }
-  }
+  buildDistIfMissing();
   writeFileSync(train, toCsv(riders(150, 13)));
   const rows = riders(30, 14, 'n').map((r) => ({ ...r, comment: 'extra' }));
   rows[2].trips = null;

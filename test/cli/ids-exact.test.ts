@@ -1,32 +1,19 @@
 // Ids pass through the command line unchanged: fit on a file, assign it, and the scored CSV holds the
 // very id texts of the input (leading zeros, 20 digits, 1.0 vs 1) — the file joins back to its source.
 // Data of our own making. CSV as RFC 4180 describes it.
-import { spawnSync, execFileSync } from 'child_process';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'fs';
 import { tmpdir } from 'os';
-import { join, resolve } from 'path';
+import { join } from 'path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readTable } from '../../src/table';
+import { buildDistIfMissing, cliIn } from './cli-runner';
 
-const root = resolve(__dirname, '../..');
-const bin = join(root, 'bin/kinsort.js');
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-ids-'));
 
-function kinsort(...args: string[]) {
-  const r = spawnSync(process.execPath, [bin, ...args], { cwd: dir, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+const kinsort = cliIn(dir);
 
 beforeAll(() => {
-  if (!existsSync(join(root, 'dist/cli/main.js'))) {
-    try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
-        stdio: 'ignore',
-      });
-    } catch {
-      /* type errors elsewhere still emit JavaScript */
-    }
-  }
+  buildDistIfMissing();
 }, 120_000);
 
 describe('kinsort fit / assign keep ids exactly', () => {

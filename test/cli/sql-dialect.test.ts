@@ -1,32 +1,19 @@
 // `kinsort sql --dialect`: the command writes the same text as toSql for each dialect, refuses an
 // unknown dialect and a hostile table name in one line (node bin/kinsort.js, on the built dist/).
-import { spawnSync, execFileSync } from 'child_process';
-import { existsSync, mkdtempSync, writeFileSync } from 'fs';
+import { mkdtempSync, writeFileSync } from 'fs';
 import { tmpdir } from 'os';
-import { join, resolve } from 'path';
+import { join } from 'path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { loadDefinition } from '../../src/study/definition-handle';
 import { riders, toCsv } from '../segments/definition-data';
+import { buildDistIfMissing, cliIn } from './cli-runner';
 
-const root = resolve(__dirname, '../..');
-const bin = join(root, 'bin/kinsort.js');
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-cli-sql-'));
 
-function kinsort(...args: string[]) {
-  const r = spawnSync(process.execPath, [bin, ...args], { cwd: dir, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+const kinsort = cliIn(dir);
 
 beforeAll(() => {
-  if (!existsSync(join(root, 'dist/cli/main.js'))) {
-    try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
-        stdio: 'ignore',
-      });
-    } catch {
-      /* type errors elsewhere still emit JavaScript */
-    }
-  }
+  buildDistIfMissing();
   writeFileSync(join(dir, 'train.csv'), toCsv(riders(80, 21)));
   const fit = kinsort(
     'fit',

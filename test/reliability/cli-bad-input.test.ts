@@ -1,22 +1,17 @@
 // The command line under bad input (node bin/kinsort.js on the built dist/): every case prints one
 // line starting "kinsort:" to standard error, never a stack trace or an internal error, and exits
 // with status 2. Data of our own making (test/segments/definition-data.ts, seeded).
-import { execFileSync, spawnSync } from 'child_process';
-import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'fs';
 import { tmpdir } from 'os';
-import { join, resolve } from 'path';
+import { join } from 'path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { riders, toCsv } from '../segments/definition-data';
+import { buildDistIfMissing, cliIn } from '../cli/cli-runner';
 
-const root = resolve(__dirname, '../..');
-const bin = join(root, 'bin/kinsort.js');
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-cli-bad-'));
 const at = (name: string) => join(dir, name);
 
-function kinsort(...args: string[]) {
-  const r = spawnSync(process.execPath, [bin, ...args], { cwd: dir, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+const kinsort = cliIn(dir);
 
 /** Exit 2, one line on stderr starting "kinsort:", no stack, no internal error, mentioning each part. */
 function expectOneLineRefusal(r: ReturnType<typeof kinsort>, ...mention: (string | RegExp)[]) {
@@ -45,15 +40,7 @@ const FIT = (data: string, ...more: string[]) => [
 ];
 
 beforeAll(() => {
-  if (!existsSync(join(root, 'dist/cli/main.js'))) {
-    try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
-        stdio: 'ignore',
-      });
-    } catch {
-      /* type errors elsewhere still emit JavaScript */
-    }
-  }
+  buildDistIfMissing();
   const good = riders(60, 41);
   writeFileSync(at('good.csv'), toCsv(good));
   const withNaN = good.map((r) => ({ ...r }));

@@ -2,26 +2,22 @@
 // names that plain objects inherit, outputs that would overwrite inputs, repeated flags, ids that
 // carry line breaks or terminal escapes, formula-looking ids in the scored CSV, special files, and
 // the summary silhouette on many rows. Data of our own making (seeded riders, hand-made tables).
-import { execFileSync, spawnSync } from 'child_process';
+import { execFileSync } from 'child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'fs';
 import { tmpdir } from 'os';
-import { join, resolve } from 'path';
+import { join } from 'path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { readTable } from '../../src';
 import { readsAsFormula, scoredCsv } from '../../src/cli/csv-out';
 import type { AssignmentOutcome } from '../../src/segments/assign-rows';
 import { riders, toCsv } from '../segments/definition-data';
+import { buildDistIfMissing, cliIn } from '../cli/cli-runner';
 
-const root = resolve(__dirname, '../..');
-const bin = join(root, 'bin/kinsort.js');
 const dir = mkdtempSync(join(tmpdir(), 'kinsort-cli-hostile-'));
 const at = (name: string) => join(dir, name);
 
-function kinsort(...args: string[]) {
-  // A generous timeout: any case here that hangs is a failure, not a wait.
-  const r = spawnSync(process.execPath, [bin, ...args], { cwd: dir, encoding: 'utf8', timeout: 120_000 });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+// A generous timeout: any case here that hangs is a failure, not a wait.
+const kinsort = cliIn(dir, { timeout: 120_000 });
 
 function expectOneLineRefusal(r: ReturnType<typeof kinsort>, ...mention: (string | RegExp)[]) {
   expect(r.status, r.stderr).toBe(2);
@@ -35,15 +31,7 @@ function expectOneLineRefusal(r: ReturnType<typeof kinsort>, ...mention: (string
 const USE = ['--id', 'rider', '--use', 'trips,peak,tenure', '--method', 'kmeans', '--k', '3'];
 
 beforeAll(() => {
-  if (!existsSync(join(root, 'dist/cli/main.js'))) {
-    try {
-      execFileSync(process.execPath, [join(root, 'node_modules/typescript/bin/tsc'), '-p', join(root, 'tsconfig.build.json')], {
-        stdio: 'ignore',
-      });
-    } catch {
-      /* type errors elsewhere still emit JavaScript */
-    }
-  }
+  buildDistIfMissing();
   writeFileSync(at('good.csv'), toCsv(riders(60, 41)));
   const fit = kinsort('fit', at('good.csv'), ...USE, '--out', at('def.json'));
   if (fit.status !== 0) throw new Error(fit.stderr);
