@@ -11,15 +11,7 @@ import { kmeans } from '../../src/methods/partition';
 import { project } from '../../src/methods/project';
 import { createRandom } from '../../src/random';
 import { allViewsList } from './views-list';
-
-export const CHROMIUM_ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--no-first-run',
-];
+import { CHROMIUM_ARGS } from './notebook-test-kit';
 
 let browser: Browser;
 let file: string;

@@ -12,6 +12,7 @@ import * as os from 'os';
 import * as path from 'path';
 import { promisify } from 'util';
 import { chromium, Browser } from 'playwright-core';
+import { CHROMIUM_ARGS, type NotebookOutput, text } from './notebook-test-kit';
 
 const run = promisify(execFile);
 const repo = path.resolve(__dirname, '../..');
@@ -20,26 +21,11 @@ const out = fs.mkdtempSync(path.join(os.tmpdir(), 'kinsort-demo-notebooks-'));
 // The kernel spec goes to a private prefix, so this file and kernel.test.ts can install at the same time.
 const jupyterPath = path.join(out, 'share', 'jupyter');
 const env = { ...process.env, PATH: `${path.join(repo, 'node_modules/.bin')}:${process.env.PATH}`, JUPYTER_PATH: jupyterPath };
-const CHROMIUM_ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--no-first-run',
-];
 const shots = process.env.KINSORT_SCREENSHOTS ? path.resolve(repo, process.env.KINSORT_SCREENSHOTS) : path.join(out, 'screenshots');
 
 const NAMES = ['01-pass-holder-segments', '02-station-hierarchy', '03-scoring-next-month'] as const;
 type Name = (typeof NAMES)[number];
-type Output = {
-  output_type: string;
-  name?: string;
-  data?: Record<string, string | string[]>;
-  text?: string | string[];
-  ename?: string;
-  evalue?: string;
-};
+type Output = NotebookOutput;
 type Cell = { cell_type: string; source: string | string[]; outputs?: Output[] };
 
 const executed = new Map<Name, Cell[]>();
@@ -98,7 +84,6 @@ afterAll(async () => {
   fs.rmSync(out, { recursive: true, force: true });
 });
 
-const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : (v ?? ''));
 const outputsOf = (name: Name): Output[] => executed.get(name)!.flatMap((c) => c.outputs ?? []);
 const html = (o: Output): string => text(o.data?.['text/html']);
 const streams = (name: Name): string =>

@@ -11,31 +11,16 @@ import * as path from 'path';
 import { promisify } from 'util';
 import { chromium, Browser } from 'playwright-core';
 import { installDenoKernel } from './deno-kernel';
+import { CHROMIUM_ARGS, type NotebookOutput, text } from './notebook-test-kit';
 
 const run = promisify(execFile);
 const repo = path.resolve(__dirname, '../..');
 const folder = path.join(repo, 'notebooks', 'deno');
 const NAME = 'pass-holder-segments';
 const out = fs.mkdtempSync(path.join(os.tmpdir(), 'kinsort-deno-notebook-'));
-const CHROMIUM_ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--no-first-run',
-];
 
-type Output = {
-  output_type: string;
-  name?: string;
-  data?: Record<string, string | string[]>;
-  text?: string | string[];
-  ename?: string;
-  evalue?: string;
-};
+type Output = NotebookOutput;
 type Cell = { cell_type: string; source: string | string[]; outputs?: Output[] };
-const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : (v ?? ''));
 const html = (o: Output): string => text(o.data?.['text/html']);
 const views = (outputs: Output[]) =>
   outputs.flatMap((o) => [...html(o).matchAll(/<figure class="kinsort-view"[^>]*data-view="([^"]+)"/g)].map((m) => m[1]));

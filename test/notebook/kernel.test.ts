@@ -7,18 +7,11 @@ import * as fs from 'fs';
 import * as os from 'os';
 import * as path from 'path';
 import { chromium, Browser } from 'playwright-core';
+import { CHROMIUM_ARGS as ARGS } from './notebook-test-kit';
 
 const repo = path.resolve(__dirname, '../..');
 const env = { ...process.env, PATH: `${path.join(repo, 'node_modules/.bin')}:${process.env.PATH}` };
 const out = fs.mkdtempSync(path.join(os.tmpdir(), 'kinsort-notebook-'));
-const ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--no-first-run',
-];
 // Set KINSORT_SCREENSHOTS=folder to keep a PNG of every view (scripts on and off).
 const shots = process.env.KINSORT_SCREENSHOTS;
 

@@ -13,6 +13,7 @@ import * as os from 'os';
 import * as path from 'path';
 import { promisify } from 'util';
 import { installDenoKernel } from './deno-kernel';
+import { type NotebookOutput, text } from './notebook-test-kit';
 
 const run = promisify(execFile);
 const repo = path.resolve(__dirname, '../..');
@@ -21,15 +22,7 @@ const project = path.join(tmp, 'project');
 const CSV = path.join(repo, 'demo-data', 'pass-holders.csv');
 const TSC = path.join(repo, 'node_modules', 'typescript', 'bin', 'tsc');
 
-type Output = {
-  output_type: string;
-  name?: string;
-  data?: Record<string, string | string[]>;
-  text?: string | string[];
-  ename?: string;
-  evalue?: string;
-};
-const text = (v: string | string[] | undefined): string => (Array.isArray(v) ? v.join('') : (v ?? ''));
+type Output = NotebookOutput;
 
 let tarball = '';
 let packages: { name: string; dir: string; json: Record<string, unknown> }[] = [];

@@ -10,15 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { chromium, type Browser } from 'playwright-core';
 import { study, viewsPage, type View } from '../../src';
 import { groupedRows } from './data';
-
-const CHROMIUM_ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--no-first-run',
-];
+import { CHROMIUM_ARGS } from '../notebook/notebook-test-kit';
 
 const HOSTILE = [
   '<script>alert(1)</script>',
