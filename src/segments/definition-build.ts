@@ -197,8 +197,17 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
     };
   });
 
-  // How many training rows the stored rule gives their fitted segment (the same loop assign runs).
-  const rule0 = nearestCenters(matrix.data, matrix.rows, flatCenters, k, dims, metric);
+  // The stored rule on the training rows, once (the same loop assign runs): how many rows it gives
+  // their fitted segment, and which rows lie beyond every segment's far threshold (for drift).
+  const rule0 = nearestCenters(
+    matrix.data,
+    matrix.rows,
+    flatCenters,
+    k,
+    dims,
+    metric,
+    segments.map((s) => s.farBeyond),
+  );
   let reproducedRows = 0;
   for (let i = 0; i < matrix.rows; i++) if (rule0.segment[i] === labels[i]) reproducedRows++;
   const trainingLabels = checkChoice(input.labels ?? 'fit', TRAINING_LABELS, 'training labels');
@@ -227,20 +236,7 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
       reproducedRows,
       labels: trainingLabels,
     },
-    trainingDistributions: trainingDistributions(
-      matrix.data,
-      matrix.rows,
-      dims,
-      nearestCenters(
-        matrix.data,
-        matrix.rows,
-        flatCenters,
-        k,
-        dims,
-        metric,
-        segments.map((s) => s.farBeyond),
-      ).far,
-    ),
+    trainingDistributions: trainingDistributions(matrix.data, matrix.rows, dims, rule0.far),
     evidence: input.evidence === undefined ? undefined : (sortedKeys(finiteOrNull(input.evidence)) as { [key: string]: JsonValue }),
   };
   // What is built must load: the loader's checks (schema, names, case clashes, sizes) run on it too.
