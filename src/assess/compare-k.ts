@@ -11,7 +11,7 @@
 import { KinsortError } from '../core/errors';
 import { Matrix, RowsInput, takeRows, toMatrix } from '../core/matrix';
 import { checkInteger, checkOptions } from '../core/options';
-import { ProgressCallback, report } from '../core/progress';
+import { ProgressCallback, checkProgress, report } from '../core/progress';
 import { countDistinctRows } from '../methods/partition/distinct-rows';
 import { kmeans } from '../methods/partition/kmeans';
 import { createRandom, Seed } from '../random';
@@ -142,6 +142,7 @@ const PREDICTION_SPLITS = 5;
 export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKResult {
   const where = 'compareK';
   const opts = checkOptions(options, COMPARE_K_OPTIONS, where);
+  checkProgress(opts.onProgress, where);
   const m = toMatrix(rows, { what: `${where} rows`, minRows: 3 });
   const from = checkInteger(opts.from ?? 2, `${where}: from`, 2, m.rows - 1);
   const to = checkInteger(opts.to ?? Math.min(8, m.rows - 1), `${where}: to`, from, m.rows - 1);

@@ -10,7 +10,7 @@
 import { KinsortError } from '../core/errors';
 import { createMatrix, Matrix, RowsInput, toMatrix } from '../core/matrix';
 import { checkInteger, checkOptions } from '../core/options';
-import { ProgressCallback, report } from '../core/progress';
+import { ProgressCallback, checkProgress, report } from '../core/progress';
 import { kmeans } from '../methods/partition/kmeans';
 import { createRandom, Random, Seed } from '../random';
 import { drawFromBox, principalBox } from './principal-box';
@@ -76,6 +76,7 @@ export function withinForK(m: Matrix, k: number, seed: Seed, restarts: number): 
 export function gapStatistic(rows: RowsInput, options: GapStatisticOptions): GapStatisticResult {
   const where = 'gapStatistic';
   const opts = checkOptions(options, GAP_OPTIONS, where);
+  checkProgress(opts.onProgress, where);
   const m = toMatrix(rows, { what: `${where} rows` });
   if (opts.kTo === undefined) {
     throw new KinsortError(`${where}: the option kTo (largest k to try) is required, e.g. { kTo: 8 }.`, 'bad-k');

@@ -4,6 +4,7 @@
 //
 // From rows the n × n matrix is never built: pairs are streamed in tiles (each pair once) and only
 // per-row, per-segment sums of distances are kept — n · k doubles.
+import { checkProgress, progressTicker, type ProgressCallback, type Ticker } from '../core/progress';
 import { compactLabels, requireSegments, AssignmentInput } from '../core/assignment';
 import { checkChoice, KinsortError } from '../core/errors';
 import { RowsInput, toMatrix, Matrix } from '../core/matrix';
@@ -17,6 +18,8 @@ export type SilhouetteRowMetric = (typeof SILHOUETTE_ROW_METRICS)[number];
 export interface SilhouetteOptions {
   /** Distance between rows when rows (not a dissimilarity) are given. Default 'euclidean'. */
   metric?: SilhouetteRowMetric;
+  /** Called about a hundred times as the rows' distance sums are gathered (task "silhouette"). */
+  onProgress?: ProgressCallback;
 }
 
 export interface SilhouetteResult {
@@ -38,7 +41,8 @@ export function silhouette(
   assignment: AssignmentInput,
   options?: SilhouetteOptions,
 ): SilhouetteResult {
-  const opts = checkOptions(options, ['metric'], 'silhouette');
+  const opts = checkOptions(options, ['metric', 'onProgress'], 'silhouette');
+  const onProgress = checkProgress(opts.onProgress, 'silhouette');
   let n: number;
   let sumsOf: (labels: Int32Array, k: number) => Float64Array;
   if (isDissimilarity(rowsOrDissimilarity)) {
@@ -50,17 +54,27 @@ export function silhouette(
     }
     const diss = rowsOrDissimilarity;
     n = diss.size;
-    sumsOf = (labels, k) => sumsFromCondensed(diss.condensed, n, labels, k);
+    sumsOf = (labels, k) => sumsFromCondensed(diss.condensed, n, labels, k, pairTicker(onProgress, n, ''));
   } else {
     const metric = checkChoice(opts.metric ?? 'euclidean', SILHOUETTE_ROW_METRICS, 'silhouette metric');
     const m = toMatrix(rowsOrDissimilarity, { what: 'silhouette rows' });
     n = m.rows;
-    sumsOf = (labels, k) => sumsFromRows(m, labels, k, metric);
+    sumsOf = (labels, k) => sumsFromRows(m, labels, k, metric, pairTicker(onProgress, n, `, ${metric}`));
   }
   const compact = compactLabels(assignment, n, 'silhouette', isDissimilarity(rowsOrDissimilarity) ? 'the dissimilarity' : 'the rows');
   requireSegments(compact.k, 2, 'silhouette');
   const sums = sumsOf(compact.labels, compact.k);
   return silhouetteFromSums(sums, compact.labels, compact.sizes, compact.original);
+}
+
+/** Progress in pairs of rows summed (task "silhouette"). */
+function pairTicker(onProgress: ProgressCallback | undefined, n: number, detail: string): Ticker | undefined {
+  return progressTicker(onProgress, 'silhouette', (n * (n - 1)) / 2, `${n} rows${detail}`);
+}
+
+/** Pairs (i, j), i < j, whose first row is among the first `rows` of n. */
+function pairsBefore(rows: number, n: number): number {
+  return rows * n - (rows * (rows + 1)) / 2;
 }
 
 /** Turn per-row, per-segment distance sums into silhouettes. */
@@ -104,7 +118,7 @@ export function silhouetteFromSums(
 }
 
 /** Per-row, per-segment sums from a condensed dissimilarity (pairs i<j, row-major). */
-function sumsFromCondensed(condensed: Float64Array, n: number, labels: Int32Array, k: number): Float64Array {
+function sumsFromCondensed(condensed: Float64Array, n: number, labels: Int32Array, k: number, tick?: Ticker): Float64Array {
   const sums = new Float64Array(n * k);
   let p = 0;
   for (let i = 0; i < n - 1; i++) {
@@ -115,7 +129,9 @@ function sumsFromCondensed(condensed: Float64Array, n: number, labels: Int32Arra
       sums[rowI + labels[j]] += d;
       sums[j * k + li] += d;
     }
+    if (tick) tick(pairsBefore(i + 1, n));
   }
+  if (tick) tick(pairsBefore(n, n));
   return sums;
 }
 
@@ -125,7 +141,7 @@ const TILE_I = 64;
 const TILE_J = 256;
 
 /** Per-row, per-segment distance sums straight from rows, each pair computed once. */
-export function sumsFromRows(m: Matrix, labels: Int32Array, k: number, metric: SilhouetteRowMetric): Float64Array {
+export function sumsFromRows(m: Matrix, labels: Int32Array, k: number, metric: SilhouetteRowMetric, tick?: Ticker): Float64Array {
   const n = m.rows;
   const d = m.cols;
   const x = m.data;
@@ -138,6 +154,8 @@ export function sumsFromRows(m: Matrix, labels: Int32Array, k: number, metric: S
       if (kind === 2) manhattanTile(x, d, labels, k, sums, i0, i1, j0, j1);
       else squaredTile(x, d, labels, k, sums, i0, i1, j0, j1, kind === 0);
     }
+    // Rows i0..i1 have met every later row; the earlier ones had met them before.
+    if (tick) tick(pairsBefore(i1, n));
   }
   return sums;
 }

@@ -9,7 +9,7 @@ import { Dissimilarity, isDissimilarity, makeDissimilarity } from '../measure/co
 import type { MetricName } from '../measure/metrics';
 import { kmedoids } from '../methods/partition/kmedoids';
 import { checkInteger, checkOptions } from '../core/options';
-import { ProgressCallback, report } from '../core/progress';
+import { ProgressCallback, checkProgress, report } from '../core/progress';
 import { kmeans } from '../methods/partition/kmeans';
 import { createRandom, Seed } from '../random';
 
@@ -100,6 +100,7 @@ export function bootstrapStability(
 ): BootstrapStabilityResult {
   const where = 'bootstrapStability';
   const opts = checkOptions(options, OPTIONS, where);
+  checkProgress(opts.onProgress, where);
   const method = checkChoice(opts.method ?? 'kmeans', STABILITY_METHODS, `${where} method`);
   let source: Source;
   let n: number;

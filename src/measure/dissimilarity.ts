@@ -3,6 +3,7 @@ import { KinsortError } from '../core/errors';
 import { Matrix, RowsInput, rowName, toMatrix } from '../core/matrix';
 import { MixedTable, isMixedTable } from '../core/mixed';
 import { checkOptions } from '../core/options';
+import { checkProgress, progressTicker, type ProgressCallback, type Ticker } from '../core/progress';
 import { Dissimilarity, guardPairwise, makeDissimilarity } from './condensed';
 import { euclideanCondensed } from './parallel';
 import { gowerDissimilarity } from './gower';
@@ -15,9 +16,11 @@ export interface DissimilarityOptions {
   p?: number;
   /** One weight ≥ 0 per column (euclidean, sqeuclidean, manhattan, minkowski, chebyshev, gower). */
   weights?: ArrayLike<number>;
+  /** Called about a hundred times as the pairs are computed (task "dissimilarity"). */
+  onProgress?: ProgressCallback;
 }
 
-const OPTION_NAMES = ['metric', 'p', 'weights'];
+const OPTION_NAMES = ['metric', 'p', 'weights', 'onProgress'];
 const WHERE = 'dissimilarity';
 
 /**
@@ -30,6 +33,7 @@ export function dissimilarity(input: RowsInput | MixedTable, options?: Dissimila
   const mixed = isMixedTable(input);
   const metric = checkMetric(opts.metric ?? (mixed ? 'gower' : 'euclidean'), WHERE);
   const p = checkExponent(metric, opts.p, WHERE);
+  const onProgress = checkProgress(opts.onProgress, WHERE);
   if (mixed) {
     if (metric !== 'gower') {
       throw new KinsortError(
@@ -38,12 +42,12 @@ export function dissimilarity(input: RowsInput | MixedTable, options?: Dissimila
         'bad-option',
       );
     }
-    return gowerDissimilarity(input, opts.weights, WHERE);
+    return gowerDissimilarity(input, opts.weights, WHERE, pairTicker(onProgress, input.rows, 'gower'));
   }
   // Gower skips a missing value (NaN) pair by pair; every other metric refuses it.
   const m = toMatrix(input, { what: WHERE, finite: metric !== 'gower' });
   if (m.cols === 0) throw new KinsortError(`${WHERE}: the rows have no columns.`, 'empty');
-  if (metric === 'gower') return gowerDissimilarity(numericTable(m), opts.weights, WHERE);
+  if (metric === 'gower') return gowerDissimilarity(numericTable(m), opts.weights, WHERE, pairTicker(onProgress, m.rows, 'gower'));
   const weights = checkWeights(metric, opts.weights, m.cols, WHERE, (j) =>
     m.colNames?.[j] ? `column "${m.colNames[j]}"` : `column ${j + 1}`,
   );
@@ -52,24 +56,34 @@ export function dissimilarity(input: RowsInput | MixedTable, options?: Dissimila
   const fast = (metric === 'euclidean' || metric === 'sqeuclidean') && !weights;
   if (fast) {
     // May run as WebAssembly and share its work with a worker thread (output in shared memory).
-    return makeDissimilarity(m.rows, euclideanCondensed(m.data, m.rows, m.cols, metric === 'euclidean'), metric, m.rowLabels);
+    const onParts = onProgress
+      ? (done: number, total: number) => onProgress({ task: 'dissimilarity', done, total, detail: `${metric}, ${m.rows} rows, in parts` })
+      : undefined;
+    return makeDissimilarity(m.rows, euclideanCondensed(m.data, m.rows, m.cols, metric === 'euclidean', onParts), metric, m.rowLabels);
   }
   const out = new Float64Array(pairs);
+  const tick = pairTicker(onProgress, m.rows, metric);
   if (metric === 'cosine') {
-    cosineInto(m, m.data, out, 'cosine');
+    cosineInto(m, m.data, out, 'cosine', tick);
   } else if (metric === 'correlation') {
-    cosineInto(m, centredRows(m), out, 'correlation');
+    cosineInto(m, centredRows(m), out, 'correlation', tick);
   } else {
-    kernelInto(distanceFunction(metric, p, weights), m.data, m.rows, m.cols, out);
+    kernelInto(distanceFunction(metric, p, weights), m.data, m.rows, m.cols, out, tick);
   }
   return makeDissimilarity(m.rows, out, metric, m.rowLabels);
 }
 
-function kernelInto(kernel: PairKernel, data: Float64Array, n: number, d: number, out: Float64Array): void {
+/** Progress in pairs done, for the loops that go row by row. */
+function pairTicker(onProgress: ProgressCallback | undefined, n: number, metric: string): Ticker | undefined {
+  return progressTicker(onProgress, 'dissimilarity', (n * (n - 1)) / 2, `${metric}, ${n} rows`);
+}
+
+function kernelInto(kernel: PairKernel, data: Float64Array, n: number, d: number, out: Float64Array, tick?: Ticker): void {
   let k = 0;
   for (let i = 0; i < n; i++) {
     const ai = i * d;
     for (let j = i + 1; j < n; j++) out[k++] = kernel(data, ai, data, j * d, d);
+    if (tick) tick(k);
   }
 }
 
@@ -86,7 +100,7 @@ function centredRows(m: Matrix): Float64Array {
   return out;
 }
 
-function cosineInto(m: Matrix, data: Float64Array, out: Float64Array, metric: 'cosine' | 'correlation'): void {
+function cosineInto(m: Matrix, data: Float64Array, out: Float64Array, metric: 'cosine' | 'correlation', tick?: Ticker): void {
   const { rows: n, cols: d } = m;
   const norms = new Float64Array(n);
   for (let i = 0; i < n; i++) {
@@ -111,6 +125,7 @@ function cosineInto(m: Matrix, data: Float64Array, out: Float64Array, metric: 'c
       for (let t = 0; t < d; t++) dot += data[ai + t] * data[bj + t];
       out[k++] = cosineFromParts(dot, norms[i], norms[j]);
     }
+    if (tick) tick(k);
   }
 }
 

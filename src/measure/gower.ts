@@ -4,6 +4,7 @@
 import { KinsortError } from '../core/errors';
 import { MixedColumn, MixedTable } from '../core/mixed';
 import { describe } from '../core/options';
+import type { Ticker } from '../core/progress';
 import { Dissimilarity, guardPairwise, makeDissimilarity } from './condensed';
 import { checkWeights } from './metrics';
 
@@ -17,7 +18,7 @@ const ABSENCE = 2; // asymmetric binary: like MATCH, but a 0–0 pair does not c
  * average (as R's cluster::daisy does). `weights` (one per column) replaces each column's own
  * `weight` (default 1).
  */
-export function gowerDissimilarity(table: MixedTable, weights: unknown, where = 'dissimilarity'): Dissimilarity {
+export function gowerDissimilarity(table: MixedTable, weights: unknown, where = 'dissimilarity', tick?: Ticker): Dissimilarity {
   const n = table.rows;
   const columns = table.columns;
   if (!Number.isInteger(n) || n < 1) throw new KinsortError(`${where}: the mixed table has no rows.`, 'empty');
@@ -84,6 +85,7 @@ export function gowerDissimilarity(table: MixedTable, weights: unknown, where = 
       }
       out[k++] = sum / weight;
     }
+    if (tick) tick(k);
   }
   return makeDissimilarity(n, out, 'gower', table.rowLabels);
 }

@@ -64,8 +64,15 @@ export function lastDissimilarityShare(): { chunks: number; byWorker: number; wa
   return { ...lastShare };
 }
 
-/** Euclidean (root) or squared euclidean distances of all pairs of rows, condensed. */
-export function euclideanCondensed(data: Float64Array, n: number, d: number, root: boolean): Float64Array {
+/** Called as parts of the work finish: `done` of `total` parts (parts hold about equal numbers of pairs). */
+export type PartsDone = (done: number, total: number) => void;
+
+/**
+ * Euclidean (root) or squared euclidean distances of all pairs of rows, condensed. With `onParts`
+ * the rows are taken in parts even on one thread, so progress can be told; each pair is computed
+ * the same way whichever part or thread holds it, so the result is the same to the bit.
+ */
+export function euclideanCondensed(data: Float64Array, n: number, d: number, root: boolean, onParts?: PartsDone): Float64Array {
   const pairs = (n * (n - 1)) / 2;
   const shareWork = threadsWanted > 1 && n >= MIN_ROWS_FOR_WORKER && typeof SharedArrayBuffer === 'function';
   const module = wasmWanted && n >= MIN_ROWS_FOR_WASM ? pairsModule(shareWork) : undefined;
@@ -73,19 +80,18 @@ export function euclideanCondensed(data: Float64Array, n: number, d: number, roo
   if (module && layout) {
     // A memory this large may be refused (address space, limits): then the JavaScript loop runs.
     const made = tryInstantiate(module, layout, shareWork);
-    if (made) return wasmCondensed(made.memory, made.pairs, module, layout, data, n, d, root, shareWork);
+    if (made) return wasmCondensed(made.memory, made.pairs, module, layout, data, n, d, root, shareWork, onParts);
   }
   if (!shareWork) {
     const out = new Float64Array(pairs);
-    squaredDifferencesRows(data, n, d, out, root, 0, n);
-    lastShare = { chunks: 0, byWorker: 0, wasm: false };
+    runChunks(n, undefined, (from, to) => squaredDifferencesRows(data, n, d, out, root, from, to), onParts);
     return out;
   }
   const out = new Float64Array(new SharedArrayBuffer(pairs * 8));
   const shared = new Float64Array(new SharedArrayBuffer(data.length * 8));
   shared.set(data);
   const job: ScriptJob = { kind: 'script', data: shared, out, n, d, root };
-  runChunks(n, job, (from, to) => squaredDifferencesRows(shared, n, d, out, root, from, to));
+  runChunks(n, job, (from, to) => squaredDifferencesRows(shared, n, d, out, root, from, to), onParts);
   lastShare.wasm = false;
   return out;
 }
@@ -108,6 +114,7 @@ function wasmCondensed(
   d: number,
   root: boolean,
   shareWork: boolean,
+  onParts: PartsDone | undefined,
 ): Float64Array {
   // One memory holds the output (first, so the result is a view from offset 0) and the rows;
   // it is shared only when a worker may write into it.
@@ -115,8 +122,11 @@ function wasmCondensed(
   const view = new Float64Array(memory.buffer);
   fillPairsInputs(view, data, n, d, layout);
   const job: WasmJob = { kind: 'wasm', module, memory, n, d, root, dataAt: layout.dataAt, pairedAt: layout.pairedAt };
-  runChunks(n, shareWork ? job : undefined, (from, to) =>
-    pairsRowsWasm(measure, view, n, d, root, layout.dataAt, layout.pairedAt, from, to),
+  runChunks(
+    n,
+    shareWork ? job : undefined,
+    (from, to) => pairsRowsWasm(measure, view, n, d, root, layout.dataAt, layout.pairedAt, from, to),
+    onParts,
   );
   lastShare.wasm = true;
   const out = new Float64Array(memory.buffer, 0, pairs);
@@ -145,10 +155,18 @@ interface ScriptJob {
 }
 
 /** Rows in chunks of about equal pair counts, claimed by this thread and (when given a job) the worker. */
-function runChunks(n: number, job: WasmJob | ScriptJob | undefined, rows: (from: number, to: number) => void): void {
+function runChunks(n: number, job: WasmJob | ScriptJob | undefined, rows: (from: number, to: number) => void, onParts?: PartsDone): void {
   const thread = job ? pool.get() : undefined;
   if (!job || !thread) {
-    rows(0, n);
+    if (onParts === undefined) rows(0, n);
+    else {
+      // One thread, in parts only so that progress can be told.
+      const bounds = chunkBounds(n);
+      for (let c = 0; c + 1 < bounds.length; c++) {
+        rows(bounds[c], bounds[c + 1]);
+        onParts(c + 1, bounds.length - 1);
+      }
+    }
     lastShare = { chunks: 0, byWorker: 0, wasm: false };
     return;
   }
@@ -156,6 +174,7 @@ function runChunks(n: number, job: WasmJob | ScriptJob | undefined, rows: (from:
   const chunks = bounds.length - 1;
   // control[0]: next chunk to claim; control[1]: chunks finished; control[2]: chunks the worker did.
   const control = new Int32Array(new SharedArrayBuffer(12));
+  let told = 0; // parts finished that onParts has been told of
   try {
     thread.postMessage({ ...job, bounds, control });
   } catch {
@@ -165,7 +184,8 @@ function runChunks(n: number, job: WasmJob | ScriptJob | undefined, rows: (from:
     const c = Atomics.add(control, 0, 1);
     if (c >= chunks) break;
     rows(bounds[c], bounds[c + 1]);
-    Atomics.add(control, 1, 1);
+    const finished = Math.min(Atomics.add(control, 1, 1) + 1, chunks);
+    if (onParts && finished > told) onParts((told = finished), chunks);
   }
   // Wait for the chunk the worker may still be on.
   for (;;) {
@@ -173,6 +193,7 @@ function runChunks(n: number, job: WasmJob | ScriptJob | undefined, rows: (from:
     if (done >= chunks) break;
     Atomics.wait(control, 1, done, 50);
   }
+  if (onParts && told < chunks) onParts(chunks, chunks);
   lastShare = { chunks, byWorker: Atomics.load(control, 2), wasm: false };
 }
 

@@ -1,5 +1,6 @@
 // Nearest segment for prepared rows: flat loops over a Float64Array, ties to the lower segment
 // number (strict "<" while scanning segments in order) — the same rule the SQL text uses.
+import type { Ticker } from '../core/progress';
 import { valueAtPosition } from '../core/quantile';
 import { squaredDistance } from '../measure/squared-distance';
 import type { DefinitionMetric } from './definition-types';
@@ -45,6 +46,7 @@ export function nearestCenters(
   dims: number,
   metric: DefinitionMetric,
   farBeyond?: ArrayLike<number>,
+  tick?: Ticker,
 ): NearestResult {
   const segment = new Int32Array(rows);
   const distance = new Float64Array(rows);
@@ -66,6 +68,7 @@ export function nearestCenters(
     segment[i] = best;
     distance[i] = metric === 'euclidean' ? Math.sqrt(bestD) : bestD;
     far[i] = limits ? farFromAll : 0;
+    if (tick) tick(i + 1);
   }
   return { segment, distance, far };
 }

@@ -3,6 +3,7 @@
 // in a numeric column, a binary or ordinal level never seen in training) is in the output with
 // segment null and is named by id in the report with its reason. A categorical level never seen in
 // training follows the preparation's rule (all its indicators 0) and is reported.
+import { checkProgress, progressTicker, report, type ProgressCallback } from '../core/progress';
 import { KinsortError, didYouMean } from '../core/errors';
 import { checkOptions } from '../core/options';
 import { applyPreparation } from '../prepare';
@@ -20,6 +21,11 @@ export interface AssignOptions {
    * here or from the batch: the definition stores them.
    */
   read?: { delimiter?: ',' | ';' | '\t' };
+  /**
+   * Told as the batch is scored (task "assigning", in rows): once when the rows are read and
+   * prepared, then about a hundred times as they are matched to their nearest segment.
+   */
+  onProgress?: ProgressCallback;
 }
 
 export interface AssignedRow {
@@ -74,7 +80,8 @@ function subsetTable(table: Table, names: readonly string[], rows: readonly numb
 }
 
 export function assignRows(definition: SegmentDefinition, input: unknown, options?: AssignOptions): AssignmentOutcome {
-  const opts = checkOptions(options, ['read'], 'assign');
+  const opts = checkOptions(options, ['read', 'onProgress'], 'assign');
+  const onProgress = checkProgress(opts.onProgress, 'assign');
   const prep = definition.preparation as unknown as Preparation;
   const read = checkOptions(opts.read, ['delimiter'], 'assign read');
   const table =
@@ -150,7 +157,9 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     const k = definition.segments.length;
     const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
     const farBeyond = definition.segments.map((s) => s.farBeyond);
-    const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric, farBeyond);
+    report(onProgress, { task: 'assigning', done: 0, total: m.rows, detail: 'rows read and prepared' });
+    const tick = progressTicker(onProgress, 'assigning', m.rows, `nearest of ${k} segments`);
+    const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric, farBeyond, tick);
     for (let r = 0; r < good.length; r++) {
       const i = good[r];
       rows[i] = { id: ids[i], segment: nearest.segment[r] + 1, distance: nearest.distance[r], far: nearest.far[r] === 1 };

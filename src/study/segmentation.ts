@@ -1,6 +1,7 @@
 // A fitted segmentation: the assignment together with the ids and the preparation it came from,
 // the analyst's names, and every way to look at it or hand it on. k-means, k-medoids and a cut of
 // a hierarchy all give this one kind of object.
+import type { AssignOptions } from '../segments/assign-rows';
 import { saveText } from '../core/save-file';
 import { KinsortError } from '../core/errors';
 import { checkInteger, checkOptions } from '../core/options';
@@ -256,11 +257,13 @@ export class Segmentation {
   }
 
   /** Silhouettes of every row (Rousseeuw 1987), in the space the segmentation was fitted in. */
-  silhouette(): SilhouetteResult & Showable {
+  silhouette(options: { onProgress?: ProgressCallback } = {}): SilhouetteResult & Showable {
+    const opts = checkOptions(options, ['onProgress'], 'silhouette');
     this.requireTwo('silhouette');
+    // Computed once; onProgress is told only on the call that computes it.
     this.silhouetteCache ??= this.dissimilarityUsed
-      ? silhouette(this.dissimilarityUsed, this.assignment)
-      : silhouette(this.data.matrix, this.assignment);
+      ? silhouette(this.dissimilarityUsed, this.assignment, { onProgress: opts.onProgress })
+      : silhouette(this.data.matrix, this.assignment, { onProgress: opts.onProgress });
     const result = this.silhouetteCache;
     return showable({ ...result }, () => silhouetteView(result, this.assignment, { names: this.titles(), ids: this.ids }));
   }
@@ -390,8 +393,8 @@ export class Segmentation {
   }
 
   /** Apply this segmentation to new rows (through its definition). */
-  assign(input: unknown): ReturnType<DefinitionHandle['assign']> {
-    return this.definition().assign(input);
+  assign(input: unknown, options?: AssignOptions): ReturnType<DefinitionHandle['assign']> {
+    return this.definition().assign(input, options);
   }
 
   /** A write-up of all segments: Markdown text, or a standalone offline HTML page (cards included). */

@@ -132,12 +132,14 @@ export class PreparedStudy {
 
   /** Pairwise dissimilarities of the prepared rows ('gower' works on the unscaled mixed columns). */
   dissimilarity(options: DissimilarityOptions = {}): Dissimilarity {
-    const opts = checkOptions(options, ['metric', 'p', 'weights'], 'dissimilarity');
+    const opts = checkOptions(options, ['metric', 'p', 'weights', 'onProgress'], 'dissimilarity');
     const metric = opts.metric ?? 'euclidean';
     const key = opts.weights === undefined ? `${metric}:${opts.p ?? ''}` : '';
     const cached = key ? this.dissimilarities.get(key) : undefined;
     if (cached) return cached;
     const input = metric === 'gower' ? { ...this.data.mixed, rowLabels: this.data.ids } : this.data.matrix;
+    // Progress only when asked for: short matrices are the common case, and k-medoids and the
+    // hierarchies call this on their way (they show their own progress).
     const d = dissimilarity(input, opts);
     if (key) this.dissimilarities.set(key, d);
     return d;
@@ -215,8 +217,8 @@ export class PreparedStudy {
     const vectors = metric === 'euclidean' && ['ward', 'centroid', 'median'].includes(opts.method);
     const used = vectors ? undefined : this.dissimilarity({ metric });
     // Progress opens with the work estimate (rows², minutes at 200,000 rows), then about 100 ticks.
-    const progress = progressFor(opts.onProgress, 'Agglomerating');
-    const tree = agglomerate(used ?? this.data.matrix, { method: opts.method, ...(progress ? { progress } : {}) });
+    const onProgress = progressFor(opts.onProgress, 'Agglomerating');
+    const tree = agglomerate(used ?? this.data.matrix, { method: opts.method, onProgress });
     return new Hierarchy(tree, this.data, { linkage: opts.method, metric }, used);
   }
 
@@ -226,9 +228,9 @@ export class PreparedStudy {
    * categorical columns are left out and listed in `leftOut` with the reason.
    */
   variableTree(
-    options: { similarity?: CorrelationKind; strength?: CorrelationStrength; method?: VariableLinkage } = {},
+    options: { similarity?: CorrelationKind; strength?: CorrelationStrength; method?: VariableLinkage; onProgress?: ProgressCallback } = {},
   ): VariableHierarchy {
-    const opts = checkOptions(options, ['similarity', 'strength', 'method'], 'variableTree');
+    const opts = checkOptions(options, ['similarity', 'strength', 'method', 'onProgress'], 'variableTree');
     const { matrix, leftOut, entered } = variableColumns(this.data.mixed);
     return new VariableHierarchy(variableTree(matrix, opts), leftOut, entered);
   }

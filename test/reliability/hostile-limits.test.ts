@@ -148,7 +148,7 @@ describe('Ward from rows says how much work is coming, then reports progress', (
   it('the first progress event, before any merge, carries the estimate; ticks follow', () => {
     const events: { done: number; detail?: string }[] = [];
     const rows = Array.from({ length: 300 }, (_, i) => [Math.sin(i), Math.cos(i * 1.7), (i % 7) / 7]);
-    agglomerate(rows, { method: 'ward', progress: (e) => events.push(e) });
+    agglomerate(rows, { method: 'ward', onProgress: (e) => events.push(e) });
     expect(events[0].done).toBe(0);
     expect(events[0].detail).toContain('ward linkage on 300 rows: about 90,000 distance evaluations');
     expect(events.at(-1)!.done).toBe(299);

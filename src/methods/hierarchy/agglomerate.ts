@@ -19,7 +19,7 @@ import { LinkageMethod, PairSource, Tree, buildTree } from './tree';
 import { wardFromVectors } from './ward-vectors';
 import { MergeTick, mergeTicker } from './ticker';
 import { agglomerationWork } from './work-estimate';
-import { report } from '../../core/progress';
+import { checkProgress, report } from '../../core/progress';
 
 export const LINKAGE_METHODS: readonly LinkageMethod[] = ['single', 'complete', 'average', 'weighted', 'centroid', 'median', 'ward'];
 
@@ -31,7 +31,7 @@ export interface AgglomerateOptions {
   /** Minkowski exponent, with metric "minkowski". */
   p?: number;
   /** Called about a hundred times with merges done / n-1 (task "agglomerating"). */
-  progress?: ProgressCallback;
+  onProgress?: ProgressCallback;
 }
 
 const WHERE = 'agglomerate';
@@ -48,14 +48,12 @@ const EUCLIDEAN_ONLY: readonly LinkageMethod[] = ['ward', 'centroid', 'median'];
  * of its two parts' indices; merges of equal height keep the order they were found in.
  */
 export function agglomerate(input: RowsInput | Dissimilarity, options: AgglomerateOptions): Tree {
-  const opts = checkOptions(options, ['method', 'metric', 'p', 'progress'], WHERE);
+  const opts = checkOptions(options, ['method', 'metric', 'p', 'onProgress'], WHERE);
   if (opts.method === undefined) {
     throw new KinsortError(`${WHERE}: option method is required; choose one of ${LINKAGE_METHODS.join(', ')}.`, 'bad-option');
   }
   const method = prefixed(() => checkChoice(opts.method, LINKAGE_METHODS, 'method'));
-  if (opts.progress !== undefined && typeof opts.progress !== 'function') {
-    throw new KinsortError(`${WHERE}: option progress must be a function (event) => void.`, 'bad-option');
-  }
+  const onProgress = checkProgress(opts.onProgress, WHERE);
   if (isDissimilarity(input)) {
     if (opts.metric !== undefined || opts.p !== undefined) {
       throw new KinsortError(
@@ -63,8 +61,8 @@ export function agglomerate(input: RowsInput | Dissimilarity, options: Agglomera
         'bad-option',
       );
     }
-    announce(opts.progress, input.size, 1, method);
-    return fromDissimilarity(input, method, mergeTicker(opts.progress, input.size, method));
+    announce(onProgress, input.size, 1, method);
+    return fromDissimilarity(input, method, mergeTicker(onProgress, input.size, method));
   }
   const metric = prefixed(() => checkChoice(opts.metric ?? 'euclidean', ROW_METRICS, 'metric'));
   const p = checkExponent(metric, opts.p, WHERE);
@@ -73,8 +71,8 @@ export function agglomerate(input: RowsInput | Dissimilarity, options: Agglomera
   const rows = toMatrix(input as RowsInput, { what: `${WHERE}: rows`, minRows: 1 });
   if (rows.rows < 2) tooFew(rows.rows);
   if (rows.cols === 0) throw new KinsortError(`${WHERE}: the rows have no columns.`, 'empty');
-  announce(opts.progress, rows.rows, rows.cols, method);
-  return fromRows(rows, method, metric, p, mergeTicker(opts.progress, rows.rows, method));
+  announce(onProgress, rows.rows, rows.cols, method);
+  return fromRows(rows, method, metric, p, mergeTicker(onProgress, rows.rows, method));
 }
 
 /** The first progress event, before any work: how much work is coming (work-estimate.ts). */

@@ -10,7 +10,7 @@
 import { KinsortError } from '../../core/errors';
 import { toMatrix, type RowsInput } from '../../core/matrix';
 import { checkInteger, checkNumber, checkOptions, describe } from '../../core/options';
-import { report, type ProgressCallback } from '../../core/progress';
+import { checkProgress, report, type ProgressCallback } from '../../core/progress';
 import type { Seed } from '../../random';
 import { checkSegmentCount, partitionRows } from './partition-input';
 import { runKmeans } from './restarts';
@@ -91,6 +91,7 @@ const KMEANS_OPTIONS = ['k', 'seed', 'restarts', 'maxIterations', 'tolerance', '
 export function kmeans(rows: RowsInput, options: KmeansOptions): KmeansResult {
   const where = 'kmeans';
   const opts = checkOptions(options, KMEANS_OPTIONS, where);
+  checkProgress(opts.onProgress, where);
   const m = partitionRows(rows, where);
   const k = checkSegmentCount(opts.k, m, where);
   const n = m.rows;

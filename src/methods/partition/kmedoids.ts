@@ -2,7 +2,7 @@
 import { KinsortError } from '../../core/errors';
 import { isMatrix, type RowsInput } from '../../core/matrix';
 import { checkInteger, checkOptions, describe } from '../../core/options';
-import { report, type ProgressCallback } from '../../core/progress';
+import { checkProgress, report, type ProgressCallback } from '../../core/progress';
 import { isDissimilarity, type Dissimilarity } from '../../measure/condensed';
 import { dissimilarity } from '../../measure/dissimilarity';
 import type { MetricName } from '../../measure/metrics';
@@ -55,6 +55,7 @@ const KMEDOIDS_OPTIONS = ['k', 'seed', 'metric', 'maxSwaps', 'onProgress'] as co
 export function kmedoids(input: RowsInput | Dissimilarity, options: KmedoidsOptions): KmedoidsResult {
   const where = 'kmedoids';
   const opts = checkOptions(options, KMEDOIDS_OPTIONS, where);
+  checkProgress(opts.onProgress, where);
   let diss: Dissimilarity;
   if (isDissimilarity(input)) {
     if (opts.metric !== undefined && opts.metric !== input.metric) {

@@ -8,7 +8,7 @@
 // Conference on World Wide Web (WWW 2010), 1177–1178, doi:10.1145/1772690.1772862.
 import type { RowsInput } from '../../core/matrix';
 import { checkInteger, checkOptions } from '../../core/options';
-import { report, type ProgressCallback } from '../../core/progress';
+import { checkProgress, report, type ProgressCallback } from '../../core/progress';
 import { createRandom, type Random, type Seed } from '../../random';
 import { squaredDistance } from '../../measure/squared-distance';
 import { centresToMeans } from './centre-update';
@@ -49,6 +49,7 @@ const MINI_BATCH_OPTIONS = ['k', 'seed', 'batchSize', 'maxIterations', 'patience
 export function kmeansMiniBatch(rows: RowsInput, options: KmeansMiniBatchOptions): KmeansResult {
   const where = 'kmeansMiniBatch';
   const opts = checkOptions(options, MINI_BATCH_OPTIONS, where);
+  checkProgress(opts.onProgress, where);
   const m = partitionRows(rows, where);
   const k = checkSegmentCount(opts.k, m, where);
   const n = m.rows;

@@ -1,6 +1,7 @@
 // variableTree(): an agglomerative hierarchy of the COLUMNS. Two columns are alike when they are
 // strongly correlated; the dissimilarity is 1 − r² (default) or 1 − |r|, and the tree is the same
 // Tree that agglomerate() gives (merges, cut, cophenetic), with the names as labels.
+import { checkProgress, report, type ProgressCallback } from '../../core/progress';
 import { KinsortError, checkChoice } from '../../core/errors';
 import { checkOptions } from '../../core/options';
 import type { RowsInput } from '../../core/matrix';
@@ -34,6 +35,8 @@ export interface VariableTreeOptions {
   names?: readonly string[];
   /** For a table: the columns to take (default every column that is not free text). */
   columns?: readonly string[];
+  /** Told as the steps finish: correlations (n × p² work), then the tree (task "variable tree"). */
+  onProgress?: ProgressCallback;
 }
 
 export interface VariableTree extends Tree {
@@ -59,7 +62,9 @@ const WHERE = 'variableTree';
  * hclust(as.dist(1 - cor(X)^2), "average").
  */
 export function variableTree(input: RowsInput | Table, options: VariableTreeOptions = {}): VariableTree {
-  const opts = checkOptions(options, ['similarity', 'strength', 'method', 'names', 'columns'], WHERE);
+  const opts = checkOptions(options, ['similarity', 'strength', 'method', 'names', 'columns', 'onProgress'], WHERE);
+  const onProgress = checkProgress(opts.onProgress, WHERE);
+  const step = (done: number, detail: string) => report(onProgress, { task: 'variable tree', done, total: 2, detail });
   const similarity = checkChoice(opts.similarity ?? 'pearson', ['pearson', 'spearman'] as const, `${WHERE} similarity`);
   const strength = checkChoice(opts.strength ?? 'squared', ['squared', 'absolute'] as const, `${WHERE} strength`);
   if (opts.method !== undefined && ['ward', 'centroid', 'median'].includes(opts.method)) {
@@ -71,7 +76,9 @@ export function variableTree(input: RowsInput | Table, options: VariableTreeOpti
   const method = checkChoice(opts.method ?? 'average', VARIABLE_LINKAGES, `${WHERE} method`);
   const { matrix, names, entered } = readVariables(input, opts.names, opts.columns, WHERE);
   const p = names.length;
+  step(0, `${similarity} correlations of ${p} columns`);
   const r = correlationMatrix(matrix, similarity, names, WHERE);
+  step(1, `${method} linkage of ${p} columns`);
   const condensed = new Float64Array((p * (p - 1)) / 2);
   let k = 0;
   for (let a = 0; a < p; a++) {
@@ -83,6 +90,7 @@ export function variableTree(input: RowsInput | Table, options: VariableTreeOpti
   const metric = strength === 'squared' ? `1 - ${similarity}^2` : `1 - |${similarity}|`;
   const d = makeDissimilarity(p, condensed, metric, names);
   const tree = agglomerate(d, { method });
+  step(2, 'done');
   const labelled: VariableTree = {
     ...tree,
     labels: names,

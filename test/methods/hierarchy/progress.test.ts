@@ -14,7 +14,7 @@ describe('agglomerate progress', () => {
     it(`${method}: from rows and from a dissimilarity`, () => {
       for (const input of [rows, d]) {
         const events: ProgressEvent[] = [];
-        agglomerate(input, { method, progress: (e) => events.push(e) });
+        agglomerate(input, { method, onProgress: (e) => events.push(e) });
         expect(events.length).toBeGreaterThan(10);
         expect(events.length).toBeLessThanOrEqual(102);
         expect(events.every((e) => e.total === 449 && e.task === 'agglomerating')).toBe(true);
@@ -25,6 +25,10 @@ describe('agglomerate progress', () => {
   }
 
   it('refuses a progress option that is not a function', () => {
-    expect(() => agglomerate(rows, { method: 'ward', progress: 'yes' as any })).toThrow(/progress must be a function/);
+    expect(() => agglomerate(rows, { method: 'ward', onProgress: 'yes' as any })).toThrow(/onProgress must be a function/);
+  });
+
+  it('takes the one spelling every long call uses: the old "progress" is refused, pointing to onProgress', () => {
+    expect(() => agglomerate(rows, { method: 'ward', progress: () => {} } as any)).toThrow(/unknown option "progress".*onProgress/);
   });
 });
