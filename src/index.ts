@@ -20,3 +20,7 @@ export * from './engines';
 export * from './views';
 export * from './notebook';
 export * from './study';
+// Profiles in the database (profileInDatabase: segment profiles computed by SQL aggregates where the rows live).
+export { profileInDatabase } from './segments/database/profile-in-database';
+export type { DatabaseProfile, DatabaseProfileOptions } from './segments/database/profile-in-database';
+export type { ColumnSummary, GroupSummary, LevelSummary, NumericSummary } from './segments/database/profile-as-cards';

@@ -39,6 +39,11 @@ export interface SqlOptions {
    * `max_query_size`, 262,144 by default). Longer SQL is refused with the reason.
    */
   maxQueryBytes?: number;
+  /**
+   * Columns of the table handed through every layer unchanged, as `kinsort_carry_1`, … after the
+   * id (for summaries over the scored rows in one pass: profileInDatabase).
+   */
+  carry?: readonly string[];
 }
 
 /** The most segments a definition may turn into SQL (the text holds k × features figures). */
@@ -58,7 +63,7 @@ interface Layer {
 }
 
 /** The table as quoted parts; anything that is not a plain (qualified) name is refused. */
-function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
+export function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
   const parts = typeof table === 'string' ? table.split('.') : Array.isArray(table) ? [...table] : null;
   const shown = JSON.stringify(table).slice(0, 120);
   if (parts === null || parts.length < 1 || parts.length > 3 || parts.some((p) => typeof p !== 'string' || p.trim() === '')) {
@@ -108,7 +113,7 @@ function scaled(value: string, col: PreparedColumn, d: SqlDialect): string {
 }
 
 export function definitionToSql(definition: SegmentDefinition, options: SqlOptions): string {
-  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes'], 'toSql');
+  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes', 'carry'], 'toSql');
   if (opts.table === undefined || opts.table === null) {
     throw new KinsortError('toSql: give the table to score, e.g. toSql({ table: "riders", dialect: "duckdb" }).', 'bad-argument');
   }
@@ -171,21 +176,29 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const dist = (c: number) => q(`${PREFIX}d_${c + 1}`);
   const nearest = q(`${PREFIX}m`);
   const cols = prep.columns;
+  const carry = opts.carry ?? [];
+  if (!Array.isArray(carry) || carry.some((c) => typeof c !== 'string' || c === '')) {
+    throw new KinsortError('toSql: carry must be a list of column names.', 'bad-option');
+  }
+  carry.forEach((c) => checkSqlText(c, 'a carried column'));
+  const carried = carry.map((_, i) => carriedName(i, d));
+  // The id and the carried columns, as every layer after the first hands them on.
+  const pass = [id, ...carried];
 
   // 1. Each used cell as text, and the same text without leading/trailing ASCII spaces.
   const cells: Layer = {
     name: `${PREFIX}cells`,
-    columns: [id, ...cols.map((c, j) => `${d.asText(q(c.name), c.name)} AS ${r(j)}`)],
+    columns: [id, ...carry.map((c, i) => `${q(c)} AS ${carried[i]}`), ...cols.map((c, j) => `${d.asText(q(c.name), c.name)} AS ${r(j)}`)],
   };
   const trimmed: Layer = {
     name: `${PREFIX}trimmed`,
-    columns: [id, ...cols.flatMap((_, j) => [r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`])],
+    columns: [...pass, ...cols.flatMap((_, j) => [r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`])],
   };
   // 2. Each used cell as a number (numeric) or a level code (others); NULL where assign refuses.
   const missing = (j: number) => `${r(j)} IS NULL OR ${t(j)} IN (${['', ...markers].map((m) => d.quoteString(m)).join(', ')})`;
   const values: Layer = {
     name: `${PREFIX}values`,
-    columns: [id, ...cols.map((c, j) => `${valueSql(c, j)} AS ${v(j)}`)],
+    columns: [...pass, ...cols.map((c, j) => `${valueSql(c, j)} AS ${v(j)}`)],
   };
   function valueSql(c: PreparedColumn, j: number): string {
     if (c.type === 'numeric') {
@@ -211,7 +224,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const logs: Layer = {
     name: `${PREFIX}logs`,
     columns: [
-      id,
+      ...pass,
       ...cols.flatMap((c, j) =>
         c.type === 'numeric' && c.log
           ? [v(j), `CASE WHEN ${v(j)} >= ${d.doubleLiteral(0)} THEN ${d.doubleLiteral(1)} + ${v(j)} END AS ${u(j)}`]
@@ -238,7 +251,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   if (featureSql.length !== dims) {
     throw new KinsortError(`toSql: the preparation gives ${featureSql.length} features but the definition has ${dims}.`, 'bad-definition');
   }
-  const features: Layer = { name: `${PREFIX}features`, columns: [id, ...featureSql.map((e, j) => `${e} AS ${f(j)}`)] };
+  const features: Layer = { name: `${PREFIX}features`, columns: [...pass, ...featureSql.map((e, j) => `${e} AS ${f(j)}`)] };
   // 5. Distance to every centre: squared for Euclidean (the same order of additions as assign).
   const euclidean = definition.metric === 'euclidean';
   const bounded = Number.isFinite(d.featureBound);
@@ -253,7 +266,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const guard = (): Layer => ({
     name: `${PREFIX}guard`,
     columns: [
-      id,
+      ...pass,
       ...featureSql.map((_, j) => f(j)),
       `CASE WHEN ${featureSql.map((_, j) => `abs(${f(j)}) > ${d.doubleLiteral(d.featureBound)}`).join(' OR ')} THEN 1 ELSE 0 END AS ${big}`,
     ],
@@ -261,7 +274,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const distances: Layer = {
     name: `${PREFIX}distances`,
     columns: [
-      id,
+      ...pass,
       ...definition.segments.map((s, c) => {
         const terms = s.center.map((x, j) => {
           const diff = `(${f(j)} - ${d.doubleLiteral(x)})`;
@@ -275,7 +288,11 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   // 6. The least distance (NULL when a feature is missing), then the first segment that reaches it.
   const least: Layer = {
     name: `${PREFIX}nearest`,
-    columns: [id, ...definition.segments.map((_, c) => dist(c)), `${d.least(definition.segments.map((_, c) => dist(c)))} AS ${nearest}`],
+    columns: [
+      ...pass,
+      ...definition.segments.map((_, c) => dist(c)),
+      `${d.least(definition.segments.map((_, c) => dist(c)))} AS ${nearest}`,
+    ],
   };
   const limit = (c: number) => {
     const x = definition.segments[c].farBeyond;
@@ -284,7 +301,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const final: Layer = {
     name: '',
     columns: [
-      id,
+      ...pass,
       `${d.firstEqual(
         definition.segments.map((_, c) => dist(c)),
         nearest,
@@ -334,4 +351,9 @@ function render(layers: Layer[], final: Layer, from: string, d: SqlDialect): str
   let source = from;
   for (const l of layers) source = `(\n${select(l, source)}\n) AS ${d.quoteIdentifier(l.name)}`;
   return select(final, source, true);
+}
+
+/** The name a carried column has in the scoring SQL's output: `kinsort_carry_1`, … */
+export function carriedName(index: number, d: SqlDialect): string {
+  return d.quoteIdentifier(`${PREFIX}carry_${index + 1}`);
 }
