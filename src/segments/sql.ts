@@ -63,7 +63,7 @@ interface Layer {
 }
 
 /** The table as quoted parts; anything that is not a plain (qualified) name is refused. */
-export function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
+function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
   const parts = typeof table === 'string' ? table.split('.') : Array.isArray(table) ? [...table] : null;
   const shown = JSON.stringify(table).slice(0, 120);
   if (parts === null || parts.length < 1 || parts.length > 3 || parts.some((p) => typeof p !== 'string' || p.trim() === '')) {

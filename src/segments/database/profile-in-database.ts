@@ -17,7 +17,6 @@ import type { SqlEngine } from '../../engines/engine';
 import type { Preparation } from '../../prepare/types';
 import type { SegmentDefinition } from '../definition-types';
 import type { SegmentProfile } from '../profile';
-import { tableReference } from '../sql';
 import { summariesAsProfiles, type ColumnSummary, type GroupSummary, type NumericSummary } from './profile-as-cards';
 import {
   clickhouseOrderSql,
@@ -97,7 +96,6 @@ export async function profileInDatabase(
     throw new KinsortError(`${where}: give the table, e.g. { table: "riders" }.`, 'bad-argument');
   const top = opts.top === undefined ? 6 : checkInteger(opts.top, `${where} top`, 1);
   const d = dialectNamed(engine.dialect);
-  const from = tableReference(opts.table, d);
   const prep = definition.preparation as unknown as Preparation;
   const k = definition.segments.length;
 
@@ -121,7 +119,7 @@ export async function profileInDatabase(
   planned = 2 + (keptNames.length ? 1 : 0) + used.length + keptNames.length;
   let kept: ProfiledColumn[] = [];
   if (keptNames.length > 0) {
-    const [row] = await run(keptKindSql(definition, from, d, keptNames));
+    const [row] = await run(keptKindSql(definition, opts.table, d, keptNames, opts.idColumn));
     kept = keptNames.map((name, j) => ({
       name,
       role: 'kept',

@@ -67,23 +67,34 @@ export function profiledSource(
 }
 
 /**
- * A numeric cell that is present but not a number under the text rule (a kept column holding
- * such a cell is profiled by its levels, as the in-memory intake would read it).
+ * Per kept column, how many present cells are not numbers under the text rule (a kept column
+ * holding such a cell is profiled by its levels, as the in-memory intake would read it). The
+ * definition's scoring SELECT is the row source here too, so the table is named in one place.
  */
-export function keptKindSql(definition: SegmentDefinition, table: string, d: SqlDialect, names: readonly string[]): string {
+export function keptKindSql(
+  definition: SegmentDefinition,
+  table: string | readonly string[],
+  d: SqlDialect,
+  names: readonly string[],
+  idColumn: string | undefined,
+): string {
   const prep = definition.preparation as unknown as Preparation;
   const { missingMarkers, decimalMark } = storedTextRule(prep);
+  const scoring = definitionToSql(definition, { table, dialect: d.name, idColumn, carry: names }).trimEnd();
   const q = (name: string) => d.quoteIdentifier(name);
   const markers = ['', ...missingMarkers].map((m) => d.quoteString(m)).join(', ');
   const r = (j: number) => q(`kinsort_r_${j + 1}`);
   const t = (j: number) => q(`kinsort_t_${j + 1}`);
-  const texts = names.map((n, j) => `${d.asText(q(n), n)} AS ${r(j)}`);
+  const texts = names.map((n, j) => `${d.asText(carriedName(j, d), n)} AS ${r(j)}`);
   const trimmed = names.flatMap((_, j) => [r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`]);
   const counts = names.map(
     (_, j) =>
       `sum(CASE WHEN ${r(j)} IS NULL OR ${t(j)} IN (${markers}) THEN 0 WHEN ${d.numberFromText(t(j), decimalMark)} IS NULL THEN 1 ELSE 0 END) AS ${q(`kinsort_text_${j + 1}`)}`,
   );
-  return `SELECT ${counts.join(', ')} FROM (SELECT ${trimmed.join(', ')} FROM (SELECT ${texts.join(', ')} FROM ${table}) AS ${q('kinsort_texts')}) AS ${q('kinsort_trimmed')}`;
+  return (
+    `SELECT ${counts.join(', ')} FROM (\nSELECT ${trimmed.join(', ')} FROM (\nSELECT ${texts.join(', ')} FROM (\n${scoring}\n) AS ${q('kinsort_scored')}\n` +
+    `) AS ${q('kinsort_texts')}\n) AS ${q('kinsort_trimmed')}`
+  );
 }
 
 export const momentNames = {
