@@ -20,3 +20,7 @@ export * from './engines';
 export * from './views';
 export * from './notebook';
 export * from './study';
+// Database passes (issue 21): a seeded sample of a table where it lives, and k-means refined over the whole table in SQL.
+export { sampleFromDatabase, SAMPLE_MAX_ROWS } from './engines/sample';
+export type { SampleFromDatabaseOptions, DatabaseSample } from './engines/sample';
+export type { TableName } from './engines/source';

@@ -18,6 +18,7 @@ import type { DialectName, SqlDialect } from '../engines/dialect';
 import { dialectNamed } from '../engines/dialects';
 import type { SqlEngine } from '../engines/engine';
 import { checkSqlText, commentText } from '../engines/sql-safety';
+import { tableReference } from '../engines/source';
 import type { PreparedColumn, Preparation } from '../prepare/types';
 import type { SegmentDefinition } from './definition-types';
 import { levelMatchOf, storedTextRule } from './sql-markers';
@@ -55,27 +56,6 @@ const OUTPUT_NAMES = ['segment', 'distance', 'far'];
 interface Layer {
   name: string;
   columns: string[];
-}
-
-/** The table as quoted parts; anything that is not a plain (qualified) name is refused. */
-function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
-  const parts = typeof table === 'string' ? table.split('.') : Array.isArray(table) ? [...table] : null;
-  const shown = JSON.stringify(table).slice(0, 120);
-  if (parts === null || parts.length < 1 || parts.length > 3 || parts.some((p) => typeof p !== 'string' || p.trim() === '')) {
-    throw new KinsortError(
-      `toSql: the table ${shown} is not a name: give "table", "schema.table" or "catalog.schema.table", or the parts as an array when a part holds a dot.`,
-      'bad-argument',
-    );
-  }
-  for (const p of parts) {
-    if (/[\u0000-\u001f\u007f-\u009f\u2028\u2029]/.test(p) || (typeof table === 'string' && /["`]/.test(p))) {
-      throw new KinsortError(
-        `toSql: the table ${shown} holds quotes or control characters; give the parts of a qualified name unquoted, e.g. { table: ['sales', 'riders'] }, and kinsort quotes each one.`,
-        'bad-argument',
-      );
-    }
-  }
-  return parts.map((p) => dialect.quoteIdentifier(p)).join('.');
 }
 
 function chooseDialect(opts: SqlOptions): SqlDialect {
