@@ -40,6 +40,11 @@ export interface SqlOptions {
    * `max_query_size`, 262,144 by default). Longer SQL is refused with the reason.
    */
   maxQueryBytes?: number;
+  /**
+   * Columns of the table handed through every layer unchanged, as `kinsort_carry_1`, … after the
+   * id (for summaries over the scored rows in one pass: profileInDatabase).
+   */
+  carry?: readonly string[];
 }
 
 /** The most segments a definition may turn into SQL (the text holds k × features figures). */
@@ -63,7 +68,7 @@ function chooseDialect(opts: SqlOptions): SqlDialect {
 }
 
 export function definitionToSql(definition: SegmentDefinition, options: SqlOptions): string {
-  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes'], 'toSql');
+  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes', 'carry'], 'toSql');
   if (opts.table === undefined || opts.table === null) {
     throw new KinsortError('toSql: give the table to score, e.g. toSql({ table: "riders", dialect: "duckdb" }).', 'bad-argument');
   }
@@ -120,8 +125,16 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const f = (j: number) => featureColumn(j, d);
   const dist = (c: number) => q(`${PREFIX}d_${c + 1}`);
   const nearest = q(`${PREFIX}m`);
+  const carry = opts.carry ?? [];
+  if (!Array.isArray(carry) || carry.some((c) => typeof c !== 'string' || c === '')) {
+    throw new KinsortError('toSql: carry must be a list of column names.', 'bad-option');
+  }
+  carry.forEach((c) => checkSqlText(c, 'a carried column'));
+  const carried = carry.map((_, i) => carriedName(i, d));
+  // The id and the carried columns, as every layer after the first hands them on.
+  const pass = [id, ...carried];
   // 1–4. The stored preparation as SQL: the prepared features, in the definition's feature order.
-  const prepared = preparedFeatureLayers(prep, d, dims, { first: [id], later: [id] });
+  const prepared = preparedFeatureLayers(prep, d, dims, { first: [id, ...carry.map((c, i) => `${q(c)} AS ${carried[i]}`)], later: pass });
   // 5. Distance to every centre: squared for Euclidean (the same order of additions as assign).
   const euclidean = definition.metric === 'euclidean';
   const bounded = Number.isFinite(d.featureBound);
@@ -135,7 +148,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const distances: Layer = {
     name: `${PREFIX}distances`,
     columns: [
-      id,
+      ...pass,
       ...definition.segments.map((s, c) => {
         const terms = s.center.map((x, j) => {
           const diff = `(${f(j)} - ${d.doubleLiteral(x)})`;
@@ -149,7 +162,11 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   // 6. The least distance (NULL when a feature is missing), then the first segment that reaches it.
   const least: Layer = {
     name: `${PREFIX}nearest`,
-    columns: [id, ...definition.segments.map((_, c) => dist(c)), `${d.least(definition.segments.map((_, c) => dist(c)))} AS ${nearest}`],
+    columns: [
+      ...pass,
+      ...definition.segments.map((_, c) => dist(c)),
+      `${d.least(definition.segments.map((_, c) => dist(c)))} AS ${nearest}`,
+    ],
   };
   const limit = (c: number) => {
     const x = definition.segments[c].farBeyond;
@@ -158,7 +175,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const final: Layer = {
     name: '',
     columns: [
-      id,
+      ...pass,
       `${d.firstEqual(
         definition.segments.map((_, c) => dist(c)),
         nearest,
@@ -188,4 +205,9 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     }
   }
   return sql;
+}
+
+/** The name a carried column has in the scoring SQL's output: `kinsort_carry_1`, … */
+export function carriedName(index: number, d: SqlDialect): string {
+  return d.quoteIdentifier(`${PREFIX}carry_${index + 1}`);
 }
