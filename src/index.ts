@@ -216,3 +216,10 @@ export type { ProgressDisplayOptions } from './notebook';
 export { profileInDatabase } from './segments/database/profile-in-database';
 export type { DatabaseProfile, DatabaseProfileOptions } from './segments/database/profile-in-database';
 export type { ColumnSummary, GroupSummary, LevelSummary, NumericSummary } from './segments/database/profile-as-cards';
+
+// ─── Database passes: a sample drawn where the data lives, k-means refined over the whole table ──
+export { sampleFromDatabase } from './engines/sample';
+export type { SampleFromDatabaseOptions, DatabaseSample } from './engines/sample';
+export type { TableName } from './engines/source';
+export { refineInDatabase } from './segments/database/refine';
+export type { RefineInDatabaseOptions, DatabaseRefinement, RefineIteration } from './segments/database/refine';
