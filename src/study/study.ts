@@ -22,6 +22,7 @@ import { VariableHierarchy } from './variable-hierarchy';
 import { variableColumns } from './variable-columns';
 import { variableTree, type CorrelationKind, type CorrelationStrength, type VariableLinkage } from '../methods/variables';
 import { installWrongStepGuards, PREPARED_STUDY_CALLS, type PrepareTheStudyFirst } from './wrong-step';
+import { fitMixture, type StudyMixtureOptions } from './mixture-fit';
 
 /** Which columns play which part. */
 export interface StudyRoles {
@@ -63,6 +64,7 @@ export class Study {
   declare readonly agglomerate: PrepareTheStudyFirst;
   declare readonly project: PrepareTheStudyFirst;
   declare readonly variableTree: PrepareTheStudyFirst;
+  declare readonly mixture: PrepareTheStudyFirst;
 
   constructor(
     readonly table: Table,
@@ -183,6 +185,15 @@ export class PreparedStudy {
       data: this.data,
       notes,
     });
+  }
+
+  /**
+   * A Gaussian mixture on the prepared rows (EM; 5 restarts unless given). The segmentation's
+   * membership() gives each row's probabilities; its definition scores new rows by the
+   * highest-posterior rule.
+   */
+  mixture(options: StudyMixtureOptions): Segmentation {
+    return fitMixture(this.data, options, progressFor(options?.onProgress, 'mixture restarts'));
   }
 
   /** k-medoids (PAM) on the prepared rows, or on Gower dissimilarities of the mixed columns. */
