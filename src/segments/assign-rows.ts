@@ -164,7 +164,7 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
           segment: scores.segment[r] + 1,
           distance: scores.distance[r],
           far: scores.far[r] === 1,
-          probability: scores.probability[r],
+          probability: Number.isNaN(scores.probability[r]) ? null : scores.probability[r],
         };
       }
     } else {

@@ -6,20 +6,27 @@
 //   q_c    = Σ_j z_c,j²                                 (squared Mahalanobis distance)
 //   cost_c = q_c · 0.5 − constant_c                     (−ln of w_c N(x | …); lower is better)
 //   segment: the least cost, ties to the lower number; distance: √q of that segment;
-//   probability: 1 / Σ_c e^(least − cost_c), with e^t taken as 0 for t < −745;
+//   probability: 1 / Σ_c e^(least − cost_c), with e^t taken as 0 for t < −745, and none when the
+//   least cost is 1e300 or more;
 //   far: q_c > farBeyond_c² for every c.
 import { componentConstant } from '../methods/mixture';
 import type { DefinitionSegment } from './definition-types';
 
 /** Below this exponent e^t is taken as 0 (JavaScript gives 0 from about −745.13; PostgreSQL refuses an exp that underflows). */
 export const EXP_ZERO_BELOW = -745;
+/**
+ * A row whose least cost is at or above this (its distances overflow: a feature near 1e154 or
+ * beyond) gets no probability (NaN here, NULL in SQL and in assign): ∞ − ∞ has no common meaning
+ * across engines.
+ */
+export const COST_WITHOUT_PROBABILITY = 1e300;
 
 export interface MixtureScores {
   /** 0-based segment per row. */
   readonly segment: Int32Array;
   /** Mahalanobis distance to that segment's component. */
   readonly distance: Float64Array;
-  /** Posterior probability of that segment. */
+  /** Posterior probability of that segment (NaN when the distances overflow, see COST_WITHOUT_PROBABILITY). */
   readonly probability: Float64Array;
   /** 1 when the row is beyond every segment's farBeyond (in Mahalanobis distance). */
   readonly far: Uint8Array;
@@ -97,7 +104,7 @@ export function scoreMixture(data: Float64Array, rows: number, f: MixtureFigures
     }
     segment[i] = best;
     distance[i] = Math.sqrt(q[best]);
-    probability[i] = 1 / sum;
+    probability[i] = cost[best] < COST_WITHOUT_PROBABILITY ? 1 / sum : NaN;
     far[i] = limits ? farFromAll : 0;
   }
   return { segment, distance, probability, far };

@@ -21,6 +21,7 @@ import { checkSqlText, commentText } from '../engines/sql-safety';
 import type { PreparedColumn, Preparation } from '../prepare/types';
 import type { SegmentDefinition } from './definition-types';
 import { levelMatchOf, storedTextRule } from './sql-markers';
+import { mixtureLayers, type SqlLayer } from './sql-mixture';
 
 export interface SqlOptions {
   /**
@@ -50,12 +51,9 @@ export const SQL_MAX_FIGURES = 400_000;
 export const SQLITE_MAX_FEATURES = 900;
 
 const PREFIX = 'kinsort_';
-const OUTPUT_NAMES = ['segment', 'distance', 'far'];
+const OUTPUT_NAMES = ['segment', 'distance', 'far', 'probability'];
 
-interface Layer {
-  name: string;
-  columns: string[];
-}
+type Layer = SqlLayer;
 
 /** The table as quoted parts; anything that is not a plain (qualified) name is refused. */
 function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
@@ -132,7 +130,9 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   checkSqlText(idColumn, 'the id column');
   const k = definition.segments.length;
   const dims = definition.features.length;
-  if (k > SQL_MAX_SEGMENTS || k * dims > SQL_MAX_FIGURES) {
+  // A mixture also writes each component's lower-triangle factor (d(d + 1)/2 figures).
+  const figures = definition.rule === 'highest-posterior' ? (k * dims * (dims + 3)) / 2 : k * dims;
+  if (k > SQL_MAX_SEGMENTS || figures > SQL_MAX_FIGURES) {
     throw new KinsortError(
       `toSql: ${k} segments × ${dims} features is beyond what kinsort writes as one statement (at most ${SQL_MAX_SEGMENTS} segments and ${SQL_MAX_FIGURES.toLocaleString('en-US')} centre figures).`,
       'too-large',
@@ -294,15 +294,19 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${d.least(definition.segments.map((_, c) => `${dist(c)} - ${limit(c)}`))} > ${d.doubleLiteral(0)} THEN 1 ELSE 0 END AS ${q('far')}`,
     ],
   };
+  const mixture =
+    definition.rule === 'highest-posterior' ? mixtureLayers(definition, d, id, f, bounded ? big : undefined, PREFIX) : undefined;
   const header = [
     `-- kinsort segment definition, written by ${commentText(definition.writtenBy)} (format ${Number(definition.formatVersion)}): ${k} segments, rule ${commentText(definition.rule)}, metric ${commentText(definition.metric)}.`,
-    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far.`,
+    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far${mixture ? ', and the posterior probability of the segment' : ''}.`,
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
   const sql =
     header.join('\n') +
     '\n' +
-    render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d) +
+    (mixture
+      ? render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), ...mixture.layers], mixture.final, from, d)
+      : render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d)) +
     '\n';
   const cap = opts.maxQueryBytes ?? d.maxQueryBytes;
   if (cap !== undefined) {
