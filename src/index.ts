@@ -20,3 +20,12 @@ export * from './engines';
 export * from './views';
 export * from './notebook';
 export * from './study';
+// Gaussian mixtures (issue #20): the EM core, the BIC comparison and its view, the fluent options.
+export { gaussianMixture, COVARIANCE_SHAPES, parameterCount } from './methods/mixture';
+export type { GaussianMixtureOptions, GaussianMixtureResult, CovarianceShape, MixtureStart } from './methods/mixture';
+export { compareMixtures } from './assess/compare-mixtures';
+export type { CompareMixturesOptions, CompareMixturesResult, MixtureCandidate } from './assess/compare-mixtures';
+export { mixtureEvidenceView } from './views/mixture-evidence';
+export type { MixtureComparisonLike } from './views/mixture-evidence';
+export type { StudyMixtureOptions } from './study/mixture-fit';
+export type { MembershipTable } from './study/mixture-parts';

@@ -47,6 +47,7 @@ export const PREPARED_STUDY_CALLS = [
   'variableTree',
   // Mixtures (issue #20).
   'mixture',
+  'compareMixtures',
 ] as const;
 
 /** What a segmentation offers that a hierarchy does not, for the "cut first" guard on a hierarchy. */
