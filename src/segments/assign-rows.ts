@@ -12,7 +12,8 @@ import type { ImputedColumn, Preparation, PreparedData, UnseenLevel } from '../p
 import { readTable } from '../table';
 import { isTable, type Table, type TableColumn } from '../table/types';
 import { nearestCenters } from './assign-nearest';
-import type { SegmentDefinition } from './definition-types';
+import type { DefinitionMetric, SegmentDefinition } from './definition-types';
+import { mixtureFigures, scoreMixture } from './mixture-rule';
 
 export interface AssignOptions {
   /**
@@ -30,6 +31,8 @@ export interface AssignedRow {
   readonly distance: number | null;
   /** True when the row is farther than every segment's `farBeyond`. */
   readonly far: boolean | null;
+  /** Mixture definitions only (rule highest-posterior): the posterior probability of the segment given. */
+  readonly probability?: number | null;
 }
 
 export interface RefusedRow {
@@ -136,7 +139,10 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     }
   }
 
-  const rows: AssignedRow[] = ids.map((id) => ({ id, segment: null, distance: null, far: null }));
+  const mixture = definition.rule === 'highest-posterior';
+  const rows: AssignedRow[] = ids.map((id) =>
+    mixture ? { id, segment: null, distance: null, far: null, probability: null } : { id, segment: null, distance: null, far: null },
+  );
   let unseenLevels: UnseenLevel[] = [];
   let imputed: ImputedColumn[] = [];
   if (prepared !== undefined) {
@@ -148,12 +154,26 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
       );
     }
     const k = definition.segments.length;
-    const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
     const farBeyond = definition.segments.map((s) => s.farBeyond);
-    const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric, farBeyond);
-    for (let r = 0; r < good.length; r++) {
-      const i = good[r];
-      rows[i] = { id: ids[i], segment: nearest.segment[r] + 1, distance: nearest.distance[r], far: nearest.far[r] === 1 };
+    if (mixture) {
+      const scores = scoreMixture(m.data, m.rows, mixtureFigures(definition.segments, m.cols), farBeyond);
+      for (let r = 0; r < good.length; r++) {
+        const i = good[r];
+        rows[i] = {
+          id: ids[i],
+          segment: scores.segment[r] + 1,
+          distance: scores.distance[r],
+          far: scores.far[r] === 1,
+          probability: Number.isNaN(scores.probability[r]) ? null : scores.probability[r],
+        };
+      }
+    } else {
+      const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
+      const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric as DefinitionMetric, farBeyond);
+      for (let r = 0; r < good.length; r++) {
+        const i = good[r];
+        rows[i] = { id: ids[i], segment: nearest.segment[r] + 1, distance: nearest.distance[r], far: nearest.far[r] === 1 };
+      }
     }
     // Map the subset's rows back to input rows (ids made of row numbers would be renumbered).
     unseenLevels = prepared.report.unseenLevels.map((u) => ({ ...u, id: ids[good[u.row]], row: good[u.row] }));

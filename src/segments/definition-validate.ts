@@ -9,10 +9,13 @@ import {
   DEFINITION_METHODS,
   DEFINITION_METRICS,
   DefinitionSegment,
+  MIXTURE_METRIC,
   SegmentDefinition,
+  StoredMetric,
   TRAINING_LABELS,
 } from './definition-types';
 import { upgradePreparation } from '../prepare/upgrade';
+import { checkMixtureSegment, checkWeightSum } from './definition-validate-mixture';
 import { kinsortVersion } from './definition-version';
 import { checkName, checkStoredPreparation, onlyKeys } from './definition-validate-preparation';
 import { checkTrainingDistributions } from './definition-validate-distributions';
@@ -72,7 +75,7 @@ const TOP_KEYS = [
   'trainingDistributions',
   'evidence',
 ];
-const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
+const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond', 'weight', 'whitening'];
 const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels'];
 
 const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
@@ -178,7 +181,14 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   const methodOptions = need(method, 'options', 'object', `${where}: method`);
   noPrototypeKeys(methodOptions, `${where}: method.options`);
   const rule = oneOf(need(d, 'rule', 'string', where), ASSIGNMENT_RULES, 'rule', where);
-  const metric = oneOf(need(d, 'metric', 'string', where), DEFINITION_METRICS, 'metric', where);
+  // The highest-posterior rule measures Mahalanobis distances, every other rule a distance metric.
+  const mixture = rule === 'highest-posterior';
+  const metric: StoredMetric = oneOf(
+    need(d, 'metric', 'string', where),
+    mixture ? [MIXTURE_METRIC] : DEFINITION_METRICS,
+    'metric',
+    mixture ? `${where} (rule highest-posterior)` : where,
+  );
   const preparation = storedPreparation(need(d, 'preparation', 'object', where), version, where);
   const features: unknown[] = need(d, 'features', 'array', where);
   features.forEach((f, j) => {
@@ -210,6 +220,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     if (text !== undefined) proseOnly(text, at, 'key "text"');
     if (rule === 'nearest-medoid' && medoidId === undefined)
       fail(at, 'key "medoidId" is missing; the nearest-medoid rule needs the id of each medoid.');
+    if (!mixture && (seg.weight !== undefined || seg.whitening !== undefined))
+      fail(at, `keys "weight" and "whitening" are set, but the rule is "${rule}"; only highest-posterior definitions hold them.`);
+    const component = mixture ? checkMixtureSegment(seg, dims, at) : undefined;
     return {
       number,
       title,
@@ -218,8 +231,15 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       center: numbers(seg.center, dims, `${at}.center`),
       medoidId,
       farBeyond,
+      weight: component?.weight,
+      whitening: component?.whitening,
     };
   });
+  if (mixture)
+    checkWeightSum(
+      segments.map((s) => s.weight!),
+      where,
+    );
   const training = need(d, 'training', 'object', where);
   const at = `${where}: training`;
   onlyKeys(training, TRAINING_KEYS, at);

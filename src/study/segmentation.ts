@@ -27,6 +27,12 @@ import { writeUpPage } from '../views/write-up-page';
 import { segmentRules, type SegmentRulesOptions } from './segment-rules';
 import type { SegmentRules } from '../segments/rules';
 import { HIERARCHY_CALLS, installWrongStepGuards, type AskTheHierarchyInstead } from './wrong-step';
+import { membershipTable, mixtureAgreement, type MembershipTable, type MixtureParts } from './mixture-parts';
+
+/** The rule's name as the notes and cards print it. */
+function ruleWords(rule: RuleAgreement['rule']): string {
+  return rule === 'nearest-center' ? 'nearest-centre' : rule;
+}
 
 export interface SegmentName {
   title?: string;
@@ -55,6 +61,8 @@ export interface SegmentationParts {
   labels?: TrainingLabels;
   /** What the fitting step decided that a person should know. */
   notes?: string[];
+  /** Gaussian mixtures: weights, covariances and membership probabilities. */
+  mixture?: MixtureParts;
 }
 
 const NAME_OPTIONS = ['title', 'text'];
@@ -84,6 +92,7 @@ export class Segmentation {
   /** Notes on the fit (settling k-means, how far the scoring rule reproduces the segments). */
   readonly notes: readonly string[];
   private readonly options: Record<string, unknown>;
+  private readonly mixture?: MixtureParts;
   private readonly given: Map<number, SegmentName> = new Map();
   private agreementCache?: RuleAgreement | null;
   private readonly dissimilarityUsed?: Dissimilarity;
@@ -111,6 +120,7 @@ export class Segmentation {
     this.ids = parts.data.ids;
     this.options = parts.options;
     this.dissimilarityUsed = parts.dissimilarity;
+    this.mixture = parts.mixture;
     const sizes = new Array<number>(this.k).fill(0);
     for (let i = 0; i < parts.assignment.length; i++) sizes[parts.assignment[i]]++;
     this.sizes = sizes;
@@ -120,7 +130,7 @@ export class Segmentation {
     if (agreement && agreement.reproduced < agreement.rows) {
       const how = this.method === 'hierarchy' ? 'a hierarchy cut' : this.method;
       notes.push(
-        `The definition scores rows by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule, ` +
+        `The definition scores rows by the ${ruleWords(agreement.rule)} rule, ` +
           `which gives ${agreement.reproduced.toLocaleString('en-US')} of the ${agreement.rows.toLocaleString('en-US')} training rows ` +
           `the segment ${how} gave them (${(agreement.rows - agreement.reproduced).toLocaleString('en-US')} differ). The definition records ` +
           `this; call .relabelByRule() for a segmentation whose segments are the rule's own.`,
@@ -145,8 +155,9 @@ export class Segmentation {
   ruleAgreement(): RuleAgreement | null {
     if (this.agreementCache === undefined) {
       const metric = this.ruleMetric();
-      this.agreementCache =
-        metric === null
+      this.agreementCache = this.mixture
+        ? mixtureAgreement(this.data.matrix, this.assignment, this.centers, this.mixture)
+        : metric === null
           ? null
           : ruleAgreement(
               this.data.matrix,
@@ -185,7 +196,9 @@ export class Segmentation {
     }
     const moved = agreement.rows - agreement.reproduced;
     const objective =
-      this.method === 'kmedoids' ? this.objective : { name: 'withinSS', value: withinAround(this.data.matrix, assignment, this.centers) };
+      this.method === 'kmedoids' || this.mixture
+        ? this.objective
+        : { name: 'withinSS', value: withinAround(this.data.matrix, assignment, this.centers) };
     const relabelled = new Segmentation({
       method: this.method,
       options: this.options,
@@ -197,10 +210,14 @@ export class Segmentation {
       data: this.data,
       dissimilarity: this.dissimilarityUsed,
       labels: 'rule',
+      mixture: this.mixture,
       notes: [
-        `Relabelled by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule: ${moved.toLocaleString('en-US')} of ` +
-          `${agreement.rows.toLocaleString('en-US')} training rows moved to the segment whose ${this.method === 'kmedoids' ? 'medoid' : 'centre'} is nearest; ` +
-          `the ${this.method === 'kmedoids' ? 'medoids' : 'centres'} are the fit's, unchanged.`,
+        this.mixture
+          ? `Relabelled by the highest-posterior rule: ${moved.toLocaleString('en-US')} of ${agreement.rows.toLocaleString('en-US')} training rows ` +
+            "moved to the component the stored rule gives them; weights, means and covariances are the fit's, unchanged."
+          : `Relabelled by the ${ruleWords(agreement.rule)} rule: ${moved.toLocaleString('en-US')} of ` +
+            `${agreement.rows.toLocaleString('en-US')} training rows moved to the segment whose ${this.method === 'kmedoids' ? 'medoid' : 'centre'} is nearest; ` +
+            `the ${this.method === 'kmedoids' ? 'medoids' : 'centres'} are the fit's, unchanged.`,
       ],
     });
     for (const [s, n] of this.given) relabelled.name(s, n);
@@ -283,6 +300,7 @@ export class Segmentation {
       resamples: opts.resamples,
       seed,
       method: this.method,
+      ...(this.mixture ? { covariance: this.mixture.covariance, restarts: (this.options.restarts as number | undefined) ?? 1 } : {}),
       assignment: this.assignment,
       onProgress: opts.onProgress,
     });
@@ -313,7 +331,7 @@ export class Segmentation {
       top: opts.top,
     });
     if (agreement === null) return profiles;
-    const rule = agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    const rule = ruleWords(agreement.rule);
     return profiles.map((p) => ({ ...p, rule: { name: rule, reproduced: agreement.perSegment[p.index], size: p.size } }));
   }
 
@@ -333,7 +351,22 @@ export class Segmentation {
       names: this.titles(),
       loadings: opts.loadings,
       title: opts.title,
+      ...(this.mixture ? { uncertain: { flags: this.membership().uncertain, below: this.mixture.uncertainBelow } } : {}),
     });
+  }
+
+  /**
+   * Mixtures only: each row's membership probabilities (n × k, row-major), its top probability and
+   * whether that is below the uncertainty threshold the projection marks.
+   */
+  membership(): MembershipTable {
+    if (!this.mixture) {
+      throw new KinsortError(
+        `membership: a ${this.method} segmentation gives each row one segment, not probabilities; fit a Gaussian mixture (prepared.mixture({ k })) for memberships.`,
+        'not-supported',
+      );
+    }
+    return membershipTable(this.mixture, this.ids, this.k);
   }
 
   /** Agreement with another segmentation of the same rows: ARI, NMI and the cross-table. */
@@ -377,6 +410,7 @@ export class Segmentation {
         preparation: this.data.preparation,
         method: { name: this.method, options: this.options },
         centers: this.method === 'kmedoids' ? undefined : this.centers,
+        mixture: this.mixture ? { weights: this.mixture.weights, covariances: this.mixture.covariances } : undefined,
         medoids: this.medoids ? [...this.medoids] : undefined,
         segments: this.sizes.map((size, s) => ({ number: s + 1, size, ...names[s + 1] })),
         training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
@@ -430,12 +464,15 @@ export class Segmentation {
       case 'kmedoids':
         how = `k-medoids (PAM) with k = ${this.k}, ${o.metric ?? 'euclidean'} dissimilarity, on ${rows}.`;
         break;
+      case 'mixture':
+        how = `Gaussian mixture (EM) with k = ${this.k}, ${o.covariance ?? 'full'} covariance, ${o.restarts ?? 1} restart(s), seed ${o.seed ?? 0}, on ${rows}.`;
+        break;
       default:
         how = `Agglomerative hierarchy (${o.linkage} linkage, ${o.metric ?? 'euclidean'}) cut into ${this.k} segments, on ${rows}.`;
     }
     const a = this.ruleAgreement();
     if (a === null) return how;
-    const rule = a.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    const rule = ruleWords(a.rule);
     if (this.labels === 'rule')
       return `${how} Segments relabelled by the ${rule} rule that scores new rows, so the two agree on every training row.`;
     if (a.reproduced === a.rows) return `${how} The ${rule} rule that scores new rows gives every training row its segment.`;
