@@ -189,7 +189,9 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     ],
   };
   const mixture =
-    definition.rule === 'highest-posterior' ? mixtureLayers(definition, d, pass.join(', '), f, bounded ? big : undefined, PREFIX) : undefined;
+    definition.rule === 'highest-posterior'
+      ? mixtureLayers(definition, d, pass.join(', '), f, bounded ? big : undefined, PREFIX)
+      : undefined;
   const header = [
     `-- kinsort segment definition, written by ${commentText(definition.writtenBy)} (format ${Number(definition.formatVersion)}): ${k} segments, rule ${commentText(definition.rule)}, metric ${commentText(definition.metric)}.`,
     `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far${mixture ? ', and the posterior probability of the segment' : ''}.`,
