@@ -20,3 +20,6 @@ export * from './engines';
 export * from './views';
 export * from './notebook';
 export * from './study';
+// Density segments (HDBSCAN with noise and GLOSH outlier scores)
+export { densitySegments, NOISE } from './methods/density';
+export type { DensitySegmentsOptions, DensitySegmentsResult, DensityBranch } from './methods/density';
