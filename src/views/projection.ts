@@ -65,7 +65,11 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   let stand = 0;
   if (opts.noise && assignment.length === n) {
     for (let i = 0; i < n; i++) if (assignment[i] !== -1) stand = assignment[i];
-    for (let i = 0; i < n; i++) if (assignment[i] === -1) ((isNoise[i] = 1), noiseRows++);
+    for (let i = 0; i < n; i++) {
+      if (assignment[i] !== -1) continue;
+      isNoise[i] = 1;
+      noiseRows++;
+    }
   }
   const { labels, k } = compactLabels(
     noiseRows ? Array.from(assignment, (a) => (a === -1 ? stand : a)) : assignment,
