@@ -12,6 +12,7 @@ import type { ImputedColumn, Preparation, PreparedData, UnseenLevel } from '../p
 import { readTable } from '../table';
 import { isTable, type Table, type TableColumn } from '../table/types';
 import { nearestCenters } from './assign-nearest';
+import { nearestDenseRows } from './dense-rows';
 import type { SegmentDefinition } from './definition-types';
 
 export interface AssignOptions {
@@ -24,7 +25,10 @@ export interface AssignOptions {
 
 export interface AssignedRow {
   readonly id: string;
-  /** 1-based segment, or null when the row could not be prepared (see the report). */
+  /**
+   * 1-based segment, or null when the row could not be prepared (see the report). Density
+   * definitions (nearest-dense-row) give 0 to a row in no segment (noise), and `far` is then true.
+   */
   readonly segment: number | null;
   /** Distance to the segment's centre / medoid under the definition's metric. */
   readonly distance: number | null;
@@ -147,13 +151,10 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
         'bad-definition',
       );
     }
-    const k = definition.segments.length;
-    const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
-    const farBeyond = definition.segments.map((s) => s.farBeyond);
-    const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric, farBeyond);
+    const scored = scoreRows(definition, m.data, m.rows, m.cols);
     for (let r = 0; r < good.length; r++) {
       const i = good[r];
-      rows[i] = { id: ids[i], segment: nearest.segment[r] + 1, distance: nearest.distance[r], far: nearest.far[r] === 1 };
+      rows[i] = { id: ids[i], segment: scored.segment[r], distance: scored.distance[r], far: scored.far[r] === 1 };
     }
     // Map the subset's rows back to input rows (ids made of row numbers would be renumbered).
     unseenLevels = prepared.report.unseenLevels.map((u) => ({ ...u, id: ids[good[u.row]], row: good[u.row] }));
@@ -177,4 +178,18 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     rows,
     report: { inputRows: table.rowCount, assignedRows: good.length, refused, unseenLevels, imputed, ignoredColumns, notes },
   };
+}
+
+/** The stored rule on prepared rows: 1-based segments (0 = noise for nearest-dense-row), distances, far flags. */
+function scoreRows(definition: SegmentDefinition, data: Float64Array, rows: number, dims: number) {
+  if (definition.rule === 'nearest-dense-row') {
+    if (!definition.denseRows) throw new KinsortError('assign: the nearest-dense-row definition stores no rows.', 'bad-definition');
+    const dense = nearestDenseRows(data, rows, dims, definition.denseRows, definition.metric);
+    return { segment: dense.segment, distance: dense.distance, far: dense.noise };
+  }
+  const k = definition.segments.length;
+  const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
+  const farBeyond = definition.segments.map((s) => s.farBeyond);
+  const nearest = nearestCenters(data, rows, centers, k, dims, definition.metric, farBeyond);
+  return { segment: Int32Array.from(nearest.segment, (c) => c + 1), distance: nearest.distance, far: nearest.far };
 }

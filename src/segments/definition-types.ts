@@ -2,6 +2,7 @@
 // fitted segmentation to new rows (here, in another notebook, or in SQL where the data lives).
 import type { JsonValue } from './definition-json';
 import type { TrainingDistributions } from './training-distributions';
+import type { DenseRows } from './dense-rows';
 
 /** Marks the file as ours, whatever its name. */
 export const DEFINITION_KIND = 'kinsort segment definition';
@@ -17,16 +18,18 @@ export const DEFINITION_FORMAT_VERSION = 2;
 export type TrainingLabels = 'fit' | 'rule';
 export const TRAINING_LABELS: readonly TrainingLabels[] = ['fit', 'rule'];
 
-export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy';
-export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy'];
+export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy' | 'density';
+export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy', 'density'];
 
 /**
  * How a new row gets its segment. 'nearest-center': the segment whose centre (segment mean in the
  * prepared space) is nearest — the rule for k-means and for a hierarchy cut. 'nearest-medoid': the
  * segment whose medoid (a training row) is nearest under the stored metric — the rule for k-medoids.
  */
-export type AssignmentRule = 'nearest-center' | 'nearest-medoid';
-export const ASSIGNMENT_RULES: readonly AssignmentRule[] = ['nearest-center', 'nearest-medoid'];
+export type AssignmentRule = 'nearest-center' | 'nearest-medoid' | 'nearest-dense-row';
+export const ASSIGNMENT_RULES: readonly AssignmentRule[] = ['nearest-center', 'nearest-medoid', 'nearest-dense-row'];
+// 'nearest-dense-row' (density segments, docs/dense-row-rule.md): the segment of the nearest stored
+// training row in a segment, or noise (segment 0) beyond that row's core distance. See dense-rows.ts.
 
 /** Metrics a definition can assign with (and write as portable SQL). */
 export type DefinitionMetric = 'euclidean' | 'sqeuclidean' | 'manhattan';
@@ -82,7 +85,11 @@ export interface SegmentDefinition {
     readonly reproducedRows: number;
     /** 'fit': segments (and sizes) as the method gave them; 'rule': relabelled by the stored rule, on request. */
     readonly labels: TrainingLabels;
+    /** Density definitions: training rows in no segment (noise); the segment sizes plus this make `rows`. */
+    readonly noiseRows?: number;
   };
+  /** nearest-dense-row only: every training row in a segment, its core distance and segment. */
+  readonly denseRows?: DenseRows;
   /** Optional: the training rows' feature distributions and far share, for drift (absent in older files). */
   readonly trainingDistributions?: TrainingDistributions;
   /** Optional evidence for the choice of k (keys sorted), as the caller gives it. */

@@ -3,6 +3,8 @@
 // a hierarchy all give this one kind of object.
 import { saveText } from '../core/save-file';
 import { takeRows } from '../core/matrix';
+import type { DensitySegmentsResult } from '../methods/density';
+import { buildDensityDefinition } from '../segments/definition-dense-build';
 import { KinsortError } from '../core/errors';
 import { checkInteger, checkOptions } from '../core/options';
 import type { Seed } from '../random';
@@ -422,13 +424,7 @@ export class Segmentation {
   /** Everything needed to reproduce and apply this segmentation to new rows. */
   definition(options: { note?: string } = {}): DefinitionHandle {
     const opts = checkOptions(options, ['note'], 'definition');
-    if (this.method === 'density') {
-      throw new KinsortError(
-        'definition: density segments have no stored scoring rule yet (nearest core row with noise is planned); ' +
-          'the segments, noise and outlier scores of the training rows are on this segmentation.',
-        'not-supported',
-      );
-    }
+    if (this.method === 'density') return definitionHandle(this.densityDefinition(opts.note));
     const method = this.method;
     const names = this.names();
     const def = buildDefinition(
@@ -513,6 +509,23 @@ export class Segmentation {
     if (this.silhouetteCache) out.averageSilhouette = this.silhouetteCache.average;
     if (this.stabilityCache) out.stabilityJaccard = [...this.stabilityCache.jaccard];
     return out;
+  }
+
+  /** The nearest-dense-row definition: every training row in a segment stored with its core distance. */
+  private densityDefinition(note: string | undefined) {
+    const fit = this.fit as DensitySegmentsResult;
+    const names = this.names();
+    return buildDensityDefinition({
+      preparation: this.data.preparation,
+      options: this.options,
+      metric: fit.metric,
+      training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment, coreDistances: fit.coreDistances },
+      centers: this.centers.map((c) => [...c]),
+      segments: this.sizes.map((_, s) => ({ ...names[s + 1] })),
+      featureNames: this.data.featureNames,
+      evidence: { ...this.evidence(), noiseRows: this.noiseCount },
+      note,
+    });
   }
 
   /** Silhouettes of the rows in a segment only: noise is no segment, so it has no silhouette. Stated on the result. */
