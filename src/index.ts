@@ -234,3 +234,8 @@ export { mixtureEvidenceView } from './views/mixture-evidence';
 export type { MixtureComparisonLike } from './views/mixture-evidence';
 export type { StudyMixtureOptions } from './study/mixture-fit';
 export type { MembershipTable } from './study/mixture-parts';
+
+// ─── Density segments ────────────────────────────────────────────────────────────────────────────
+// HDBSCAN with noise and GLOSH outlier scores.
+export { densitySegments, NOISE } from './methods/density';
+export type { DensitySegmentsOptions, DensitySegmentsResult, DensityBranch } from './methods/density';

@@ -73,6 +73,12 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   if (opts.table === undefined || opts.table === null) {
     throw new KinsortError('toSql: give the table to score, e.g. toSql({ table: "riders", dialect: "duckdb" }).', 'bad-argument');
   }
+  if (definition.rule === 'nearest-dense-row') {
+    throw new KinsortError(
+      'toSql: density definitions (rule nearest-dense-row) are scored in memory only for now (assign); their SQL is not written yet.',
+      'not-supported',
+    );
+  }
   const d = chooseDialect(opts);
   const from = tableReference(opts.table, d);
   const prep = definition.preparation as unknown as Preparation;
