@@ -3,7 +3,7 @@
 // in a numeric column, a binary or ordinal level never seen in training) is in the output with
 // segment null and is named by id in the report with its reason. A categorical level never seen in
 // training follows the preparation's rule (all its indicators 0) and is reported.
-import { checkProgress, progressTicker, report, type ProgressCallback } from '../core/progress';
+import { checkProgress, progressTicker, report, type ProgressCallback, type Ticker } from '../core/progress';
 import { KinsortError, didYouMean } from '../core/errors';
 import { checkOptions } from '../core/options';
 import { applyPreparation } from '../prepare';
@@ -13,7 +13,9 @@ import type { ImputedColumn, Preparation, PreparedData, UnseenLevel } from '../p
 import { readTable } from '../table';
 import { isTable, type Table, type TableColumn } from '../table/types';
 import { nearestCenters } from './assign-nearest';
-import type { SegmentDefinition } from './definition-types';
+import { nearestDenseRows } from './dense-rows';
+import type { DefinitionMetric, SegmentDefinition } from './definition-types';
+import { mixtureFigures, scoreMixture } from './mixture-rule';
 
 export interface AssignOptions {
   /**
@@ -30,12 +32,17 @@ export interface AssignOptions {
 
 export interface AssignedRow {
   readonly id: string;
-  /** 1-based segment, or null when the row could not be prepared (see the report). */
+  /**
+   * 1-based segment, or null when the row could not be prepared (see the report). Density
+   * definitions (nearest-dense-row) give 0 to a row in no segment (noise), and `far` is then true.
+   */
   readonly segment: number | null;
   /** Distance to the segment's centre / medoid under the definition's metric. */
   readonly distance: number | null;
   /** True when the row is farther than every segment's `farBeyond`. */
   readonly far: boolean | null;
+  /** Mixture definitions only (rule highest-posterior): the posterior probability of the segment given. */
+  readonly probability?: number | null;
 }
 
 export interface RefusedRow {
@@ -143,7 +150,10 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     }
   }
 
-  const rows: AssignedRow[] = ids.map((id) => ({ id, segment: null, distance: null, far: null }));
+  const mixture = definition.rule === 'highest-posterior';
+  const rows: AssignedRow[] = ids.map((id) =>
+    mixture ? { id, segment: null, distance: null, far: null, probability: null } : { id, segment: null, distance: null, far: null },
+  );
   let unseenLevels: UnseenLevel[] = [];
   let imputed: ImputedColumn[] = [];
   if (prepared !== undefined) {
@@ -154,15 +164,14 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
         'bad-definition',
       );
     }
-    const k = definition.segments.length;
-    const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
-    const farBeyond = definition.segments.map((s) => s.farBeyond);
     report(onProgress, { task: 'assigning', done: 0, total: m.rows, detail: 'rows read and prepared' });
-    const tick = progressTicker(onProgress, 'assigning', m.rows, `nearest of ${k} segments`);
-    const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric, farBeyond, tick);
+    const tick = progressTicker(onProgress, 'assigning', m.rows, `nearest of ${definition.segments.length} segments`);
+    const scored = scoreRows(definition, m.data, m.rows, m.cols, tick);
     for (let r = 0; r < good.length; r++) {
       const i = good[r];
-      rows[i] = { id: ids[i], segment: nearest.segment[r] + 1, distance: nearest.distance[r], far: nearest.far[r] === 1 };
+      const row = { id: ids[i], segment: scored.segment[r], distance: scored.distance[r], far: scored.far[r] === 1 };
+      if (!scored.probability) rows[i] = row;
+      else rows[i] = { ...row, probability: Number.isNaN(scored.probability[r]) ? null : scored.probability[r] };
     }
     // Map the subset's rows back to input rows (ids made of row numbers would be renumbered).
     unseenLevels = prepared.report.unseenLevels.map((u) => ({ ...u, id: ids[good[u.row]], row: good[u.row] }));
@@ -185,5 +194,51 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
   return {
     rows,
     report: { inputRows: table.rowCount, assignedRows: good.length, refused, unseenLevels, imputed, ignoredColumns, notes },
+  };
+}
+
+/**
+ * The stored rule on prepared rows: 1-based segments (0 = noise for nearest-dense-row), distances,
+ * far flags, and for a mixture the posterior probability of the segment given.
+ */
+function scoreRows(
+  definition: SegmentDefinition,
+  data: Float64Array,
+  rows: number,
+  dims: number,
+  tick?: Ticker,
+): { segment: Int32Array; distance: Float64Array; far: Uint8Array; probability?: Float64Array } {
+  // The nearest-center rule tells its progress row by row; the other rules when they finish.
+  if (definition.rule !== 'nearest-center' && definition.rule !== 'nearest-medoid') {
+    const out = scoreByOtherRule(definition, data, rows, dims);
+    if (tick) tick(rows);
+    return out;
+  }
+  const k = definition.segments.length;
+  const farBeyond = definition.segments.map((s) => s.farBeyond);
+  const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
+  const nearest = nearestCenters(data, rows, centers, k, dims, definition.metric as DefinitionMetric, farBeyond, tick);
+  return { segment: Int32Array.from(nearest.segment, (c) => c + 1), distance: nearest.distance, far: nearest.far };
+}
+
+function scoreByOtherRule(
+  definition: SegmentDefinition,
+  data: Float64Array,
+  rows: number,
+  dims: number,
+): { segment: Int32Array; distance: Float64Array; far: Uint8Array; probability?: Float64Array } {
+  if (definition.rule === 'nearest-dense-row') {
+    if (!definition.denseRows) throw new KinsortError('assign: the nearest-dense-row definition stores no rows.', 'bad-definition');
+    const dense = nearestDenseRows(data, rows, dims, definition.denseRows, definition.metric as DefinitionMetric);
+    return { segment: dense.segment, distance: dense.distance, far: dense.noise };
+  }
+  // highest-posterior
+  const farBeyond = definition.segments.map((s) => s.farBeyond);
+  const scores = scoreMixture(data, rows, mixtureFigures(definition.segments, dims), farBeyond);
+  return {
+    segment: Int32Array.from(scores.segment, (c) => c + 1),
+    distance: scores.distance,
+    far: scores.far,
+    probability: scores.probability,
   };
 }
