@@ -237,9 +237,12 @@ describe('the packed tarball installed into a fresh project', () => {
       ['--module', 'nodenext', '--moduleResolution', 'nodenext'],
       ['--module', 'commonjs', '--moduleResolution', 'node10'],
     ]) {
-      const r = await run('node', [TSC, '--noEmit', '--strict', ...mode, 'plumbing.ts'], { cwd: project }).catch((e) => e);
-      expect(String(r.stdout), mode.join(' ')).toMatch(
-        /plumbing\.ts\(1,10\): error TS2305: Module '"kinsort"' has no exported member 'guardPairwise'/,
+      const r = await run('node', [TSC, '--noEmit', '--strict', '--target', 'es2022', ...mode, 'plumbing.ts'], { cwd: project }).catch(
+        (e) => e,
+      );
+      // That one error and no other: the shipped types are otherwise clean.
+      expect(String(r.stdout).trim(), mode.join(' ')).toBe(
+        `plumbing.ts(1,10): error TS2305: Module '"kinsort"' has no exported member 'guardPairwise'.`,
       );
     }
   }, 120_000);
