@@ -7,9 +7,10 @@ import { createMatrix } from '../../src/core/matrix';
 import { createRandom } from '../../src/random';
 
 describe('silhouettesOfLabellings', () => {
-  // 700 rows: more than one tile in both directions (64 × 256), with a ragged last tile.
+  // 701 rows: more than one tile in both directions (64 × 256), rows of a tile two at a time away
+  // from the diagonal, and ragged last tiles.
   const random = createRandom(7);
-  const n = 700;
+  const n = 701;
   const d = 5;
   const data = new Float64Array(n * d);
   for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) data[i * d + j] = (i % 3) * 4 + random.normal();
