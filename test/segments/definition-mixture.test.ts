@@ -44,6 +44,11 @@ describe('mixture definitions', () => {
 
   it('assign gives the training rows their segments, with the posterior probabilities of the fit', () => {
     const out = def.assign(records);
+    // Drift against the training rows works as for the other rules: the same rows drift by nothing.
+    const drift = out.drift();
+    expect(drift.features.length).toBeGreaterThan(0);
+    expect(drift.features.every((f) => f.stabilityIndex < 1e-9)).toBe(true);
+    expect(drift.far.newShare).toBeCloseTo(drift.far.trainingShare!, 12);
     const table = seg.membership();
     expect(out.rows).toHaveLength(records.length);
     for (const [i, row] of out.rows.entries()) {
