@@ -2,23 +2,25 @@
 // fitted segmentation to new rows (here, in another notebook, or in SQL where the data lives).
 import type { JsonValue } from './definition-json';
 import type { TrainingDistributions } from './training-distributions';
+import type { DenseRows } from './dense-rows';
 
 /** Marks the file as ours, whatever its name. */
 export const DEFINITION_KIND = 'kinsort segment definition';
 /**
  * Bumped whenever a reader of an older version could misread the file. Format 2 stores the schema
  * (text rule, missing markers, decimal mark, level matching: preparation version 2) and how many
- * training rows the rule reproduces; format 1 files are refused with a message (they cannot be
- * migrated without guessing how their cells were read).
+ * training rows the rule reproduces; format 3 spells every key `center` (format 2's preparation
+ * said `centre`) and is otherwise the same, so format-2 files are read and translated. Format 1
+ * files are refused with a message (they cannot be migrated without guessing how their cells were read).
  */
-export const DEFINITION_FORMAT_VERSION = 2;
+export const DEFINITION_FORMAT_VERSION = 3;
 
 /** Where the training rows' segments in the file come from. */
 export type TrainingLabels = 'fit' | 'rule';
 export const TRAINING_LABELS: readonly TrainingLabels[] = ['fit', 'rule'];
 
-export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy' | 'mixture';
-export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy', 'mixture'];
+export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy' | 'mixture' | 'density';
+export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy', 'mixture', 'density'];
 
 /**
  * How a new row gets its segment. 'nearest-center': the segment whose centre (segment mean in the
@@ -27,8 +29,10 @@ export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'k
  * 'highest-posterior': the mixture component with the highest posterior probability, from the
  * stored weights, means and inverse Cholesky factors (segments/mixture-rule.ts; metric 'mahalanobis').
  */
-export type AssignmentRule = 'nearest-center' | 'nearest-medoid' | 'highest-posterior';
-export const ASSIGNMENT_RULES: readonly AssignmentRule[] = ['nearest-center', 'nearest-medoid', 'highest-posterior'];
+export type AssignmentRule = 'nearest-center' | 'nearest-medoid' | 'highest-posterior' | 'nearest-dense-row';
+export const ASSIGNMENT_RULES: readonly AssignmentRule[] = ['nearest-center', 'nearest-medoid', 'highest-posterior', 'nearest-dense-row'];
+// 'nearest-dense-row' (density segments, docs/dense-row-rule.md): the segment of the nearest stored
+// training row in a segment, or noise (segment 0) beyond that row's core distance. See dense-rows.ts.
 
 /** Metrics a definition can assign with (and write as portable SQL). */
 export type DefinitionMetric = 'euclidean' | 'sqeuclidean' | 'manhattan';
@@ -96,7 +100,11 @@ export interface SegmentDefinition {
     readonly reproducedRows: number;
     /** 'fit': segments (and sizes) as the method gave them; 'rule': relabelled by the stored rule, on request. */
     readonly labels: TrainingLabels;
+    /** Density definitions: training rows in no segment (noise); the segment sizes plus this make `rows`. */
+    readonly noiseRows?: number;
   };
+  /** nearest-dense-row only: every training row in a segment, its core distance and segment. */
+  readonly denseRows?: DenseRows;
   /** Optional: the training rows' feature distributions and far share, for drift (absent in older files). */
   readonly trainingDistributions?: TrainingDistributions;
   /** Optional evidence for the choice of k (keys sorted), as the caller gives it. */

@@ -2,6 +2,9 @@
 // the analyst's names, and every way to look at it or hand it on. k-means, k-medoids and a cut of
 // a hierarchy all give this one kind of object.
 import { saveText } from '../core/save-file';
+import { takeRows } from '../core/matrix';
+import type { DensitySegmentsResult } from '../methods/density';
+import { buildDensityDefinition } from '../segments/definition-dense-build';
 import { KinsortError } from '../core/errors';
 import { checkInteger, checkOptions } from '../core/options';
 import type { Seed } from '../random';
@@ -34,17 +37,25 @@ function ruleWords(rule: RuleAgreement['rule']): string {
   return rule === 'nearest-center' ? 'nearest-centre' : rule;
 }
 
+/** The noise card's title and text (density segments). */
+export const NOISE_TITLE = 'Noise: in no segment';
+const NOISE_TEXT =
+  'Rows in no dense region at the chosen minSize / minSamples. They are kept and shown, not dropped; their outlier scores are on the fit.';
+
 export interface SegmentName {
   title?: string;
   text?: string;
 }
 
+/** How a segmentation was made: a definition method, or density segments (which mark noise). */
+export type SegmentationMethod = DefinitionMethodName | 'density';
+
 /** What a fitting step hands to a Segmentation. */
 export interface SegmentationParts {
-  method: DefinitionMethodName;
+  method: SegmentationMethod;
   /** The options that reproduce the fit (seed, restarts, k, metric, linkage …), for the definition. */
   options: Record<string, unknown>;
-  /** 0..k-1 per prepared row. */
+  /** 0..k-1 per prepared row; -1 (noise, in no segment) only from density segments. */
   assignment: Int32Array;
   /** One vector per segment in the prepared space (means, or the medoids' rows). */
   centers: number[][];
@@ -68,16 +79,18 @@ export interface SegmentationParts {
 const NAME_OPTIONS = ['title', 'text'];
 
 export class Segmentation {
-  readonly method: DefinitionMethodName;
+  readonly method: SegmentationMethod;
   readonly k: number;
   /**
    * Segment of every prepared row, 0..k-1: the functional core's numbering (index into `centers`,
    * `sizes`). Everything a person reads (names, cards, profiles, members, definitions, `segments`)
-   * numbers segments 1..k.
+   * numbers segments 1..k. Density segments mark rows in no segment (noise) with -1.
    */
   readonly assignment: Int32Array;
-  /** Segment of every prepared row, 1..k, as names, cards, members and definitions number them. */
+  /** Segment of every prepared row, 1..k, as names, cards, members and definitions number them; 0 = noise. */
   readonly segments: Int32Array;
+  /** Rows in no segment (noise; density segments only, else 0). Never counted in `sizes`. */
+  readonly noiseCount: number;
   /** Ids of the prepared rows, in the same order as `assignment`. */
   readonly ids: readonly string[];
   /** Rows per segment, segment 1 first. */
@@ -122,8 +135,13 @@ export class Segmentation {
     this.dissimilarityUsed = parts.dissimilarity;
     this.mixture = parts.mixture;
     const sizes = new Array<number>(this.k).fill(0);
-    for (let i = 0; i < parts.assignment.length; i++) sizes[parts.assignment[i]]++;
+    let noiseCount = 0;
+    for (let i = 0; i < parts.assignment.length; i++) {
+      if (parts.assignment[i] < 0) noiseCount++;
+      else sizes[parts.assignment[i]]++;
+    }
     this.sizes = sizes;
+    this.noiseCount = noiseCount;
     this.labels = parts.labels ?? 'fit';
     const notes = [...(parts.notes ?? [])];
     const agreement = this.ruleAgreement();
@@ -153,6 +171,8 @@ export class Segmentation {
    * gives the segment this segmentation gives them; null when no definition can be built (Gower).
    */
   ruleAgreement(): RuleAgreement | null {
+    // Density segments have no nearest-centre rule (they can leave rows in no segment).
+    if (this.method === 'density') return null;
     if (this.agreementCache === undefined) {
       const metric = this.ruleMetric();
       this.agreementCache = this.mixture
@@ -177,6 +197,12 @@ export class Segmentation {
    */
   relabelByRule(): Segmentation {
     const agreement = this.ruleAgreement();
+    if (this.method === 'density') {
+      throw new KinsortError(
+        'relabelByRule: density segments have no nearest-centre rule to relabel by; their segments and noise are the fit itself.',
+        'not-supported',
+      );
+    }
     if (agreement === null) {
       throw new KinsortError(
         `relabelByRule: this k-medoids segmentation uses the "${String(this.options.metric)}" metric, which a definition cannot carry, so there is no scoring rule to relabel by.`,
@@ -251,7 +277,7 @@ export class Segmentation {
     return out;
   }
 
-  /** Segment number (1..k) of the row with this id. */
+  /** Segment number (1..k) of the row with this id; 0 when the row is noise (in no segment, density segments). */
   segmentOf(id: string): number {
     this.indexById ??= new Map(this.ids.map((v, i) => [v, i]));
     const i = this.indexById.get(String(id));
@@ -264,7 +290,14 @@ export class Segmentation {
     return this.assignment[i] + 1;
   }
 
-  /** Ids of the rows in segment `segment` (1..k). */
+  /** Ids of the rows in no segment (noise; density segments only, else empty). */
+  noiseMembers(): string[] {
+    const out: string[] = [];
+    for (let i = 0; i < this.assignment.length; i++) if (this.assignment[i] < 0) out.push(this.ids[i]);
+    return out;
+  }
+
+  /** Ids of the rows in segment `segment` (1..k); noise rows are in none (see noiseMembers()). */
   members(segment: number): string[] {
     this.checkSegment(segment, 'members');
     const out: string[] = [];
@@ -275,6 +308,7 @@ export class Segmentation {
   /** Silhouettes of every row (Rousseeuw 1987), in the space the segmentation was fitted in. */
   silhouette(): SilhouetteResult & Showable {
     this.requireTwo('silhouette');
+    if (this.noiseCount > 0) return this.silhouetteWithoutNoise();
     this.silhouetteCache ??= this.dissimilarityUsed
       ? silhouette(this.dissimilarityUsed, this.assignment)
       : silhouette(this.data.matrix, this.assignment);
@@ -288,6 +322,13 @@ export class Segmentation {
    */
   stability(options: { resamples?: number; seed?: Seed; onProgress?: ProgressCallback } = {}): StabilityResult {
     const opts = checkOptions(options, ['resamples', 'seed', 'onProgress'], 'stability');
+    if (this.method === 'density') {
+      throw new KinsortError(
+        'stability: bootstrap stability reruns k-means or k-medoids; density segments are not rerun on resamples. ' +
+          'Compare density fits with other minSize / minSamples through compare(), or read the outlier scores on fit.',
+        'not-supported',
+      );
+    }
     if (this.method === 'hierarchy') {
       throw new KinsortError(
         'stability: bootstrap stability reruns k-means or k-medoids; for a hierarchy cut compare cuts of resampled trees, or fit k-means with the same k and assess that.',
@@ -319,17 +360,22 @@ export class Segmentation {
     }
     const stab = this.stabilityCache;
     const agreement = this.ruleAgreement();
+    // Noise rows get a profile of their own after the segments' (number k + 1, marked noise), so
+    // cards and write-ups show them, never drop them.
+    const names: Record<number, SegmentName> = this.names();
+    if (this.noiseCount > 0) names[this.k + 1] = { title: NOISE_TITLE, text: NOISE_TEXT };
     const profiles = profileSegments({
-      assignment: this.assignment,
+      assignment: this.noiseCount > 0 ? Int32Array.from(this.assignment, (a) => (a < 0 ? this.k : a)) : this.assignment,
       features: this.data.matrix,
       ids: this.ids,
       used,
       keep,
       medoids: this.medoids,
       stability: stab ? { jaccard: stab.jaccard, reading: stab.reading } : undefined,
-      names: this.names(),
+      names,
       top: opts.top,
     });
+    if (this.noiseCount > 0) return profiles.map((p) => (p.index === this.k ? { ...p, noise: true } : p));
     if (agreement === null) return profiles;
     const rule = ruleWords(agreement.rule);
     return profiles.map((p) => ({ ...p, rule: { name: rule, reproduced: agreement.perSegment[p.index], size: p.size } }));
@@ -346,6 +392,7 @@ export class Segmentation {
     const opts = checkOptions(options, ['loadings', 'title'], 'projection');
     this.projectionCache ??= project(this.data.matrix, { components: 2 });
     return projectionView(this.projectionCache, this.assignment, {
+      noise: this.noiseCount > 0,
       ids: this.ids,
       centers: this.centers,
       names: this.titles(),
@@ -398,17 +445,25 @@ export class Segmentation {
    * one readable rule per leaf, their agreement with the segments, apply() and toSql().
    */
   rules(options: SegmentRulesOptions = {}): SegmentRules & Showable & { drawTree(): View } {
+    if (this.noiseCount > 0) {
+      // Noise is one more class for the tree (number k + 1, named so): its rules say who is in no segment.
+      const titles = { ...this.titles(), [this.k + 1]: NOISE_TITLE };
+      const assignment = Int32Array.from(this.assignment, (a) => (a < 0 ? this.k : a));
+      return segmentRules(this.data, assignment, this.k + 1, titles, options);
+    }
     return segmentRules(this.data, this.assignment, this.k, this.titles(), options);
   }
 
   /** Everything needed to reproduce and apply this segmentation to new rows. */
   definition(options: { note?: string } = {}): DefinitionHandle {
     const opts = checkOptions(options, ['note'], 'definition');
+    if (this.method === 'density') return definitionHandle(this.densityDefinition(opts.note));
+    const method = this.method;
     const names = this.names();
     const def = buildDefinition(
       {
         preparation: this.data.preparation,
-        method: { name: this.method, options: this.options },
+        method: { name: method, options: this.options },
         centers: this.method === 'kmedoids' ? undefined : this.centers,
         mixture: this.mixture ? { weights: this.mixture.weights, covariances: this.mixture.covariances } : undefined,
         medoids: this.medoids ? [...this.medoids] : undefined,
@@ -452,7 +507,7 @@ export class Segmentation {
     };
   }
 
-  /** One sentence saying how this segmentation was made. */
+  /** @internal One sentence saying how this segmentation was made (the write-up and cards use it). */
   describeMethod(): string {
     const o = this.options;
     const rows = `${this.ids.length} rows, ${this.data.featureNames.length} prepared features (${this.data.preparation.scale} scaling)`;
@@ -467,6 +522,11 @@ export class Segmentation {
       case 'mixture':
         how = `Gaussian mixture (EM) with k = ${this.k}, ${o.covariance ?? 'full'} covariance, ${o.restarts ?? 1} restart(s), seed ${o.seed ?? 0}, on ${rows}.`;
         break;
+      case 'density':
+        how =
+          `Density segments (HDBSCAN, minSize ${o.minSize}, minSamples ${o.minSamples}, ${o.metric ?? 'euclidean'}): ${this.k} segments ` +
+          `and ${this.noiseCount.toLocaleString('en-US')} rows in no segment (noise), on ${rows}.`;
+        return how;
       default:
         how = `Agglomerative hierarchy (${o.linkage} linkage, ${o.metric ?? 'euclidean'}) cut into ${this.k} segments, on ${rows}.`;
     }
@@ -486,6 +546,35 @@ export class Segmentation {
     if (this.silhouetteCache) out.averageSilhouette = this.silhouetteCache.average;
     if (this.stabilityCache) out.stabilityJaccard = [...this.stabilityCache.jaccard];
     return out;
+  }
+
+  /** The nearest-dense-row definition: every training row in a segment stored with its core distance. */
+  private densityDefinition(note: string | undefined) {
+    const fit = this.fit as DensitySegmentsResult;
+    const names = this.names();
+    return buildDensityDefinition({
+      preparation: this.data.preparation,
+      options: this.options,
+      metric: fit.metric,
+      training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment, coreDistances: fit.coreDistances },
+      centers: this.centers.map((c) => [...c]),
+      segments: this.sizes.map((_, s) => ({ ...names[s + 1] })),
+      featureNames: this.data.featureNames,
+      evidence: { ...this.evidence(), noiseRows: this.noiseCount },
+      note,
+    });
+  }
+
+  /** Silhouettes of the rows in a segment only: noise is no segment, so it has no silhouette. Stated on the result. */
+  private silhouetteWithoutNoise(): SilhouetteResult & Showable & { noiseLeftOut: number } {
+    const kept: number[] = [];
+    for (let i = 0; i < this.assignment.length; i++) if (this.assignment[i] >= 0) kept.push(i);
+    const assignment = Int32Array.from(kept, (i) => this.assignment[i]);
+    const ids = kept.map((i) => this.ids[i]);
+    this.silhouetteCache ??= silhouette(takeRows(this.data.matrix, kept), assignment);
+    const result = this.silhouetteCache;
+    const noiseLeftOut = this.noiseCount;
+    return showable({ ...result, noiseLeftOut }, () => silhouetteView(result, assignment, { names: this.titles(), ids }));
   }
 
   private titles(): Record<number, string> {

@@ -5,6 +5,7 @@ import { checkOptions } from '../core/options';
 import { Matrix } from '../core/matrix';
 import { axisStyle, baseLayout, everyNth, kindOf, namesFrom, plotText, refuse, svgLegend, svgLegendLines } from './common';
 import { INK, segmentColour, textOn } from './palette';
+import { NOISE_INK } from './cards';
 import { extent, frame, pathData, svgDocument, svgEl } from './svg';
 import { makeView, View } from './view';
 
@@ -31,6 +32,11 @@ export interface ProjectionViewOptions {
   title?: string;
   /** Rows whose segment is uncertain (1 = uncertain; e.g. a mixture's top membership below `below`), drawn as open rings. */
   uncertain?: { readonly flags: ArrayLike<number>; readonly below: number };
+  /**
+   * Rows whose segment is -1 are noise (density segments): drawn as neutral rings, counted in a
+   * note, never coloured as a segment. Without this option -1 is an ordinary label.
+   */
+  noise?: boolean;
 }
 
 const MAX_STATIC_POINTS = 4000;
@@ -50,12 +56,29 @@ const pct = (r: number | undefined): string => (r === undefined || !Number.isFin
 
 export function projectionView(projection: ProjectionLike, assignment: ArrayLike<number>, options: ProjectionViewOptions = {}): View {
   const where = 'projectionView';
-  const opts = checkOptions(options, ['ids', 'centers', 'hover', 'loadings', 'names', 'title', 'uncertain'], where);
+  const opts = checkOptions(options, ['ids', 'centers', 'hover', 'loadings', 'names', 'title', 'uncertain', 'noise'], where);
   const p = requireProjection(projection, where);
   const { scores, loadings } = p;
   if (scores.cols < 2) refuse(where, `the projection has ${scores.cols} component; ask project() for { components: 2 } or more.`);
   const n = scores.rows;
-  const { labels, k } = compactLabels(assignment, n, where, 'the projected rows');
+  // Noise rows borrow a real label for the compaction only; `isNoise` keeps them out of every segment.
+  const isNoise = new Uint8Array(n);
+  let noiseRows = 0;
+  let stand = 0;
+  if (opts.noise && assignment.length === n) {
+    for (let i = 0; i < n; i++) if (assignment[i] !== -1) stand = assignment[i];
+    for (let i = 0; i < n; i++) {
+      if (assignment[i] !== -1) continue;
+      isNoise[i] = 1;
+      noiseRows++;
+    }
+  }
+  const { labels, k } = compactLabels(
+    noiseRows ? Array.from(assignment, (a) => (a === -1 ? stand : a)) : assignment,
+    n,
+    where,
+    'the projected rows',
+  );
   if (opts.ids && opts.ids.length !== n) refuse(where, `${opts.ids.length} ids for ${n} rows.`);
   const ids = opts.ids ?? scores.rowLabels;
   const names = namesFrom(k, opts.names);
@@ -83,6 +106,7 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   } else {
     const count = new Float64Array(k);
     for (let i = 0; i < n; i++) {
+      if (isNoise[i]) continue;
       cx[labels[i]] += x[i];
       cy[labels[i]] += y[i];
       count[labels[i]]++;
@@ -158,6 +182,10 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const stride = Math.max(1, Math.ceil(n / MAX_STATIC_POINTS));
   for (let i = 0; i < n; i += stride) {
     const r = n > 1500 ? 2 : 3.2;
+    if (isNoise[i]) {
+      body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r, fill: 'none', stroke: NOISE_INK, 'stroke-width': 1 }));
+      continue;
+    }
     body.push(
       unsure(i)
         ? svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: r + 0.8, fill: 'none', stroke: segmentColour(labels[i]), 'stroke-width': 1.2 })
@@ -235,6 +263,8 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const still = svgDocument(width, height, title, body);
   const notes = stride > 1 ? [`${n} rows: the static picture draws ${everyNth(stride)} row; the live chart draws all.`] : [];
   if (unlabelled.length) notes.push(`Short arrows, unlabelled (little weight on these two components): ${unlabelled.join(', ')}.`);
+  if (noiseRows)
+    notes.push(`${noiseRows.toLocaleString('en-US')} of ${n.toLocaleString('en-US')} rows are in no segment (noise): grey rings.`);
 
   // Live chart: one trace per segment so the legend toggles segments.
   const hoverCols = Object.entries(opts.hover ?? {});
@@ -246,7 +276,7 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const traceType = n > 5000 ? 'scattergl' : 'scatter';
   for (let s = 0; s < k; s++) {
     const rows: number[] = [];
-    for (let i = 0; i < n; i++) if (labels[i] === s) rows.push(i);
+    for (let i = 0; i < n; i++) if (labels[i] === s && !isNoise[i]) rows.push(i);
     data.push({
       type: traceType,
       mode: 'markers',
@@ -268,6 +298,20 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
         }
         return parts.join('<br>');
       }),
+      hovertemplate: '%{text}<extra></extra>',
+    });
+  }
+  if (noiseRows) {
+    const rows: number[] = [];
+    for (let i = 0; i < n; i++) if (isNoise[i]) rows.push(i);
+    data.push({
+      type: traceType,
+      mode: 'markers',
+      name: 'noise (no segment)',
+      x: rows.map((i) => x[i]),
+      y: rows.map((i) => y[i]),
+      marker: { color: 'rgba(0,0,0,0)', size: n > 1500 ? 5 : 7, line: { color: NOISE_INK, width: 1 } },
+      text: rows.map((i) => `<b>${plotText(ids?.[i] ?? `row ${i + 1}`)}</b><br>noise: in no segment`),
       hovertemplate: '%{text}<extra></extra>',
     });
   }
