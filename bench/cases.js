@@ -6,6 +6,7 @@ const K = 8;
 const RESTARTS = 5;
 const SEED = 20261202;
 const PCA_COMPONENTS = 5;
+const MIXTURE_RESTARTS = 3;
 
 /** @typedef {import('./data').Kinsort} Kinsort */
 /** @typedef {ReturnType<Kinsort['createMatrix']>} Matrix */
@@ -143,6 +144,26 @@ const MAIN_CASES = [
         params: { kFrom: 2, kTo: 10, restarts: 10, silhouetteRows: 10_000, seed: SEED },
         quickParams: { kFrom: 2, kTo: 4, restarts: 10, silhouetteRows: 10_000, seed: SEED },
         ratioMax: 0.6,
+      },
+    ],
+  },
+  {
+    // Gaussian mixture by EM, full covariance: kinsort and scikit-learn start the same way
+    // (k-means++ centres, each row to its nearest), run the same restarts and stop on the same
+    // rule (the mean per-row log-likelihood gains at most 1e-3, scikit-learn's default tol).
+    id: 'mixture',
+    title: `Gaussian mixture, k = ${K}, full covariance, ${MIXTURE_RESTARTS} restarts`,
+    full: { n: 100_000, d: 10 },
+    quick: { n: 1_000, d: 10 },
+    kinsortFunction: 'gaussianMixture',
+    kinsort: (ks, m) =>
+      ks.gaussianMixture(m, { k: K, covariance: 'full', seed: SEED, restarts: MIXTURE_RESTARTS, start: 'k-means++', tolerance: 1e-3 }),
+    peers: [
+      {
+        tool: `scikit-learn GaussianMixture full, init k-means++, n_init=${MIXTURE_RESTARTS}`,
+        python: 'mixture',
+        params: { k: K, restarts: MIXTURE_RESTARTS, seed: SEED, tolerance: 1e-3 },
+        ratioMax: 1.0,
       },
     ],
   },

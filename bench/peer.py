@@ -91,6 +91,11 @@ def computation(case, X, labels, params):
     if case in ("ward", "average"):
         from scipy.cluster.hierarchy import linkage
         return lambda: linkage(X, method=case, metric="euclidean")
+    if case == "mixture":
+        from sklearn.mixture import GaussianMixture
+        model = lambda: GaussianMixture(n_components=params["k"], covariance_type="full", n_init=params["restarts"],
+                                        init_params="k-means++", tol=params["tolerance"], random_state=params["seed"])
+        return lambda: model().fit(X)
     if case == "pca":
         from sklearn.decomposition import PCA
         return lambda: PCA(n_components=params["components"], svd_solver="full").fit_transform(X)

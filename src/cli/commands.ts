@@ -14,7 +14,8 @@ import { study } from '../study/study';
 import type { Segmentation } from '../study/segmentation';
 import type { ProgressCallback } from '../core/progress';
 import { loadDefinition } from '../study/definition-handle';
-import { DEFINITION_METHODS, DEFINITION_METRICS } from '../segments/definition-types';
+import { DEFINITION_METRICS } from '../segments/definition-types';
+import { COVARIANCE_SHAPES } from '../methods/mixture';
 import { DIALECT_NAMES } from '../engines/dialect';
 import { exactPositionals, integerOption, listOption, optionalString, parseCommandArgs, requireString } from './args';
 import { CSV_TARGETS, scoredCsv } from './csv-out';
@@ -79,6 +80,7 @@ const SUMMARY_SILHOUETTE_ROWS = 10_000;
 const OBJECTIVE_WORDS: ReadonlyMap<string, string> = new Map([
   ['withinSS', 'within-segment sum of squares'],
   ['cost', 'total distance to the medoids'],
+  ['bic', 'BIC (lower is better)'],
 ]);
 
 /** A choice given on the command line: the error names the command and the flag the user typed. */
@@ -123,19 +125,22 @@ const FIT_OPTIONS = {
   log: { type: 'string' },
   seed: { type: 'string' },
   restarts: { type: 'string' },
+  covariance: { type: 'string' },
   note: { type: 'string' },
   out: { type: 'string' },
   silhouette: { type: 'string' },
 } as const;
 
 const SILHOUETTE_CHOICES = ['sample', 'full'] as const;
+/** The methods `kinsort fit` runs (each has its branch below). */
+const FIT_METHODS = ['kmeans', 'kmedoids', 'hierarchy', 'mixture'] as const;
 
 export function fitCommand(args: string[], io: Io): number {
   const c = 'fit';
   const { values, positionals } = parseCommandArgs(c, args, FIT_OPTIONS);
   if (values.help) return (io.out(FIT_HELP), 0);
   const [dataPath] = exactPositionals(positionals, ['DATA.csv'], c);
-  const method = flagChoice(c, 'method', requireString(values, 'method', c), DEFINITION_METHODS, 'method');
+  const method = flagChoice(c, 'method', requireString(values, 'method', c), FIT_METHODS, 'method');
   const k = integerOption(requireString(values, 'k', c), 'k', c, 1)!;
   const out = requireString(values, 'out', c);
   const id = requireString(values, 'id', c);
@@ -149,9 +154,17 @@ export function fitCommand(args: string[], io: Io): number {
   if (values.linkage !== undefined && method !== 'hierarchy') {
     throw new KinsortError(`fit: --linkage applies to --method hierarchy only.`, 'bad-option');
   }
-  if (values.restarts !== undefined && method !== 'kmeans') {
-    throw new KinsortError(`fit: --restarts applies to --method kmeans only.`, 'bad-option');
+  if (values.restarts !== undefined && method !== 'kmeans' && method !== 'mixture') {
+    throw new KinsortError(`fit: --restarts applies to --method kmeans and mixture only.`, 'bad-option');
   }
+  if (values.covariance !== undefined && method !== 'mixture') {
+    throw new KinsortError(`fit: --covariance applies to --method mixture only.`, 'bad-option');
+  }
+  if (method === 'mixture' && metric !== undefined) {
+    throw new KinsortError(`fit: a mixture measures Mahalanobis distances to its components; drop --metric.`, 'bad-option');
+  }
+  const covariance =
+    values.covariance === undefined ? undefined : flagChoice(c, 'covariance', values.covariance, COVARIANCE_SHAPES, 'covariance shape');
   const seed = integerOption(optionalString(values, 'seed'), 'seed', c, 0);
   const restarts = integerOption(optionalString(values, 'restarts'), 'restarts', c, 1);
   const silhouetteRows =
@@ -168,7 +181,9 @@ export function fitCommand(args: string[], io: Io): number {
         : refuse('fit: k-means works with euclidean distance only; drop --metric or use --method kmedoids.')
       : method === 'kmedoids'
         ? prepared.kmedoids({ k, metric })
-        : prepared.agglomerate({ method: linkage, metric, onProgress: hierarchyProgress(prepared.data.matrix.rows, io) }).cut({ k });
+        : method === 'mixture'
+          ? prepared.mixture({ k, seed, restarts, covariance })
+          : prepared.agglomerate({ method: linkage, metric, onProgress: hierarchyProgress(prepared.data.matrix.rows, io) }).cut({ k });
   const definition = seg.definition({ note: optionalString(values, 'note') });
   writeFile(out, definition.toJSON(), 'the definition');
 

@@ -29,7 +29,9 @@ function field(value: string): string {
 
 export function scoredCsv(idColumn: string, outcome: AssignmentOutcome, target: CsvTarget = 'spreadsheet'): string {
   const text = target === 'spreadsheet' ? guardFormula : (v: string) => v;
-  const lines = [[text(idColumn), 'segment', 'distance', 'far'].map(field).join(',')];
+  // Mixture definitions also give each row the posterior probability of its segment.
+  const withProbability = outcome.rows.some((r) => r.probability !== undefined);
+  const lines = [[text(idColumn), 'segment', 'distance', 'far', ...(withProbability ? ['probability'] : [])].map(field).join(',')];
   for (const r of outcome.rows) {
     lines.push(
       [
@@ -37,6 +39,7 @@ export function scoredCsv(idColumn: string, outcome: AssignmentOutcome, target: 
         r.segment === null ? '' : String(r.segment),
         r.distance === null ? '' : String(r.distance),
         r.far === null ? '' : r.far ? '1' : '0',
+        ...(withProbability ? [r.probability === null || r.probability === undefined ? '' : String(r.probability)] : []),
       ].join(','),
     );
   }

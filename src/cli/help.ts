@@ -2,7 +2,7 @@
 export const MAIN_HELP = `kinsort — segments from a table of entities
 
 Usage:
-  kinsort fit DATA.csv --id COL --use A,B,C --method kmeans|kmedoids|hierarchy --k N --out DEF.json
+  kinsort fit DATA.csv --id COL --use A,B,C --method kmeans|kmedoids|hierarchy|mixture --k N --out DEF.json
   kinsort assign DEF.json DATA.csv [--out SCORED.csv] [--for spreadsheet|database]
   kinsort sql DEF.json --table NAME [--dialect duckdb|postgres|sqlite|clickhouse] [--id-column COL] [--out QUERY.sql]
 
@@ -20,7 +20,7 @@ seed always give a byte-identical file (no clock is read; put a date in --note i
 Required:
   --id COL            column of unique row ids
   --use A,B,C         feature columns, comma-separated
-  --method M          kmeans | kmedoids | hierarchy
+  --method M          kmeans | kmedoids | hierarchy | mixture (Gaussian, by EM)
   --k N               number of segments
   --out DEF.json      where to write the definition
 
@@ -29,8 +29,9 @@ Options:
   --scale S           zscore (default) | robust | minmax | none
   --missing P         refuse (default) | drop | median
   --log A,B           numeric columns to pass through log1p before scaling
-  --seed N            random seed (default 0; k-means and k-medoids)
-  --restarts N        k-means starts, the best kept (default 10)
+  --seed N            random seed (default 0; k-means, k-medoids and mixtures)
+  --restarts N        k-means starts, the best kept (default 10); mixture starts (default 5)
+  --covariance C      mixture: full (default) | diagonal | spherical | tied
   --linkage L         hierarchy: ward (default) | single | complete | average | weighted | centroid | median
   --metric D          euclidean (default) | manhattan | sqeuclidean — k-medoids and hierarchy
   --note TEXT         a note stored in the definition
@@ -38,7 +39,8 @@ Options:
                       seeded sample of 10,000 rows, as compareK does, and says so | full: all rows
                       (n² distances: minutes at 200,000 rows)
 
-A hierarchy cut assigns new rows to the nearest segment mean in the prepared space.
+A hierarchy cut assigns new rows to the nearest segment mean in the prepared space; a mixture
+to the component with the highest posterior probability.
 Prints the segment sizes, the within-segment sum of squares (k-means, hierarchy) or the
 total distance to the medoids (k-medoids), and the average silhouette.
 `;

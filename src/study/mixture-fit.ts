@@ -36,7 +36,7 @@ export function fitMixture(data: PreparedData, options: StudyMixtureOptions, onP
   const fit = gaussianMixture(data.matrix, { ...core, restarts: core.restarts ?? STUDY_MIXTURE_RESTARTS, onProgress });
   const notes: string[] = [];
   if (!fit.converged) notes.push(`EM stopped at maxIterations (${fit.iterations}) before the log-likelihood settled; raise maxIterations.`);
-  const options_: Record<string, unknown> = {
+  const stored: Record<string, unknown> = {
     k: fit.k,
     covariance: fit.covariance,
     seed: core.seed ?? 0,
@@ -44,11 +44,11 @@ export function fitMixture(data: PreparedData, options: StudyMixtureOptions, onP
     start: fit.start,
     varianceFloor: fit.varianceFloor,
   };
-  if (core.maxIterations !== undefined) options_.maxIterations = core.maxIterations;
-  if (core.tolerance !== undefined) options_.tolerance = core.tolerance;
+  if (core.maxIterations !== undefined) stored.maxIterations = core.maxIterations;
+  if (core.tolerance !== undefined) stored.tolerance = core.tolerance;
   return new Segmentation({
     method: 'mixture',
-    options: options_,
+    options: stored,
     assignment: fit.assignment,
     centers: fit.means,
     fit,

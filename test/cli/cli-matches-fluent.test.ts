@@ -70,4 +70,10 @@ describe('kinsort fit writes what the fluent layer writes', () => {
       prepared().agglomerate({ method: 'average' }).cut({ k: 4 }).definition().toJSON(),
     );
   });
+
+  it('a Gaussian mixture', () => {
+    expect(fit('--method', 'mixture', '--k', '3', '--covariance', 'diagonal', '--seed', '2', '--restarts', '2')).toBe(
+      prepared().mixture({ k: 3, covariance: 'diagonal', seed: 2, restarts: 2 }).definition().toJSON(),
+    );
+  });
 });

@@ -4,5 +4,6 @@
 set -euo pipefail
 cd "$(dirname "$0")"
 # R first: kmeans_optima.py completes the fixture kmeans_optima.R starts.
+# mixture_sklearn.py reads R datasets::faithful through Rscript and stores the rows it used.
 for f in *.R; do [ -e "$f" ] && Rscript "$f"; done
 for f in *.py; do [ -e "$f" ] && /usr/bin/python3 "$f"; done

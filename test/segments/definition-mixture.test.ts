@@ -5,6 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { loadDefinition, study } from '../../src';
 import { refusal } from '../reliability/helpers';
 import { riders } from './definition-data';
+import { scoredCsv } from '../../src/cli/csv-out';
 
 const records = riders(160, 23);
 const prepared = study(records, {
@@ -44,7 +45,15 @@ describe('mixture definitions', () => {
 
   it('assign gives the training rows their segments, with the posterior probabilities of the fit', () => {
     const out = def.assign(records);
+    // Drift against the training rows works as for the other rules: the same rows drift by nothing.
+    const drift = out.drift();
+    expect(drift.features.length).toBeGreaterThan(0);
+    expect(drift.features.every((f) => f.stabilityIndex < 1e-9)).toBe(true);
+    expect(drift.far.newShare).toBeCloseTo(drift.far.trainingShare!, 12);
     const table = seg.membership();
+    const csv = scoredCsv('rider', out).split('\n');
+    expect(csv[0]).toBe('rider,segment,distance,far,probability');
+    expect(Number(csv[1].split(',')[4])).toBe(out.rows[0].probability);
     expect(out.rows).toHaveLength(records.length);
     for (const [i, row] of out.rows.entries()) {
       expect(row.segment).toBe(seg.segments[i]);

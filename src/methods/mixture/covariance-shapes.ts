@@ -38,25 +38,61 @@ export function estimateCovariances(
 ): void {
   out.fill(0);
   const dd = d * d;
-  const diff = new Float64Array(d);
+  const diff0 = new Float64Array(d);
+  const diff1 = new Float64Array(d);
   const lowerOnly = shape === 'full' || shape === 'tied';
+  // The lower triangle packed row by row, two rows of data at a time (each product pair added together).
+  const packed = new Float64Array(lowerOnly ? (d * (d + 1)) / 2 : d);
   for (let c = 0; c < k; c++) {
     const at = c * dd;
     const m = c * d;
+    packed.fill(0);
+    let pending = -1; // a row with weight waiting for a partner
+    let pendingR = 0;
+    const take = (i: number, into: Float64Array) => {
+      const x = i * d;
+      for (let j = 0; j < d; j++) into[j] = data[x + j] - means[m + j];
+    };
     for (let i = 0; i < n; i++) {
       const r = resp[i * k + c];
       if (r === 0) continue;
-      const x = i * d;
-      for (let j = 0; j < d; j++) diff[j] = data[x + j] - means[m + j];
+      if (pending < 0) {
+        pending = i;
+        pendingR = r;
+        continue;
+      }
+      take(pending, diff0);
+      take(i, diff1);
+      pending = -1;
+      const r0 = pendingR;
       if (lowerOnly) {
+        let p = 0;
         for (let a = 0; a < d; a++) {
-          const ra = r * diff[a];
-          const row = at + a * d;
-          for (let b = 0; b <= a; b++) out[row + b] += ra * diff[b];
+          const u0 = r0 * diff0[a];
+          const u1 = r * diff1[a];
+          for (let b = 0; b <= a; b++) packed[p++] += u0 * diff0[b] + u1 * diff1[b];
         }
       } else {
-        for (let a = 0; a < d; a++) out[at + a * d + a] += r * diff[a] * diff[a];
+        for (let a = 0; a < d; a++) packed[a] += r0 * diff0[a] * diff0[a] + r * diff1[a] * diff1[a];
       }
+    }
+    if (pending >= 0) {
+      take(pending, diff0);
+      if (lowerOnly) {
+        let p = 0;
+        for (let a = 0; a < d; a++) {
+          const u0 = pendingR * diff0[a];
+          for (let b = 0; b <= a; b++) packed[p++] += u0 * diff0[b];
+        }
+      } else {
+        for (let a = 0; a < d; a++) packed[a] += pendingR * diff0[a] * diff0[a];
+      }
+    }
+    if (lowerOnly) {
+      let p = 0;
+      for (let a = 0; a < d; a++) for (let b = 0; b <= a; b++) out[at + a * d + b] = packed[p++];
+    } else {
+      for (let a = 0; a < d; a++) out[at + a * d + a] = packed[a];
     }
   }
   if (shape === 'tied') {

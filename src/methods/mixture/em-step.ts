@@ -17,10 +17,13 @@ export function expectation(logp: Float64Array, n: number, k: number): number {
     let top = -Infinity;
     for (let c = 0; c < k; c++) if (logp[at + c] > top) top = logp[at + c];
     let s = 0;
-    for (let c = 0; c < k; c++) s += Math.exp(logp[at + c] - top);
-    const norm = top + Math.log(s);
-    total += norm;
-    for (let c = 0; c < k; c++) logp[at + c] = Math.exp(logp[at + c] - norm);
+    for (let c = 0; c < k; c++) {
+      const e = Math.exp(logp[at + c] - top);
+      logp[at + c] = e;
+      s += e;
+    }
+    total += top + Math.log(s);
+    for (let c = 0; c < k; c++) logp[at + c] /= s;
   }
   return total;
 }
