@@ -63,7 +63,7 @@ describe('prepared.density', () => {
     const rules = seg.rules();
     expect(JSON.stringify(rules)).toMatch(/Noise: in no segment/);
     expect(() => seg.stability()).toThrow(/density segments are not rerun/);
-    expect(() => seg.definition().toSql({ table: 'stations', dialect: 'duckdb' })).toThrow(/in memory only for now/);
+    expect(seg.definition().toSql({ table: 'stations', dialect: 'duckdb' })).toMatch(/nearest-dense-row: \d+ stored rows/);
     expect(() => seg.relabelByRule()).toThrow(/no nearest-centre rule/);
     expect(() => prepared.density({ minSize: 10, metric: 'gower' })).toThrow(/gower/);
     expect(() => prepared.density({ minSize: 10, minSample: 3 } as never)).toThrow(/minSamples/);
