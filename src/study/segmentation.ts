@@ -383,7 +383,10 @@ export class Segmentation {
     });
   }
 
-  /** Agreement with another segmentation of the same rows: ARI, NMI and the cross-table. */
+  /**
+   * Agreement with another segmentation of the same rows: ARI, NMI and the cross-table. Noise
+   * (density segments, label -1) counts as one more group of its own, so noise rows are compared too.
+   */
   compare(other: Segmentation | ArrayLike<number>): {
     adjustedRandIndex: number;
     normalizedMutualInfo: number;

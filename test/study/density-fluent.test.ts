@@ -53,6 +53,10 @@ describe('prepared.density', () => {
     expect(cards).toContain('and of the rows in none (noise)');
     const projection = seg.projection();
     expect(projection.html()).toContain('noise (no segment)');
+    const markdown = seg.writeUp().markdown();
+    expect(markdown).toContain('## Noise: in no segment');
+    expect(markdown).not.toContain(`## Segment ${seg.k + 1}`);
+    expect(markdown).toContain(`(${seg.noiseCount} of them in no segment: noise)`);
     expect(projection.html()).toContain(`${seg.noiseCount} of ${seg.ids.length} rows are in no segment (noise)`);
   });
 
