@@ -9,9 +9,13 @@ import {
   DEFINITION_METHODS,
   DEFINITION_METRICS,
   DefinitionSegment,
+  MIXTURE_METRIC,
   SegmentDefinition,
+  StoredMetric,
   TRAINING_LABELS,
 } from './definition-types';
+import { upgradePreparation } from '../prepare/upgrade';
+import { checkMixtureSegment, checkWeightSum } from './definition-validate-mixture';
 import { kinsortVersion } from './definition-version';
 import { checkName, checkStoredPreparation, onlyKeys } from './definition-validate-preparation';
 import { checkTrainingDistributions } from './definition-validate-distributions';
@@ -73,7 +77,7 @@ const TOP_KEYS = [
   'evidence',
   'denseRows',
 ];
-const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
+const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond', 'weight', 'whitening'];
 const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels', 'noiseRows'];
 
 const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
@@ -117,6 +121,21 @@ function numbers(v: unknown, length: number, where: string): number[] {
 }
 
 /** Parse text (or take an object) and validate it as a definition, rebuilt in the file's key order. */
+/**
+ * The oldest format read. Format 2 differs from 3 only in spelling each prepared column's
+ * subtracted value `centre` (its preparation is version 2); it is translated on reading.
+ */
+export const OLDEST_READ_FORMAT = 2;
+
+/** The stored preparation as version 3: a format-2 file must hold version 2, which is upgraded. */
+function storedPreparation(p: Record<string, unknown>, format: number, where: string): Record<string, unknown> {
+  if (format !== 2) return p;
+  if (p.version !== 2) {
+    fail(`${where}: preparation`, `key "version" is ${JSON.stringify(p.version)}; a format-2 definition holds preparation version 2.`);
+  }
+  return upgradePreparation(p);
+}
+
 export function readDefinition(source: string | object, where = 'loadDefinition'): SegmentDefinition {
   let raw: unknown = source;
   if (typeof source === 'string') {
@@ -140,7 +159,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       `key "writtenBy" holds a control character (${JSON.stringify(writtenBy).slice(0, 80)}); it names a program version on one line.`,
     );
   if (!Number.isInteger(version) || version < 1) fail(where, `key "formatVersion" is ${version}; expected a whole number ≥ 1.`);
-  if (version < DEFINITION_FORMAT_VERSION) {
+  if (version < OLDEST_READ_FORMAT) {
     fail(
       where,
       `written by ${writtenBy}, format ${version}, which stores no schema (how cells were read: missing markers, ` +
@@ -164,8 +183,15 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   const methodOptions = need(method, 'options', 'object', `${where}: method`);
   noPrototypeKeys(methodOptions, `${where}: method.options`);
   const rule = oneOf(need(d, 'rule', 'string', where), ASSIGNMENT_RULES, 'rule', where);
-  const metric = oneOf(need(d, 'metric', 'string', where), DEFINITION_METRICS, 'metric', where);
-  const preparation = need(d, 'preparation', 'object', where);
+  // The highest-posterior rule measures Mahalanobis distances, every other rule a distance metric.
+  const mixture = rule === 'highest-posterior';
+  const metric: StoredMetric = oneOf(
+    need(d, 'metric', 'string', where),
+    mixture ? [MIXTURE_METRIC] : DEFINITION_METRICS,
+    'metric',
+    mixture ? `${where} (rule highest-posterior)` : where,
+  );
+  const preparation = storedPreparation(need(d, 'preparation', 'object', where), version, where);
   const features: unknown[] = need(d, 'features', 'array', where);
   features.forEach((f, j) => {
     if (typeof f !== 'string') fail(where, `features: entry ${j + 1} is ${typeName(f)}; expected a feature name.`);
@@ -196,6 +222,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     if (text !== undefined) proseOnly(text, at, 'key "text"');
     if (rule === 'nearest-medoid' && medoidId === undefined)
       fail(at, 'key "medoidId" is missing; the nearest-medoid rule needs the id of each medoid.');
+    if (!mixture && (seg.weight !== undefined || seg.whitening !== undefined))
+      fail(at, `keys "weight" and "whitening" are set, but the rule is "${rule}"; only highest-posterior definitions hold them.`);
+    const component = mixture ? checkMixtureSegment(seg, dims, at) : undefined;
     return {
       number,
       title,
@@ -204,8 +233,15 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       center: numbers(seg.center, dims, `${at}.center`),
       medoidId,
       farBeyond,
+      weight: component?.weight,
+      whitening: component?.whitening,
     };
   });
+  if (mixture)
+    checkWeightSum(
+      segments.map((s) => s.weight!),
+      where,
+    );
   const training = need(d, 'training', 'object', where);
   const at = `${where}: training`;
   onlyKeys(training, TRAINING_KEYS, at);
@@ -248,7 +284,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       : checkTrainingDistributions(d.trainingDistributions, dims, `${where}: trainingDistributions`);
   return {
     kind: DEFINITION_KIND,
-    formatVersion: version,
+    // A format-2 file is held as format 3 once read (its preparation's `centre` keys are now
+    // `center`), and is written back as format 3.
+    formatVersion: DEFINITION_FORMAT_VERSION,
     writtenBy,
     note,
     method: { name: methodName, options: sortedKeys(methodOptions) as { [key: string]: JsonValue } },

@@ -18,9 +18,11 @@ import type { DialectName, SqlDialect } from '../engines/dialect';
 import { dialectNamed } from '../engines/dialects';
 import type { SqlEngine } from '../engines/engine';
 import { checkSqlText, commentText } from '../engines/sql-safety';
-import type { PreparedColumn, Preparation } from '../prepare/types';
+import { tableReference } from '../engines/source';
+import type { Preparation } from '../prepare/types';
 import type { SegmentDefinition } from './definition-types';
-import { levelMatchOf, storedTextRule } from './sql-markers';
+import { beyondColumn, featureColumn, PREFIX, preparedFeatureLayers, renderLayers, type Layer } from './sql-features';
+import { mixtureLayers } from './sql-mixture';
 
 export interface SqlOptions {
   /**
@@ -39,6 +41,11 @@ export interface SqlOptions {
    * `max_query_size`, 262,144 by default). Longer SQL is refused with the reason.
    */
   maxQueryBytes?: number;
+  /**
+   * Columns of the table handed through every layer unchanged, as `kinsort_carry_1`, … after the
+   * id (for summaries over the scored rows in one pass: profileInDatabase).
+   */
+  carry?: readonly string[];
 }
 
 /** The most segments a definition may turn into SQL (the text holds k × features figures). */
@@ -49,34 +56,7 @@ export const SQL_MAX_FIGURES = 400_000;
 /** SQLite: the distance is a chain of one addition per feature, within its depth limit of 1000. */
 export const SQLITE_MAX_FEATURES = 900;
 
-const PREFIX = 'kinsort_';
-const OUTPUT_NAMES = ['segment', 'distance', 'far'];
-
-interface Layer {
-  name: string;
-  columns: string[];
-}
-
-/** The table as quoted parts; anything that is not a plain (qualified) name is refused. */
-function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
-  const parts = typeof table === 'string' ? table.split('.') : Array.isArray(table) ? [...table] : null;
-  const shown = JSON.stringify(table).slice(0, 120);
-  if (parts === null || parts.length < 1 || parts.length > 3 || parts.some((p) => typeof p !== 'string' || p.trim() === '')) {
-    throw new KinsortError(
-      `toSql: the table ${shown} is not a name: give "table", "schema.table" or "catalog.schema.table", or the parts as an array when a part holds a dot.`,
-      'bad-argument',
-    );
-  }
-  for (const p of parts) {
-    if (/[\u0000-\u001f\u007f-\u009f\u2028\u2029]/.test(p) || (typeof table === 'string' && /["`]/.test(p))) {
-      throw new KinsortError(
-        `toSql: the table ${shown} holds quotes or control characters; give the parts of a qualified name unquoted, e.g. { table: ['sales', 'riders'] }, and kinsort quotes each one.`,
-        'bad-argument',
-      );
-    }
-  }
-  return parts.map((p) => dialect.quoteIdentifier(p)).join('.');
-}
+const OUTPUT_NAMES = ['segment', 'distance', 'far', 'probability'];
 
 function chooseDialect(opts: SqlOptions): SqlDialect {
   if (opts.engine !== undefined && opts.dialect !== undefined && opts.engine.dialect !== opts.dialect) {
@@ -88,27 +68,8 @@ function chooseDialect(opts: SqlOptions): SqlDialect {
   return dialectNamed(opts.engine?.dialect ?? opts.dialect ?? 'duckdb');
 }
 
-/**
- * log1p(v) for v ≥ 0, the same way in every engine: with u = 1 + v rounded, v when u = 1, else
- * ln(u) · (v / (u − 1)). The rounding of u cancels (Goldberg 1991, "What every computer scientist
- * should know about floating-point arithmetic", theorem 4): a few units in the last place of
- * Math.log1p, where LN(1 + v) would lose every digit for v near 1e-17.
- */
-function logOnePlus(v: string, u: string, d: SqlDialect): string {
-  return `CASE WHEN ${u} = ${d.doubleLiteral(1)} THEN ${v} ELSE ln(${u}) * (${v} / (${u} - ${d.doubleLiteral(1)})) END`;
-}
-
-/** (v − centre) / spread × weight, in the same order of operations as the JavaScript. */
-function scaled(value: string, col: PreparedColumn, d: SqlDialect): string {
-  let e = value;
-  if (col.centre !== 0) e = d.sub(e, col.centre);
-  if (col.spread !== 1) e = d.div(e, col.spread);
-  if (col.weight !== 1) e = d.mul(e, col.weight);
-  return e;
-}
-
 export function definitionToSql(definition: SegmentDefinition, options: SqlOptions): string {
-  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes'], 'toSql');
+  const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes', 'carry'], 'toSql');
   if (opts.table === undefined || opts.table === null) {
     throw new KinsortError('toSql: give the table to score, e.g. toSql({ table: "riders", dialect: "duckdb" }).', 'bad-argument');
   }
@@ -144,7 +105,9 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       'too-large',
     );
   }
-  if (k > SQL_MAX_SEGMENTS || k * dims > SQL_MAX_FIGURES) {
+  // A mixture also writes each component's lower-triangle factor (d(d + 1)/2 figures).
+  const figures = definition.rule === 'highest-posterior' ? (k * dims * (dims + 3)) / 2 : k * dims;
+  if (k > SQL_MAX_SEGMENTS || figures > SQL_MAX_FIGURES) {
     throw new KinsortError(
       `toSql: ${k} segments × ${dims} features is beyond what kinsort writes as one statement (at most ${SQL_MAX_SEGMENTS} segments and ${SQL_MAX_FIGURES.toLocaleString('en-US')} centre figures).`,
       'too-large',
@@ -172,85 +135,21 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     }
   }
 
-  const { missingMarkers: markers, decimalMark } = storedTextRule(prep);
   const q = (name: string) => d.quoteIdentifier(name);
   const id = q(idColumn);
-  const r = (j: number) => q(`${PREFIX}r_${j + 1}`);
-  const t = (j: number) => q(`${PREFIX}t_${j + 1}`);
-  const v = (j: number) => q(`${PREFIX}v_${j + 1}`);
-  const u = (j: number) => q(`${PREFIX}u_${j + 1}`);
-  const f = (j: number) => q(`${PREFIX}f_${j + 1}`);
+  const f = (j: number) => featureColumn(j, d);
   const dist = (c: number) => q(`${PREFIX}d_${c + 1}`);
   const nearest = q(`${PREFIX}m`);
-  const cols = prep.columns;
-
-  // 1. Each used cell as text, and the same text without leading/trailing ASCII spaces.
-  const cells: Layer = {
-    name: `${PREFIX}cells`,
-    columns: [id, ...cols.map((c, j) => `${d.asText(q(c.name), c.name)} AS ${r(j)}`)],
-  };
-  const trimmed: Layer = {
-    name: `${PREFIX}trimmed`,
-    columns: [id, ...cols.flatMap((_, j) => [r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`])],
-  };
-  // 2. Each used cell as a number (numeric) or a level code (others); NULL where assign refuses.
-  const missing = (j: number) => `${r(j)} IS NULL OR ${t(j)} IN (${['', ...markers].map((m) => d.quoteString(m)).join(', ')})`;
-  const values: Layer = {
-    name: `${PREFIX}values`,
-    columns: [id, ...cols.map((c, j) => `${valueSql(c, j)} AS ${v(j)}`)],
-  };
-  function valueSql(c: PreparedColumn, j: number): string {
-    if (c.type === 'numeric') {
-      const fill = typeof c.fill === 'number' && prep.missing === 'median' ? d.doubleLiteral(c.fill) : 'NULL';
-      return `CASE WHEN ${missing(j)} THEN ${fill} ELSE ${d.numberFromText(t(j), decimalMark)} END`;
-    }
-    if (c.type !== 'categorical' && c.type !== 'binary' && c.type !== 'ordinal') {
-      throw new KinsortError(`toSql: column "${c.name}" has type "${(c as PreparedColumn).type}", which has no SQL form.`, 'not-supported');
-    }
-    const levels = c.levels ?? [];
-    const fillCode = typeof c.fill === 'string' && prep.missing === 'median' ? levels.indexOf(c.fill) : -2;
-    const whenMissing = fillCode >= 0 ? String(fillCode) : c.type === 'categorical' && fillCode === -1 ? '-1' : 'NULL';
-    // Exact text; a true/false binary column matches its two levels in any ASCII letter case.
-    const caseless = levelMatchOf(c) === 'ascii-case';
-    const cell = caseless ? d.lowerAscii(r(j)) : r(j);
-    const whens = levels.map(
-      (l, i) => `WHEN ${cell} = ${d.quoteString(caseless ? l.replace(/[A-Z]/g, (x) => x.toLowerCase()) : l)} THEN ${i}`,
-    );
-    const unseen = c.type === 'categorical' ? '-1' : 'NULL';
-    return `CASE WHEN ${missing(j)} THEN ${whenMissing} ${whens.join(' ')} ELSE ${unseen} END`;
+  const carry = opts.carry ?? [];
+  if (!Array.isArray(carry) || carry.some((c) => typeof c !== 'string' || c === '')) {
+    throw new KinsortError('toSql: carry must be a list of column names.', 'bad-option');
   }
-  // 3. 1 + v for logged columns (NULL for a negative value, which assign refuses under log1p).
-  const logs: Layer = {
-    name: `${PREFIX}logs`,
-    columns: [
-      id,
-      ...cols.flatMap((c, j) =>
-        c.type === 'numeric' && c.log
-          ? [v(j), `CASE WHEN ${v(j)} >= ${d.doubleLiteral(0)} THEN ${d.doubleLiteral(1)} + ${v(j)} END AS ${u(j)}`]
-          : [v(j)],
-      ),
-    ],
-  };
-  // 4. The prepared features, in the definition's feature order.
-  const featureSql: string[] = [];
-  for (const [j, c] of cols.entries()) {
-    if (c.type === 'numeric') featureSql.push(scaled(c.log ? logOnePlus(v(j), u(j), d) : v(j), c, d));
-    else if (c.type === 'categorical') {
-      const one = d.doubleLiteral(c.weight);
-      const zero = d.doubleLiteral(0);
-      (c.levels ?? []).forEach((_, i) =>
-        featureSql.push(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = ${i} THEN ${one} ELSE ${zero} END`),
-      );
-    } else if (c.type === 'binary')
-      featureSql.push(
-        scaled(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = 1 THEN ${d.doubleLiteral(1)} ELSE ${d.doubleLiteral(0)} END`, c, d),
-      );
-    else featureSql.push(scaled(`(${v(j)} + ${d.doubleLiteral(0)})`, c, d));
-  }
-  if (featureSql.length !== dims) {
-    throw new KinsortError(`toSql: the preparation gives ${featureSql.length} features but the definition has ${dims}.`, 'bad-definition');
-  }
-  const features: Layer = { name: `${PREFIX}features`, columns: [id, ...featureSql.map((e, j) => `${e} AS ${f(j)}`)] };
+  carry.forEach((c) => checkSqlText(c, 'a carried column'));
+  const carried = carry.map((_, i) => carriedName(i, d));
+  // The id and the carried columns, as every layer after the first hands them on.
+  const pass = [id, ...carried];
+  // 1–4. The stored preparation as SQL: the prepared features, in the definition's feature order.
+  const prepared = preparedFeatureLayers(prep, d, dims, { first: [id, ...carry.map((c, i) => `${q(c)} AS ${carried[i]}`)], later: pass });
   // 5. Distance to every centre: squared for Euclidean (the same order of additions as assign).
   const euclidean = definition.metric === 'euclidean';
   const bounded = Number.isFinite(d.featureBound);
@@ -260,20 +159,11 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       'not-supported',
     );
   }
-  const big = q(`${PREFIX}beyond`);
-  // Rows with a feature beyond the dialect's bound (PostgreSQL) get NULL distances (see caveats).
-  const guard = (): Layer => ({
-    name: `${PREFIX}guard`,
-    columns: [
-      id,
-      ...featureSql.map((_, j) => f(j)),
-      `CASE WHEN ${featureSql.map((_, j) => `abs(${f(j)}) > ${d.doubleLiteral(d.featureBound)}`).join(' OR ')} THEN 1 ELSE 0 END AS ${big}`,
-    ],
-  });
+  const big = beyondColumn(d);
   const distances: Layer = {
     name: `${PREFIX}distances`,
     columns: [
-      id,
+      ...pass,
       ...targets.map((target, c) => {
         const terms = target.map((x, j) => {
           const diff = `(${f(j)} - ${d.doubleLiteral(x)})`;
@@ -287,7 +177,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   // 6. The least distance (NULL when a feature is missing), then the first segment that reaches it.
   const least: Layer = {
     name: `${PREFIX}nearest`,
-    columns: [id, ...targets.map((_, c) => dist(c)), `${d.least(targets.map((_, c) => dist(c)))} AS ${nearest}`],
+    columns: [...pass, ...targets.map((_, c) => dist(c)), `${d.least(targets.map((_, c) => dist(c)))} AS ${nearest}`],
   };
   const limit = (c: number) => {
     const x = definition.segments[c].farBeyond;
@@ -296,7 +186,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const final: Layer = {
     name: '',
     columns: [
-      id,
+      ...pass,
       `${d.firstEqual(
         definition.segments.map((_, c) => dist(c)),
         nearest,
@@ -306,13 +196,17 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${d.least(definition.segments.map((_, c) => `${dist(c)} - ${limit(c)}`))} > ${d.doubleLiteral(0)} THEN 1 ELSE 0 END AS ${q('far')}`,
     ],
   };
+  const mixture =
+    definition.rule === 'highest-posterior'
+      ? mixtureLayers(definition, d, pass.join(', '), f, bounded ? big : undefined, PREFIX)
+      : undefined;
   // nearest-dense-row: the first stored row at the least distance, then its segment, or noise
   // (segment 0, far 1) when the distance is beyond that row's reach (squared for Euclidean, as compared).
   const which = q(`${PREFIX}w`);
   const picked: Layer = {
     name: `${PREFIX}picked`,
     columns: [
-      id,
+      ...pass,
       nearest,
       `${d.firstEqual(
         targets.map((_, c) => dist(c)),
@@ -327,7 +221,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const denseFinal: Layer = {
     name: '',
     columns: [
-      id,
+      ...pass,
       `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${beyondReach} THEN 0 ELSE ${byStored((dense?.segment ?? []).map(String))} END AS ${q('segment')}`,
       `${euclidean ? `sqrt(${nearest})` : nearest} AS ${q('distance')}`,
       `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${beyondReach} THEN 1 ELSE 0 END AS ${q('far')}`,
@@ -335,7 +229,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   };
   const header = [
     `-- kinsort segment definition, written by ${commentText(definition.writtenBy)} (format ${Number(definition.formatVersion)}): ${k} segments, rule ${commentText(definition.rule)}, metric ${commentText(definition.metric)}.`,
-    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row${dense ? '; 0 for noise' : ''}), distance and far.`,
+    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row${dense ? '; 0 for noise' : ''}), distance and far${mixture ? ', and the posterior probability of the segment' : ''}.`,
     ...(dense ? [`-- Rule nearest-dense-row: ${targets.length} stored rows; a row is noise beyond its nearest stored row's reach.`] : []),
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
@@ -343,8 +237,8 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     header.join('\n') +
     '\n' +
     (dense
-      ? render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least, picked], denseFinal, from, d)
-      : render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d)) +
+      ? renderLayers([...prepared, distances, least, picked], denseFinal, from, d)
+      : renderLayers([...prepared, ...(mixture ? mixture.layers : [distances, least])], mixture ? mixture.final : final, from, d)) +
     '\n';
   const cap = opts.maxQueryBytes ?? d.maxQueryBytes;
   if (cap !== undefined) {
@@ -362,18 +256,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   return sql;
 }
 
-/** The layers as WITH clauses, or (ClickHouse 18) as nested SELECTs. */
-function render(layers: Layer[], final: Layer, from: string, d: SqlDialect): string {
-  const fence = d.layerFence === 'offset' ? '\nOFFSET 0' : '';
-  const select = (l: Layer, source: string, last = false) => `SELECT\n  ${l.columns.join(',\n  ')}\nFROM ${source}${last ? '' : fence}`;
-  if (d.withClause) {
-    const as = d.layerFence === 'materialized' ? 'AS MATERIALIZED' : 'AS';
-    const parts = layers.map(
-      (l, i) => `${d.quoteIdentifier(l.name)} ${as} (\n${select(l, i === 0 ? from : d.quoteIdentifier(layers[i - 1].name))}\n)`,
-    );
-    return `WITH ${parts.join(',\n')}\n${select(final, d.quoteIdentifier(layers[layers.length - 1].name), true)}`;
-  }
-  let source = from;
-  for (const l of layers) source = `(\n${select(l, source)}\n) AS ${d.quoteIdentifier(l.name)}`;
-  return select(final, source, true);
+/** The name a carried column has in the scoring SQL's output: `kinsort_carry_1`, … */
+export function carriedName(index: number, d: SqlDialect): string {
+  return d.quoteIdentifier(`${PREFIX}carry_${index + 1}`);
 }

@@ -30,6 +30,12 @@ import { writeUpPage } from '../views/write-up-page';
 import { segmentRules, type SegmentRulesOptions } from './segment-rules';
 import type { SegmentRules } from '../segments/rules';
 import { HIERARCHY_CALLS, installWrongStepGuards, type AskTheHierarchyInstead } from './wrong-step';
+import { membershipTable, mixtureAgreement, type MembershipTable, type MixtureParts } from './mixture-parts';
+
+/** The rule's name as the notes and cards print it. */
+function ruleWords(rule: RuleAgreement['rule']): string {
+  return rule === 'nearest-center' ? 'nearest-centre' : rule;
+}
 
 /** The noise card's title and text (density segments). */
 export const NOISE_TITLE = 'Noise: in no segment';
@@ -66,6 +72,8 @@ export interface SegmentationParts {
   labels?: TrainingLabels;
   /** What the fitting step decided that a person should know. */
   notes?: string[];
+  /** Gaussian mixtures: weights, covariances and membership probabilities. */
+  mixture?: MixtureParts;
 }
 
 const NAME_OPTIONS = ['title', 'text'];
@@ -97,6 +105,7 @@ export class Segmentation {
   /** Notes on the fit (settling k-means, how far the scoring rule reproduces the segments). */
   readonly notes: readonly string[];
   private readonly options: Record<string, unknown>;
+  private readonly mixture?: MixtureParts;
   private readonly given: Map<number, SegmentName> = new Map();
   private agreementCache?: RuleAgreement | null;
   private readonly dissimilarityUsed?: Dissimilarity;
@@ -124,6 +133,7 @@ export class Segmentation {
     this.ids = parts.data.ids;
     this.options = parts.options;
     this.dissimilarityUsed = parts.dissimilarity;
+    this.mixture = parts.mixture;
     const sizes = new Array<number>(this.k).fill(0);
     let noiseCount = 0;
     for (let i = 0; i < parts.assignment.length; i++) {
@@ -138,7 +148,7 @@ export class Segmentation {
     if (agreement && agreement.reproduced < agreement.rows) {
       const how = this.method === 'hierarchy' ? 'a hierarchy cut' : this.method;
       notes.push(
-        `The definition scores rows by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule, ` +
+        `The definition scores rows by the ${ruleWords(agreement.rule)} rule, ` +
           `which gives ${agreement.reproduced.toLocaleString('en-US')} of the ${agreement.rows.toLocaleString('en-US')} training rows ` +
           `the segment ${how} gave them (${(agreement.rows - agreement.reproduced).toLocaleString('en-US')} differ). The definition records ` +
           `this; call .relabelByRule() for a segmentation whose segments are the rule's own.`,
@@ -165,8 +175,9 @@ export class Segmentation {
     if (this.method === 'density') return null;
     if (this.agreementCache === undefined) {
       const metric = this.ruleMetric();
-      this.agreementCache =
-        metric === null
+      this.agreementCache = this.mixture
+        ? mixtureAgreement(this.data.matrix, this.assignment, this.centers, this.mixture)
+        : metric === null
           ? null
           : ruleAgreement(
               this.data.matrix,
@@ -211,7 +222,9 @@ export class Segmentation {
     }
     const moved = agreement.rows - agreement.reproduced;
     const objective =
-      this.method === 'kmedoids' ? this.objective : { name: 'withinSS', value: withinAround(this.data.matrix, assignment, this.centers) };
+      this.method === 'kmedoids' || this.mixture
+        ? this.objective
+        : { name: 'withinSS', value: withinAround(this.data.matrix, assignment, this.centers) };
     const relabelled = new Segmentation({
       method: this.method,
       options: this.options,
@@ -223,10 +236,14 @@ export class Segmentation {
       data: this.data,
       dissimilarity: this.dissimilarityUsed,
       labels: 'rule',
+      mixture: this.mixture,
       notes: [
-        `Relabelled by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule: ${moved.toLocaleString('en-US')} of ` +
-          `${agreement.rows.toLocaleString('en-US')} training rows moved to the segment whose ${this.method === 'kmedoids' ? 'medoid' : 'centre'} is nearest; ` +
-          `the ${this.method === 'kmedoids' ? 'medoids' : 'centres'} are the fit's, unchanged.`,
+        this.mixture
+          ? `Relabelled by the highest-posterior rule: ${moved.toLocaleString('en-US')} of ${agreement.rows.toLocaleString('en-US')} training rows ` +
+            "moved to the component the stored rule gives them; weights, means and covariances are the fit's, unchanged."
+          : `Relabelled by the ${ruleWords(agreement.rule)} rule: ${moved.toLocaleString('en-US')} of ` +
+            `${agreement.rows.toLocaleString('en-US')} training rows moved to the segment whose ${this.method === 'kmedoids' ? 'medoid' : 'centre'} is nearest; ` +
+            `the ${this.method === 'kmedoids' ? 'medoids' : 'centres'} are the fit's, unchanged.`,
       ],
     });
     for (const [s, n] of this.given) relabelled.name(s, n);
@@ -324,6 +341,7 @@ export class Segmentation {
       resamples: opts.resamples,
       seed,
       method: this.method,
+      ...(this.mixture ? { covariance: this.mixture.covariance, restarts: (this.options.restarts as number | undefined) ?? 1 } : {}),
       assignment: this.assignment,
       onProgress: opts.onProgress,
     });
@@ -359,7 +377,7 @@ export class Segmentation {
     });
     if (this.noiseCount > 0) return profiles.map((p) => (p.index === this.k ? { ...p, noise: true } : p));
     if (agreement === null) return profiles;
-    const rule = agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    const rule = ruleWords(agreement.rule);
     return profiles.map((p) => ({ ...p, rule: { name: rule, reproduced: agreement.perSegment[p.index], size: p.size } }));
   }
 
@@ -380,7 +398,22 @@ export class Segmentation {
       names: this.titles(),
       loadings: opts.loadings,
       title: opts.title,
+      ...(this.mixture ? { uncertain: { flags: this.membership().uncertain, below: this.mixture.uncertainBelow } } : {}),
     });
+  }
+
+  /**
+   * Mixtures only: each row's membership probabilities (n × k, row-major), its top probability and
+   * whether that is below the uncertainty threshold the projection marks.
+   */
+  membership(): MembershipTable {
+    if (!this.mixture) {
+      throw new KinsortError(
+        `membership: a ${this.method} segmentation gives each row one segment, not probabilities; fit a Gaussian mixture (prepared.mixture({ k })) for memberships.`,
+        'not-supported',
+      );
+    }
+    return membershipTable(this.mixture, this.ids, this.k);
   }
 
   /**
@@ -435,6 +468,7 @@ export class Segmentation {
         preparation: this.data.preparation,
         method: { name: method, options: this.options },
         centers: this.method === 'kmedoids' ? undefined : this.centers,
+        mixture: this.mixture ? { weights: this.mixture.weights, covariances: this.mixture.covariances } : undefined,
         medoids: this.medoids ? [...this.medoids] : undefined,
         segments: this.sizes.map((size, s) => ({ number: s + 1, size, ...names[s + 1] })),
         training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
@@ -476,7 +510,7 @@ export class Segmentation {
     };
   }
 
-  /** One sentence saying how this segmentation was made. */
+  /** @internal One sentence saying how this segmentation was made (the write-up and cards use it). */
   describeMethod(): string {
     const o = this.options;
     const rows = `${this.ids.length} rows, ${this.data.featureNames.length} prepared features (${this.data.preparation.scale} scaling)`;
@@ -488,6 +522,9 @@ export class Segmentation {
       case 'kmedoids':
         how = `k-medoids (PAM) with k = ${this.k}, ${o.metric ?? 'euclidean'} dissimilarity, on ${rows}.`;
         break;
+      case 'mixture':
+        how = `Gaussian mixture (EM) with k = ${this.k}, ${o.covariance ?? 'full'} covariance, ${o.restarts ?? 1} restart(s), seed ${o.seed ?? 0}, on ${rows}.`;
+        break;
       case 'density':
         how =
           `Density segments (HDBSCAN, minSize ${o.minSize}, minSamples ${o.minSamples}, ${o.metric ?? 'euclidean'}): ${this.k} segments ` +
@@ -498,7 +535,7 @@ export class Segmentation {
     }
     const a = this.ruleAgreement();
     if (a === null) return how;
-    const rule = a.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    const rule = ruleWords(a.rule);
     if (this.labels === 'rule')
       return `${how} Segments relabelled by the ${rule} rule that scores new rows, so the two agree on every training row.`;
     if (a.reproduced === a.rows) return `${how} The ${rule} rule that scores new rows gives every training row its segment.`;

@@ -24,6 +24,9 @@ import { VariableHierarchy } from './variable-hierarchy';
 import { variableColumns } from './variable-columns';
 import { variableTree, type CorrelationKind, type CorrelationStrength, type VariableLinkage } from '../methods/variables';
 import { installWrongStepGuards, PREPARED_STUDY_CALLS, type PrepareTheStudyFirst } from './wrong-step';
+import { fitMixture, type StudyMixtureOptions } from './mixture-fit';
+import { compareMixtures, type CompareMixturesOptions, type CompareMixturesResult } from '../assess/compare-mixtures';
+import { mixtureEvidenceView } from '../views/mixture-evidence';
 
 /** Which columns play which part. */
 export interface StudyRoles {
@@ -65,6 +68,8 @@ export class Study {
   declare readonly agglomerate: PrepareTheStudyFirst;
   declare readonly project: PrepareTheStudyFirst;
   declare readonly variableTree: PrepareTheStudyFirst;
+  declare readonly mixture: PrepareTheStudyFirst;
+  declare readonly compareMixtures: PrepareTheStudyFirst;
 
   constructor(
     readonly table: Table,
@@ -185,6 +190,22 @@ export class PreparedStudy {
       data: this.data,
       notes,
     });
+  }
+
+  /**
+   * A Gaussian mixture on the prepared rows (EM; 5 restarts unless given). The segmentation's
+   * membership() gives each row's probabilities; its definition scores new rows by the
+   * highest-posterior rule.
+   */
+  mixture(options: StudyMixtureOptions): Segmentation {
+    return fitMixture(this.data, options, progressFor(options?.onProgress, 'mixture restarts'));
+  }
+
+  /** Gaussian mixtures over a range of k and covariance shapes, compared by BIC (lower is better), with a view. */
+  compareMixtures(options: CompareMixturesOptions = {}): CompareMixturesResult & Showable {
+    const onProgress = progressFor(options?.onProgress, 'Comparing mixtures');
+    const result = compareMixtures(this.data.matrix, { ...options, onProgress });
+    return showable(result, () => mixtureEvidenceView(result));
   }
 
   /** k-medoids (PAM) on the prepared rows, or on Gower dissimilarities of the mixed columns. */

@@ -22,7 +22,7 @@ export interface AskTheHierarchyInstead {
   readonly __kinsortAdvice: 'ask the hierarchy (study.agglomerate({ method })) for this';
 }
 
-/** Install throwing members named `names` on `proto`; `advice(name, self)` is the whole message. */
+/** @internal Install throwing members named `names` on `proto`; `advice(name, self)` is the whole message. */
 export function installWrongStepGuards<T>(proto: T, names: readonly string[], advice: (name: string, self: T) => string): void {
   for (const name of names) {
     Object.defineProperty(proto as object, name, {
@@ -37,7 +37,18 @@ export function installWrongStepGuards<T>(proto: T, names: readonly string[], ad
 }
 
 /** What a prepared study offers, for the "prepare first" guard on a study. */
-export const PREPARED_STUDY_CALLS = ['dissimilarity', 'compareK', 'kmeans', 'kmedoids', 'agglomerate', 'project', 'variableTree'] as const;
+export const PREPARED_STUDY_CALLS = [
+  'dissimilarity',
+  'compareK',
+  'kmeans',
+  'kmedoids',
+  'agglomerate',
+  'project',
+  'variableTree',
+  // Mixtures (issue #20).
+  'mixture',
+  'compareMixtures',
+] as const;
 
 /** What a segmentation offers that a hierarchy does not, for the "cut first" guard on a hierarchy. */
 export const SEGMENTATION_CALLS = [

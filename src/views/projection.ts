@@ -30,6 +30,8 @@ export interface ProjectionViewOptions {
   /** Segment names by number 1..k, for the legend. */
   names?: Readonly<Record<number, string>>;
   title?: string;
+  /** Rows whose segment is uncertain (1 = uncertain; e.g. a mixture's top membership below `below`), drawn as open rings. */
+  uncertain?: { readonly flags: ArrayLike<number>; readonly below: number };
   /**
    * Rows whose segment is -1 are noise (density segments): drawn as neutral rings, counted in a
    * note, never coloured as a segment. Without this option -1 is an ordinary label.
@@ -54,7 +56,7 @@ const pct = (r: number | undefined): string => (r === undefined || !Number.isFin
 
 export function projectionView(projection: ProjectionLike, assignment: ArrayLike<number>, options: ProjectionViewOptions = {}): View {
   const where = 'projectionView';
-  const opts = checkOptions(options, ['ids', 'centers', 'hover', 'loadings', 'names', 'title', 'noise'], where);
+  const opts = checkOptions(options, ['ids', 'centers', 'hover', 'loadings', 'names', 'title', 'uncertain', 'noise'], where);
   const p = requireProjection(projection, where);
   const { scores, loadings } = p;
   if (scores.cols < 2) refuse(where, `the projection has ${scores.cols} component; ask project() for { components: 2 } or more.`);
@@ -145,7 +147,11 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const caption =
     'Each dot is a row placed by its two strongest directions of variation; colour and number give its segment, ' +
     'the large numbered discs mark segment centres. Segments that overlap here may still be apart in the components not shown.' +
-    (opts.loadings ? ' Arrows point the way each variable grows.' : '');
+    (opts.loadings ? ' Arrows point the way each variable grows.' : '') +
+    (opts.uncertain
+      ? ` Open rings are rows whose segment is uncertain: their highest membership probability is below ${opts.uncertain.below}.`
+      : '');
+  const unsure = (i: number) => opts.uncertain !== undefined && opts.uncertain.flags[i] === 1;
 
   // Static stand-in, equal units on both axes (a biplot): the plot area takes the data's aspect,
   // within limits; past them the shorter axis is widened instead.
@@ -175,11 +181,16 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const body = [...f.under];
   const stride = Math.max(1, Math.ceil(n / MAX_STATIC_POINTS));
   for (let i = 0; i < n; i += stride) {
+    const r = n > 1500 ? 2 : 3.2;
     if (isNoise[i]) {
-      body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: n > 1500 ? 2 : 3.2, fill: 'none', stroke: NOISE_INK, 'stroke-width': 1 }));
+      body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r, fill: 'none', stroke: NOISE_INK, 'stroke-width': 1 }));
       continue;
     }
-    body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: n > 1500 ? 2 : 3.2, fill: segmentColour(labels[i]), 'fill-opacity': 0.72 }));
+    body.push(
+      unsure(i)
+        ? svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: r + 0.8, fill: 'none', stroke: segmentColour(labels[i]), 'stroke-width': 1.2 })
+        : svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r, fill: segmentColour(labels[i]), 'fill-opacity': 0.72 }),
+    );
   }
   // Arrow labels go where they cover no centre disc: first beside the tip, else the other side
   // or above / below it; the discs are drawn last, so no label can hide one.
@@ -272,9 +283,15 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
       name: plotText(names[s] ? `${s + 1} · ${names[s]}` : `${s + 1}`),
       x: rows.map((i) => x[i]),
       y: rows.map((i) => y[i]),
-      marker: { color: segmentColour(s), size: n > 1500 ? 5 : 7, opacity: 0.75, line: { width: 0 } },
+      marker: {
+        color: segmentColour(s),
+        size: n > 1500 ? 5 : 7,
+        opacity: 0.75,
+        line: { width: opts.uncertain ? 1.2 : 0, color: segmentColour(s) },
+        ...(opts.uncertain ? { symbol: rows.map((i) => (unsure(i) ? 'circle-open' : 'circle')) } : {}),
+      },
       text: rows.map((i) => {
-        const parts = [`<b>${plotText(ids?.[i] ?? `row ${i + 1}`)}</b>`, `segment ${s + 1}`];
+        const parts = [`<b>${plotText(ids?.[i] ?? `row ${i + 1}`)}</b>`, `segment ${s + 1}${unsure(i) ? ' (uncertain)' : ''}`];
         for (const [name, values] of hoverCols) {
           const v = values[i];
           parts.push(`${plotText(name)}: ${plotText(typeof v === 'number' ? Number(v.toPrecision(4)) : v)}`);
