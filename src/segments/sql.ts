@@ -73,12 +73,6 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   if (opts.table === undefined || opts.table === null) {
     throw new KinsortError('toSql: give the table to score, e.g. toSql({ table: "riders", dialect: "duckdb" }).', 'bad-argument');
   }
-  if (definition.rule === 'nearest-dense-row') {
-    throw new KinsortError(
-      'toSql: density definitions (rule nearest-dense-row) are scored in memory only for now (assign); their SQL is not written yet.',
-      'not-supported',
-    );
-  }
   const d = chooseDialect(opts);
   const from = tableReference(opts.table, d);
   const prep = definition.preparation as unknown as Preparation;
@@ -99,6 +93,18 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   checkSqlText(idColumn, 'the id column');
   const k = definition.segments.length;
   const dims = definition.features.length;
+  // What each row is compared with: the segment centres, or (nearest-dense-row) every stored row,
+  // one distance column each, so the stored rows share every layer below with the centres.
+  const dense = definition.rule === 'nearest-dense-row' ? definition.denseRows : undefined;
+  const targets = dense ? dense.values : definition.segments.map((s) => s.center);
+  if (dense && (targets.length > SQL_MAX_SEGMENTS || targets.length * dims > SQL_MAX_FIGURES)) {
+    throw new KinsortError(
+      `toSql: this density definition stores ${targets.length.toLocaleString('en-US')} rows × ${dims} features; its SQL compares every row with each ` +
+        `stored row, and kinsort writes at most ${SQL_MAX_SEGMENTS} stored rows (and ${SQL_MAX_FIGURES.toLocaleString('en-US')} figures) as one statement. ` +
+        'Fit the density segments on a smaller sample (or a larger minSize leaves fewer rows in segments), or score with assign.',
+      'too-large',
+    );
+  }
   // A mixture also writes each component's lower-triangle factor (d(d + 1)/2 figures).
   const figures = definition.rule === 'highest-posterior' ? (k * dims * (dims + 3)) / 2 : k * dims;
   if (k > SQL_MAX_SEGMENTS || figures > SQL_MAX_FIGURES) {
@@ -147,7 +153,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   // 5. Distance to every centre: squared for Euclidean (the same order of additions as assign).
   const euclidean = definition.metric === 'euclidean';
   const bounded = Number.isFinite(d.featureBound);
-  if (bounded && definition.segments.some((s) => s.center.some((x) => Math.abs(x) > d.featureBound))) {
+  if (bounded && targets.some((t) => t.some((x) => Math.abs(x) > d.featureBound))) {
     throw new KinsortError(
       `toSql: a centre figure is beyond ${d.featureBound} in size, which ${d.title} cannot score without overflow; check the definition.`,
       'not-supported',
@@ -158,8 +164,8 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     name: `${PREFIX}distances`,
     columns: [
       ...pass,
-      ...definition.segments.map((s, c) => {
-        const terms = s.center.map((x, j) => {
+      ...targets.map((target, c) => {
+        const terms = target.map((x, j) => {
           const diff = `(${f(j)} - ${d.doubleLiteral(x)})`;
           return definition.metric === 'manhattan' ? `abs${diff}` : d.square(diff);
         });
@@ -171,11 +177,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   // 6. The least distance (NULL when a feature is missing), then the first segment that reaches it.
   const least: Layer = {
     name: `${PREFIX}nearest`,
-    columns: [
-      ...pass,
-      ...definition.segments.map((_, c) => dist(c)),
-      `${d.least(definition.segments.map((_, c) => dist(c)))} AS ${nearest}`,
-    ],
+    columns: [...pass, ...targets.map((_, c) => dist(c)), `${d.least(targets.map((_, c) => dist(c)))} AS ${nearest}`],
   };
   const limit = (c: number) => {
     const x = definition.segments[c].farBeyond;
@@ -198,15 +200,45 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     definition.rule === 'highest-posterior'
       ? mixtureLayers(definition, d, pass.join(', '), f, bounded ? big : undefined, PREFIX)
       : undefined;
+  // nearest-dense-row: the first stored row at the least distance, then its segment, or noise
+  // (segment 0, far 1) when the distance is beyond that row's reach (squared for Euclidean, as compared).
+  const which = q(`${PREFIX}w`);
+  const picked: Layer = {
+    name: `${PREFIX}picked`,
+    columns: [
+      ...pass,
+      nearest,
+      `${d.firstEqual(
+        targets.map((_, c) => dist(c)),
+        nearest,
+      )} AS ${which}`,
+    ],
+  };
+  // The searched CASE form: ClickHouse 18 reads the simple form (CASE x WHEN …) differently.
+  const byStored = (values: readonly string[]) => `CASE ${values.map((v, r) => `WHEN ${which} = ${r + 1} THEN ${v}`).join(' ')} END`;
+  const reachSql = dense ? byStored(dense.reach.map((e) => d.doubleLiteral(euclidean ? e * e : e))) : '';
+  const beyondReach = `${nearest} > ${reachSql}`;
+  const denseFinal: Layer = {
+    name: '',
+    columns: [
+      ...pass,
+      `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${beyondReach} THEN 0 ELSE ${byStored((dense?.segment ?? []).map(String))} END AS ${q('segment')}`,
+      `${euclidean ? `sqrt(${nearest})` : nearest} AS ${q('distance')}`,
+      `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${beyondReach} THEN 1 ELSE 0 END AS ${q('far')}`,
+    ],
+  };
   const header = [
     `-- kinsort segment definition, written by ${commentText(definition.writtenBy)} (format ${Number(definition.formatVersion)}): ${k} segments, rule ${commentText(definition.rule)}, metric ${commentText(definition.metric)}.`,
-    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far${mixture ? ', and the posterior probability of the segment' : ''}.`,
+    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row${dense ? '; 0 for noise' : ''}), distance and far${mixture ? ', and the posterior probability of the segment' : ''}.`,
+    ...(dense ? [`-- Rule nearest-dense-row: ${targets.length} stored rows; a row is noise beyond its nearest stored row's reach.`] : []),
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
   const sql =
     header.join('\n') +
     '\n' +
-    renderLayers([...prepared, ...(mixture ? mixture.layers : [distances, least])], mixture ? mixture.final : final, from, d) +
+    (dense
+      ? renderLayers([...prepared, distances, least, picked], denseFinal, from, d)
+      : renderLayers([...prepared, ...(mixture ? mixture.layers : [distances, least])], mixture ? mixture.final : final, from, d)) +
     '\n';
   const cap = opts.maxQueryBytes ?? d.maxQueryBytes;
   if (cap !== undefined) {

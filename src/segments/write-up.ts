@@ -65,8 +65,12 @@ export function writeUpMarkdown(profiles: readonly SegmentProfile[], context: Wr
   lines.push(`# ${markdownText(context.title)}`, '');
   lines.push(markdownText(context.method), '');
   const r = context.report;
+  // Density segments add the noise rows as a last profile marked noise: never a numbered segment.
+  const isNoise = (p: SegmentProfile) => (p as SegmentProfile & { noise?: boolean }).noise === true;
+  const noiseRows = profiles.filter(isNoise).reduce((s, p) => s + p.size, 0);
   lines.push(
     `Rows: ${r.inputRows} in, ${r.keptRows} segmented` +
+      (noiseRows ? ` (${noiseRows} of them in no segment: noise)` : '') +
       (r.dropped.length ? `, ${r.dropped.length} dropped for missing values (listed in the preparation report)` : '') +
       (r.imputed.length ? `; imputed: ${r.imputed.map((c) => `${markdownText(c.column)} (${c.count})`).join(', ')}` : '') +
       '.',
@@ -79,7 +83,11 @@ export function writeUpMarkdown(profiles: readonly SegmentProfile[], context: Wr
     lines.push('');
   }
   for (const p of profiles) {
-    const heading = p.title ? `Segment ${p.segment}: ${markdownText(p.title)}` : `Segment ${p.segment}`;
+    const heading = isNoise(p)
+      ? markdownText(p.title ?? 'Noise: in no segment')
+      : p.title
+        ? `Segment ${p.segment}: ${markdownText(p.title)}`
+        : `Segment ${p.segment}`;
     lines.push(`## ${heading}`, '');
     lines.push(
       `${p.size} rows (${(100 * p.share).toFixed(1)}% of all).` +

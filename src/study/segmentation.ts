@@ -419,7 +419,10 @@ export class Segmentation {
     return membershipTable(this.mixture, this.ids, this.k);
   }
 
-  /** Agreement with another segmentation of the same rows: ARI, NMI and the cross-table. */
+  /**
+   * Agreement with another segmentation of the same rows: ARI, NMI and the cross-table. Noise
+   * (density segments, label -1) counts as one more group of its own, so noise rows are compared too.
+   */
   compare(other: Segmentation | ArrayLike<number>): {
     adjustedRandIndex: number;
     normalizedMutualInfo: number;

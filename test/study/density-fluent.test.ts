@@ -53,6 +53,10 @@ describe('prepared.density', () => {
     expect(cards).toContain('and of the rows in none (noise)');
     const projection = seg.projection();
     expect(projection.html()).toContain('noise (no segment)');
+    const markdown = seg.writeUp().markdown();
+    expect(markdown).toContain('## Noise: in no segment');
+    expect(markdown).not.toContain(`## Segment ${seg.k + 1}`);
+    expect(markdown).toContain(`(${seg.noiseCount} of them in no segment: noise)`);
     expect(projection.html()).toContain(`${seg.noiseCount} of ${seg.ids.length} rows are in no segment (noise)`);
   });
 
@@ -63,7 +67,7 @@ describe('prepared.density', () => {
     const rules = seg.rules();
     expect(JSON.stringify(rules)).toMatch(/Noise: in no segment/);
     expect(() => seg.stability()).toThrow(/density segments are not rerun/);
-    expect(() => seg.definition().toSql({ table: 'stations', dialect: 'duckdb' })).toThrow(/in memory only for now/);
+    expect(seg.definition().toSql({ table: 'stations', dialect: 'duckdb' })).toMatch(/nearest-dense-row: \d+ stored rows/);
     expect(() => seg.relabelByRule()).toThrow(/no nearest-centre rule/);
     expect(() => prepared.density({ minSize: 10, metric: 'gower' })).toThrow(/gower/);
     expect(() => prepared.density({ minSize: 10, minSample: 3 } as never)).toThrow(/minSamples/);

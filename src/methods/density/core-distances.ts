@@ -10,10 +10,12 @@ export function coreDistances(source: PairSource, minSamples: number): Float64Ar
   // The row itself is the first neighbour: with minSamples = 1 every core distance is 0.
   const rank = minSamples - 2;
   if (rank < 0) return core;
+  const others = new Int32Array(n - 1);
   const buffer = new Float64Array(n - 1);
   for (let i = 0; i < n; i++) {
     let c = 0;
-    for (let j = 0; j < n; j++) if (j !== i) buffer[c++] = source.pair(i, j);
+    for (let j = 0; j < n; j++) if (j !== i) others[c++] = j;
+    source.fill(i, others, n - 1, buffer);
     core[i] = selectRank(buffer, rank);
   }
   return core;

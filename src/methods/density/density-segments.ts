@@ -13,7 +13,6 @@ import { condenseTree } from './condensed-tree';
 import { coreDistances } from './core-distances';
 import { selectByExcessOfMass } from './excess-of-mass';
 import { gloshScores } from './glosh';
-import { mutualReachability } from './mutual-reachability';
 import { PairSource, pairsFromDissimilarity, pairsFromRows } from './pair-source';
 import { spanningHierarchy } from './spanning-hierarchy';
 
@@ -121,7 +120,7 @@ export function densitySegments(input: RowsInput | Dissimilarity, options: Densi
   }
   report(opts.onProgress, { task: 'density segments', done: 0, total: n - 1, detail: 'core distances' });
   const core = coreDistances(source, minSamples);
-  const merges = spanningHierarchy(n, mutualReachability(source, core), mergeTicker(opts.onProgress, n, 'mutual reachability'));
+  const merges = spanningHierarchy(source, core, mergeTicker(opts.onProgress, n, 'mutual reachability'));
   const tree = condenseTree(n, merges, minSize);
   const selection = selectByExcessOfMass(tree);
   const outlierScores = gloshScores(tree);
