@@ -9,12 +9,17 @@ import {
   DEFINITION_METHODS,
   DEFINITION_METRICS,
   DefinitionSegment,
+  MIXTURE_METRIC,
   SegmentDefinition,
+  StoredMetric,
   TRAINING_LABELS,
 } from './definition-types';
+import { upgradePreparation } from '../prepare/upgrade';
+import { checkMixtureSegment, checkWeightSum } from './definition-validate-mixture';
 import { kinsortVersion } from './definition-version';
 import { checkName, checkStoredPreparation, onlyKeys } from './definition-validate-preparation';
 import { checkTrainingDistributions } from './definition-validate-distributions';
+import { checkDenseRows } from './definition-validate-dense';
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');
@@ -70,9 +75,10 @@ const TOP_KEYS = [
   'training',
   'trainingDistributions',
   'evidence',
+  'denseRows',
 ];
-const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
-const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels'];
+const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond', 'weight', 'whitening'];
+const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels', 'noiseRows'];
 
 const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
 
@@ -115,6 +121,21 @@ function numbers(v: unknown, length: number, where: string): number[] {
 }
 
 /** Parse text (or take an object) and validate it as a definition, rebuilt in the file's key order. */
+/**
+ * The oldest format read. Format 2 differs from 3 only in spelling each prepared column's
+ * subtracted value `centre` (its preparation is version 2); it is translated on reading.
+ */
+export const OLDEST_READ_FORMAT = 2;
+
+/** The stored preparation as version 3: a format-2 file must hold version 2, which is upgraded. */
+function storedPreparation(p: Record<string, unknown>, format: number, where: string): Record<string, unknown> {
+  if (format !== 2) return p;
+  if (p.version !== 2) {
+    fail(`${where}: preparation`, `key "version" is ${JSON.stringify(p.version)}; a format-2 definition holds preparation version 2.`);
+  }
+  return upgradePreparation(p);
+}
+
 export function readDefinition(source: string | object, where = 'loadDefinition'): SegmentDefinition {
   let raw: unknown = source;
   if (typeof source === 'string') {
@@ -138,7 +159,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       `key "writtenBy" holds a control character (${JSON.stringify(writtenBy).slice(0, 80)}); it names a program version on one line.`,
     );
   if (!Number.isInteger(version) || version < 1) fail(where, `key "formatVersion" is ${version}; expected a whole number ≥ 1.`);
-  if (version < DEFINITION_FORMAT_VERSION) {
+  if (version < OLDEST_READ_FORMAT) {
     fail(
       where,
       `written by ${writtenBy}, format ${version}, which stores no schema (how cells were read: missing markers, ` +
@@ -162,8 +183,15 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   const methodOptions = need(method, 'options', 'object', `${where}: method`);
   noPrototypeKeys(methodOptions, `${where}: method.options`);
   const rule = oneOf(need(d, 'rule', 'string', where), ASSIGNMENT_RULES, 'rule', where);
-  const metric = oneOf(need(d, 'metric', 'string', where), DEFINITION_METRICS, 'metric', where);
-  const preparation = need(d, 'preparation', 'object', where);
+  // The highest-posterior rule measures Mahalanobis distances, every other rule a distance metric.
+  const mixture = rule === 'highest-posterior';
+  const metric: StoredMetric = oneOf(
+    need(d, 'metric', 'string', where),
+    mixture ? [MIXTURE_METRIC] : DEFINITION_METRICS,
+    'metric',
+    mixture ? `${where} (rule highest-posterior)` : where,
+  );
+  const preparation = storedPreparation(need(d, 'preparation', 'object', where), version, where);
   const features: unknown[] = need(d, 'features', 'array', where);
   features.forEach((f, j) => {
     if (typeof f !== 'string') fail(where, `features: entry ${j + 1} is ${typeName(f)}; expected a feature name.`);
@@ -194,6 +222,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     if (text !== undefined) proseOnly(text, at, 'key "text"');
     if (rule === 'nearest-medoid' && medoidId === undefined)
       fail(at, 'key "medoidId" is missing; the nearest-medoid rule needs the id of each medoid.');
+    if (!mixture && (seg.weight !== undefined || seg.whitening !== undefined))
+      fail(at, `keys "weight" and "whitening" are set, but the rule is "${rule}"; only highest-posterior definitions hold them.`);
+    const component = mixture ? checkMixtureSegment(seg, dims, at) : undefined;
     return {
       number,
       title,
@@ -202,15 +233,37 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       center: numbers(seg.center, dims, `${at}.center`),
       medoidId,
       farBeyond,
+      weight: component?.weight,
+      whitening: component?.whitening,
     };
   });
+  if (mixture)
+    checkWeightSum(
+      segments.map((s) => s.weight!),
+      where,
+    );
   const training = need(d, 'training', 'object', where);
   const at = `${where}: training`;
   onlyKeys(training, TRAINING_KEYS, at);
   const rows = need(training, 'rows', 'number', at);
   if (!Number.isInteger(rows) || rows < 1) fail(at, `key "rows" is ${rows}; expected a whole number ≥ 1.`);
-  const total = segments.reduce((s, g) => s + g.size, 0);
-  if (total !== rows) fail(where, `the segment sizes add up to ${total}, but key "training.rows" is ${rows}; they must agree.`);
+  const noiseRows = need(training, 'noiseRows', 'number', at, true);
+  if (noiseRows !== undefined && (rule !== 'nearest-dense-row' || !Number.isInteger(noiseRows) || noiseRows < 0))
+    fail(at, `key "noiseRows" is ${noiseRows}; only nearest-dense-row definitions count noise, as a whole number ≥ 0.`);
+  const total = segments.reduce((s, g) => s + g.size, 0) + (noiseRows ?? 0);
+  if (total !== rows)
+    fail(
+      where,
+      `the segment sizes${noiseRows ? ' and noise rows' : ''} add up to ${total}, but key "training.rows" is ${rows}; they must agree.`,
+    );
+  if ((rule === 'nearest-dense-row') !== (methodName === 'density'))
+    fail(where, `key "rule" is "${rule}" for method "${methodName}"; density segments, and only they, use the nearest-dense-row rule.`);
+  const denseRows =
+    rule === 'nearest-dense-row'
+      ? checkDenseRows(d.denseRows, dims, segments, `${where}: denseRows`)
+      : d.denseRows === undefined
+        ? undefined
+        : fail(where, `key "denseRows" is set, but the rule is "${rule}"; only nearest-dense-row definitions store rows.`);
   const fingerprint = need(training, 'fingerprint', 'string', at);
   if (!/^sha256:[0-9a-f]{64}$/.test(fingerprint)) fail(at, 'key "fingerprint" must be "sha256:" followed by 64 hexadecimal digits.');
   const reproducedRows = need(training, 'reproducedRows', 'number', at);
@@ -231,7 +284,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       : checkTrainingDistributions(d.trainingDistributions, dims, `${where}: trainingDistributions`);
   return {
     kind: DEFINITION_KIND,
-    formatVersion: version,
+    // A format-2 file is held as format 3 once read (its preparation's `centre` keys are now
+    // `center`), and is written back as format 3.
+    formatVersion: DEFINITION_FORMAT_VERSION,
     writtenBy,
     note,
     method: { name: methodName, options: sortedKeys(methodOptions) as { [key: string]: JsonValue } },
@@ -240,7 +295,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     preparation: sortedKeys(preparation) as { [key: string]: JsonValue },
     features: features as string[],
     segments,
-    training: { rows, fingerprint, reproducedRows, labels },
+    training:
+      noiseRows === undefined ? { rows, fingerprint, reproducedRows, labels } : { rows, fingerprint, reproducedRows, labels, noiseRows },
+    denseRows,
     trainingDistributions: distributions,
     evidence: evidence === undefined ? undefined : (sortedKeys(evidence) as { [key: string]: JsonValue }),
   };

@@ -42,7 +42,7 @@ function logOnePlus(v: string, u: string, d: SqlDialect): string {
 /** (v − centre) / spread × weight, in the same order of operations as the JavaScript. */
 function scaled(value: string, col: PreparedColumn, d: SqlDialect): string {
   let e = value;
-  if (col.centre !== 0) e = d.sub(e, col.centre);
+  if (col.center !== 0) e = d.sub(e, col.center);
   if (col.spread !== 1) e = d.div(e, col.spread);
   if (col.weight !== 1) e = d.mul(e, col.weight);
   return e;

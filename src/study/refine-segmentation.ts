@@ -47,6 +47,12 @@ export interface RefineStart {
 }
 
 const WHERE = 'refineInDatabase';
+const METHOD_WORDS: Record<string, string> = {
+  kmedoids: 'k-medoids, whose medoids are rows',
+  hierarchy: 'a hierarchy cut',
+  mixture: 'a Gaussian mixture, whose segments are not nearest-centre ones',
+  density: 'density segments, which have no centres',
+};
 
 export async function refineSegmentation(
   start: RefineStart,
@@ -59,7 +65,7 @@ export async function refineSegmentation(
   if (start.method !== 'kmeans') {
     throw new KinsortError(
       `${WHERE}: only a k-means segmentation can be refined over a table (Lloyd iterations move each centre to its segment's mean); ` +
-        `this one is ${start.method === 'kmedoids' ? 'k-medoids' : 'a hierarchy cut'}. Fit s.kmeans({ k: ${start.k} }) on the sample and refine that.`,
+        `this one is ${METHOD_WORDS[start.method] ?? start.method}. Fit s.kmeans({ k: ${start.k} }) on the sample and refine that.`,
       'not-supported',
     );
   }
