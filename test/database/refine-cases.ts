@@ -149,6 +149,19 @@ export function refineCases(engines: DatabaseEngines): void {
       }
     });
 
+    it('refines the rows of a query of the user as it refines a table', async () => {
+      for (const engine of engines.all) {
+        await engine.loadText('riders', COLUMNS, rows);
+        const fromTable = await refineInDatabase(engine, definition, { table: 'riders', tolerance: 0.05 });
+        const fromQuery = await refineInDatabase(engine, definition, {
+          query: 'SELECT * FROM riders WHERE trips IS NOT NULL',
+          tolerance: 0.05,
+        });
+        expect(fromQuery.sizes, engine.dialect).toEqual(fromTable.sizes);
+        expect(fromQuery.iterations).toBe(fromTable.iterations);
+      }
+    });
+
     it('an empty segment keeps its centre and is reported', async () => {
       const far = {
         ...definition,
