@@ -223,6 +223,7 @@ export type { SampleFromDatabaseOptions, DatabaseSample } from './engines/sample
 export type { TableName } from './engines/source';
 export { refineInDatabase } from './segments/database/refine';
 export type { RefineInDatabaseOptions, DatabaseRefinement, RefineIteration } from './segments/database/refine';
+export type { RefineSegmentationOptions, TableFigures } from './study/refine-segmentation';
 
 // ─── Gaussian mixtures ───────────────────────────────────────────────────────────────────────────
 // The EM core, the BIC comparison and its view, the fluent options.

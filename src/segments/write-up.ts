@@ -37,6 +37,10 @@ const FIGURE_WORDS: Record<string, string> = {
   cost: 'Total distance to the medoids',
   averageSilhouette: 'Average silhouette',
   stabilityJaccard: 'Bootstrap stability (Jaccard), segment 1 first',
+  tableRows: 'Rows of the whole table in a segment (refined in the database)',
+  tableSizes: 'Rows of the whole table per segment, segment 1 first',
+  tableUnscored: 'Rows of the whole table the definition cannot score (left out)',
+  refineIterations: 'Lloyd iterations run in the database',
 };
 
 /** The reader's words for an evidence figure; an unknown key is shown as given. */

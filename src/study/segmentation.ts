@@ -31,6 +31,8 @@ import { writeUpPage } from '../views/write-up-page';
 import { segmentRules, type SegmentRulesOptions } from './segment-rules';
 import type { SegmentRules } from '../segments/rules';
 import { HIERARCHY_CALLS, installWrongStepGuards, type AskTheHierarchyInstead } from './wrong-step';
+import type { SqlEngine } from '../engines/engine';
+import { refineSegmentation, type RefineSegmentationOptions, type TableFigures } from './refine-segmentation';
 import { membershipTable, mixtureAgreement, type MembershipTable, type MixtureParts } from './mixture-parts';
 
 /** The rule's name as the notes and cards print it. */
@@ -73,6 +75,8 @@ export interface SegmentationParts {
   labels?: TrainingLabels;
   /** What the fitting step decided that a person should know. */
   notes?: string[];
+  /** Refined in the database: the figures of the whole table (sizes, within-SS, profiles). */
+  population?: TableFigures;
   /** Gaussian mixtures: weights, covariances and membership probabilities. */
   mixture?: MixtureParts;
 }
@@ -94,8 +98,13 @@ export class Segmentation {
   readonly noiseCount: number;
   /** Ids of the prepared rows, in the same order as `assignment`. */
   readonly ids: readonly string[];
-  /** Rows per segment, segment 1 first. */
+  /**
+   * Rows per segment, segment 1 first: of the prepared rows, or, for a segmentation refined in the
+   * database, of the whole table (`population`).
+   */
   readonly sizes: readonly number[];
+  /** Refined in the database (refineInDatabase): what the whole table's rows give. */
+  readonly population?: TableFigures;
   readonly centers: readonly (readonly number[])[];
   readonly medoids?: readonly number[];
   readonly objective: { readonly name: string; readonly value: number };
@@ -141,7 +150,8 @@ export class Segmentation {
       if (parts.assignment[i] < 0) noiseCount++;
       else sizes[parts.assignment[i]]++;
     }
-    this.sizes = sizes;
+    this.population = parts.population;
+    this.sizes = parts.population ? [...parts.population.sizes] : sizes;
     this.noiseCount = noiseCount;
     this.labels = parts.labels ?? 'fit';
     const notes = [...(parts.notes ?? [])];
@@ -354,6 +364,11 @@ export class Segmentation {
   /** The numbers behind the cards, one profile per segment. */
   profiles(options: { top?: number } = {}): SegmentProfile[] {
     const opts = checkOptions(options, ['top'], 'profiles');
+    if (this.population) {
+      // Computed over the whole table when refined (the top given then applies); names as given now.
+      const names = this.names();
+      return this.population.profile.profiles.map((p) => ({ ...p, title: names[p.segment]?.title, text: names[p.segment]?.text }));
+    }
     const keepNames = new Set(this.data.preparation.keep);
     // Column names come from the data: null-prototype objects, so "__proto__" is a column like any other.
     const used: Record<string, readonly (number | string | null)[]> = Object.create(null);
@@ -460,6 +475,36 @@ export class Segmentation {
     return segmentRules(this.data, this.assignment, this.k, this.titles(), options);
   }
 
+  /**
+   * k-means refined over the whole table where it lives: Lloyd iterations in SQL from these centres
+   * (one aggregate query each, nothing written), then profiles computed there. A new segmentation:
+   * refined centres, the table's sizes, within-SS and profiles, the sample relabelled by the centres.
+   * See docs/database-path.md for the stopping rules, the empty-segment rule and the engines' bound.
+   */
+  async refineInDatabase(engine: SqlEngine, options: RefineSegmentationOptions): Promise<Segmentation> {
+    const start = {
+      method: this.method,
+      k: this.k,
+      data: this.data,
+      options: this.options,
+      assignment: this.assignment,
+      definition: () => this.definition().definition,
+    };
+    const named = (parts: SegmentationParts): Segmentation => {
+      const s = new Segmentation(parts);
+      for (const [n, name] of this.given) s.name(n, name);
+      return s;
+    };
+    return named(await refineSegmentation(start, engine, options, (parts) => named(parts).definition().definition));
+  }
+
+  /** Prepared rows per segment (the training rows a definition stores). */
+  private trainingSizes(): number[] {
+    const sizes = new Array<number>(this.k).fill(0);
+    for (let i = 0; i < this.assignment.length; i++) if (this.assignment[i] >= 0) sizes[this.assignment[i]]++;
+    return sizes;
+  }
+
   /** Everything needed to reproduce and apply this segmentation to new rows. */
   definition(options: { note?: string } = {}): DefinitionHandle {
     const opts = checkOptions(options, ['note'], 'definition');
@@ -473,7 +518,7 @@ export class Segmentation {
         centers: this.method === 'kmedoids' ? undefined : this.centers,
         mixture: this.mixture ? { weights: this.mixture.weights, covariances: this.mixture.covariances } : undefined,
         medoids: this.medoids ? [...this.medoids] : undefined,
-        segments: this.sizes.map((size, s) => ({ number: s + 1, size, ...names[s + 1] })),
+        segments: this.trainingSizes().map((size, s) => ({ number: s + 1, size, ...names[s + 1] })),
         training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
         evidence: this.evidence(),
         note: opts.note,
@@ -536,6 +581,10 @@ export class Segmentation {
       default:
         how = `Agglomerative hierarchy (${o.linkage} linkage, ${o.metric ?? 'euclidean'}) cut into ${this.k} segments, on ${rows}.`;
     }
+    if (this.population) {
+      const p = this.population;
+      how += ` Refined over the ${p.rows.toLocaleString('en-US')} rows of ${p.source} on ${p.engine} by ${p.iterations} Lloyd iteration(s) in SQL; sizes, within-SS and profiles are of those rows.`;
+    }
     const a = this.ruleAgreement();
     if (a === null) return how;
     const rule = ruleWords(a.rule);
@@ -549,6 +598,12 @@ export class Segmentation {
   // (ruleAgreement's count is in the definition's training.reproducedRows, not repeated here.)
   private evidence(): Record<string, unknown> {
     const out: Record<string, unknown> = { [this.objective.name]: this.objective.value };
+    if (this.population) {
+      out.tableRows = this.population.rows;
+      out.tableSizes = [...this.population.sizes];
+      out.tableUnscored = this.population.unscored;
+      out.refineIterations = this.population.iterations;
+    }
     if (this.silhouetteCache) out.averageSilhouette = this.silhouetteCache.average;
     if (this.stabilityCache) out.stabilityJaccard = [...this.stabilityCache.jaccard];
     return out;

@@ -112,7 +112,7 @@ export async function refineInDatabase(
   if (definition?.method?.name !== 'kmeans' || definition.rule !== 'nearest-center' || definition.metric !== 'euclidean') {
     throw new KinsortError(
       `${WHERE}: only k-means segments can be refined over a table (Lloyd iterations move each centre to its segment's mean); ` +
-        `this definition is ${definition?.method?.name === 'kmedoids' ? 'k-medoids, whose medoids are rows' : definition?.method?.name === 'hierarchy' ? 'a hierarchy cut' : `a ${String(definition?.method?.name)} definition`}. Fit k-means on the sample to refine it.`,
+        `this definition is of method ${JSON.stringify(String(definition?.method?.name))}, rule ${JSON.stringify(String(definition?.rule))}. Fit k-means on the sample to refine it.`,
       'not-supported',
     );
   }
