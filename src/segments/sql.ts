@@ -11,6 +11,8 @@
 //   (x − centre) / spread × weight, in the JavaScript's order of operations;
 // - the nearest centre by the stored metric, ties to the lower segment number; `far` is 1 when the
 //   row is beyond every segment's stored `farBeyond`.
+// In DuckDB a cell stored as DOUBLE or as an integer is read as its number directly, which is the
+// number its printed text gives (test/engines/duckdb-stored-numbers.test.ts), at a fraction of the cost.
 // The text grows linearly with k (the minimum of the k distances is one LEAST, then one CASE).
 import { KinsortError } from '../core/errors';
 import { checkOptions } from '../core/options';
@@ -184,15 +186,29 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const carried = carry.map((_, i) => carriedName(i, d));
   // The id and the carried columns, as every layer after the first hands them on.
   const pass = [id, ...carried];
+  // Numeric columns stored as numbers skip the printing and parsing where the dialect can tell (DuckDB).
+  const native = decimalMark === '.' ? d.nativeNumber : undefined;
+  const n = (j: number) => q(`${PREFIX}n_${j + 1}`);
+  const raw = (c: PreparedColumn, j: number) => (native && c.type === 'numeric' ? [n(j)] : []);
 
+  // A stored number is not printed (its text would not be read): the engine computes a layer's
+  // every column for every row, whatever the next layer's CASE takes.
+  const cellText = (c: PreparedColumn, j: number) => {
+    const text = d.asText(q(c.name), c.name);
+    return raw(c, j).length && native ? `CASE WHEN ${native(q(c.name)).test} THEN NULL ELSE ${text} END` : text;
+  };
   // 1. Each used cell as text, and the same text without leading/trailing ASCII spaces.
   const cells: Layer = {
     name: `${PREFIX}cells`,
-    columns: [id, ...carry.map((c, i) => `${q(c)} AS ${carried[i]}`), ...cols.map((c, j) => `${d.asText(q(c.name), c.name)} AS ${r(j)}`)],
+    columns: [
+      id,
+      ...carry.map((c, i) => `${q(c)} AS ${carried[i]}`),
+      ...cols.flatMap((c, j) => [...raw(c, j).map((x) => `${q(c.name)} AS ${x}`), `${cellText(c, j)} AS ${r(j)}`]),
+    ],
   };
   const trimmed: Layer = {
     name: `${PREFIX}trimmed`,
-    columns: [...pass, ...cols.flatMap((_, j) => [r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`])],
+    columns: [...pass, ...cols.flatMap((c, j) => [...raw(c, j), r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`])],
   };
   // 2. Each used cell as a number (numeric) or a level code (others); NULL where assign refuses.
   const missing = (j: number) => `${r(j)} IS NULL OR ${t(j)} IN (${['', ...markers].map((m) => d.quoteString(m)).join(', ')})`;
@@ -203,7 +219,10 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   function valueSql(c: PreparedColumn, j: number): string {
     if (c.type === 'numeric') {
       const fill = typeof c.fill === 'number' && prep.missing === 'median' ? d.doubleLiteral(c.fill) : 'NULL';
-      return `CASE WHEN ${missing(j)} THEN ${fill} ELSE ${d.numberFromText(t(j), decimalMark)} END`;
+      const byText = `CASE WHEN ${missing(j)} THEN ${fill} ELSE ${d.numberFromText(t(j), decimalMark)} END`;
+      if (!native) return byText;
+      const stored = native(n(j));
+      return `CASE WHEN ${stored.test} THEN ${stored.value} ELSE ${byText} END`;
     }
     if (c.type !== 'categorical' && c.type !== 'binary' && c.type !== 'ordinal') {
       throw new KinsortError(`toSql: column "${c.name}" has type "${(c as PreparedColumn).type}", which has no SQL form.`, 'not-supported');
