@@ -15,7 +15,9 @@ if (!fs.existsSync(path.join(root, 'dist', 'index.js'))) {
 }
 /** @type {typeof import('../src/index')} */
 const kinsort = require(path.join(root, 'dist', 'index.js'));
-const { study, readCsvFile, plottingScript, loadDefinition } = kinsort;
+const { study, readCsvFile, loadDefinition } = kinsort;
+/** @type {typeof import('../src/internal')} */
+const { plottingScript } = require(path.join(root, 'dist', 'internal.js'));
 
 /**
  * @param {string} name

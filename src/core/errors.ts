@@ -19,7 +19,8 @@ export type ErrorCode =
   | 'too-large'
   | 'bad-dissimilarity'
   | 'bad-definition'
-  | 'not-supported';
+  | 'not-supported'
+  | 'query-failed';
 
 export class KinsortError extends Error {
   readonly code: ErrorCode;

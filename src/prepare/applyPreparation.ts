@@ -8,6 +8,7 @@ import { readIds, rowText } from './ids';
 import { applyMissingPolicy } from './missing';
 import { parseNumericColumn } from './values';
 import { PREPARATION_VERSION, type Preparation, type PreparedData } from './types';
+import { upgradePreparation } from './upgrade';
 import { TEXT_RULE } from '../table/cells';
 
 export interface ApplyPreparationOptions {
@@ -71,7 +72,9 @@ export function readUnderSchema(p: Preparation, input: unknown, where: string): 
  * indicators to 0 and is listed in report.unseenLevels; missing cells follow the stored policy
  * ('median' imputes the stored training values).
  */
-export function applyPreparation(preparation: Preparation, input: Table | unknown, options?: ApplyPreparationOptions): PreparedData {
+export function applyPreparation(given: Preparation, input: Table | unknown, options?: ApplyPreparationOptions): PreparedData {
+  // A version-2 preparation (key `centre`) is read as version 3 (key `center`): the same numbers.
+  const preparation = upgradePreparation(given);
   checkPreparation(preparation);
   const opts = checkOptions(options, ['id'], 'applyPreparation');
   const table = readUnderSchema(preparation, input, 'applyPreparation');

@@ -1,4 +1,4 @@
-// Fitting one used column: its levels, centre and spread from the kept training rows.
+// Fitting one used column: its levels, center and spread from the kept training rows.
 import { KinsortError } from '../core/errors';
 import { isTrueFalse, levelKey, sortLevels, type DecimalMark } from '../table/cells';
 import type { Cell } from '../table/types';
@@ -36,11 +36,11 @@ export function fitColumn(column: UsedColumn, cells: readonly Cell[], kept: Int3
     }
     const [lo, hi] = minMax(values);
     if (!(hi > lo)) return null;
-    const { centre, spread, spreadKind } = scaleOf(values, ctx.scale, lo, hi, name, ctx.notes);
+    const { center, spread, spreadKind } = scaleOf(values, ctx.scale, lo, hi, name, ctx.notes);
     // Values near the ends of double precision overflow (1e300) or underflow (1e-300) in the
     // spread; scaled by it every row would silently become 0 or NaN.
     if (
-      !Number.isFinite(centre) ||
+      !Number.isFinite(center) ||
       !Number.isFinite(spread) ||
       !(spread > 0) ||
       !Number.isFinite(lo / spread) ||
@@ -48,7 +48,7 @@ export function fitColumn(column: UsedColumn, cells: readonly Cell[], kept: Int3
     ) {
       throw new KinsortError(
         `column "${name}": its values run from ${lo} to ${hi}, too large or too small in size to scale ` +
-          `in double precision (the ${spreadKind === 'none' ? 'centre' : spreadKind} comes out as ${spreadKind === 'none' ? centre : spread}); ` +
+          `in double precision (the ${spreadKind === 'none' ? 'centre' : spreadKind} comes out as ${spreadKind === 'none' ? center : spread}); ` +
           `multiply the column by a power of ten first.`,
         'bad-input',
       );
@@ -58,7 +58,7 @@ export function fitColumn(column: UsedColumn, cells: readonly Cell[], kept: Int3
       ...base,
       levels: levels ? [...levels] : null,
       levelMatch: levels ? 'exact' : null,
-      centre: centre + 0,
+      center: center + 0,
       spread,
       spreadKind,
       features: [name],
@@ -68,7 +68,7 @@ export function fitColumn(column: UsedColumn, cells: readonly Cell[], kept: Int3
     const trueFalse = trueFalseLevels(cells, kept);
     if (trueFalse === 'constant') return null;
     if (trueFalse !== null) {
-      return { ...base, levels: trueFalse, levelMatch: 'ascii-case', centre: 0, spread: 1, spreadKind: 'none', features: [name] };
+      return { ...base, levels: trueFalse, levelMatch: 'ascii-case', center: 0, spread: 1, spreadKind: 'none', features: [name] };
     }
   }
   const present = new Set<string>();
@@ -89,9 +89,9 @@ export function fitColumn(column: UsedColumn, cells: readonly Cell[], kept: Int3
     }
     const plain = levels[0] === '0' && levels[1] === '1';
     const feature = plain ? name : `${name}=${levels[1]}`;
-    return { ...exact, levels, centre: 0, spread: 1, spreadKind: 'none', features: [feature] };
+    return { ...exact, levels, center: 0, spread: 1, spreadKind: 'none', features: [feature] };
   }
-  return { ...exact, levels, centre: 0, spread: 1, spreadKind: 'none', features: levels.map((l) => `${name}=${l}`) };
+  return { ...exact, levels, center: 0, spread: 1, spreadKind: 'none', features: levels.map((l) => `${name}=${l}`) };
 }
 
 /**
@@ -127,28 +127,28 @@ function scaleOf(
   hi: number,
   name: string,
   notes: string[],
-): Pick<PreparedColumn, 'centre' | 'spread' | 'spreadKind'> {
+): Pick<PreparedColumn, 'center' | 'spread' | 'spreadKind'> {
   switch (scale) {
     case 'none':
-      return { centre: 0, spread: 1, spreadKind: 'none' };
+      return { center: 0, spread: 1, spreadKind: 'none' };
     case 'zscore':
-      return { centre: mean(values), spread: sampleSd(values), spreadKind: 'sd' };
+      return { center: mean(values), spread: sampleSd(values), spreadKind: 'sd' };
     case 'minmax':
-      return { centre: lo, spread: hi - lo, spreadKind: 'range' };
+      return { center: lo, spread: hi - lo, spreadKind: 'range' };
     case 'robust': {
       const sorted = sortedCopy(values);
-      const centre = quantileSorted(sorted, 0.5);
+      const center = quantileSorted(sorted, 0.5);
       const iqr = quantileSorted(sorted, 0.75) - quantileSorted(sorted, 0.25);
-      if (iqr > 0) return { centre, spread: iqr, spreadKind: 'iqr' };
-      const mad = scaledMad(values, centre);
+      if (iqr > 0) return { center, spread: iqr, spreadKind: 'iqr' };
+      const mad = scaledMad(values, center);
       if (mad > 0) {
         notes.push(`Column "${name}": interquartile range is 0, so robust scaling divides by the MAD (×1.4826) instead.`);
-        return { centre, spread: mad, spreadKind: 'mad' };
+        return { center, spread: mad, spreadKind: 'mad' };
       }
       notes.push(
         `Column "${name}": interquartile range and MAD are both 0, so robust scaling divides by the ` + `standard deviation instead.`,
       );
-      return { centre, spread: sampleSd(values), spreadKind: 'sd' };
+      return { center, spread: sampleSd(values), spreadKind: 'sd' };
     }
   }
 }

@@ -47,13 +47,13 @@ export function transformRows(input: TransformInput): TransformOutput {
         case 'numeric': {
           const v = numericCell(cell, spec.name, spec.log, where, row, input.decimalMark);
           codes[r] = v;
-          data[at] = ((v - spec.centre) / spec.spread) * spec.weight;
+          data[at] = ((v - spec.center) / spec.spread) * spec.weight;
           break;
         }
         case 'ordinal': {
           const k = requireLevel(cell, codesOf, spec.name, 'ordinal', where, row);
           codes[r] = k;
-          data[at] = ((k - spec.centre) / spec.spread) * spec.weight;
+          data[at] = ((k - spec.center) / spec.spread) * spec.weight;
           break;
         }
         case 'binary': {

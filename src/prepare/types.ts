@@ -5,8 +5,12 @@ import type { MixedTable } from '../core/mixed';
 import type { DecimalMark } from '../table/cells';
 import type { Cell, DeclaredType } from '../table/types';
 
-/** Version of the Preparation format; 2 stores the schema (text rule, missing markers, decimal mark, level matching). */
-export const PREPARATION_VERSION = 2;
+/**
+ * Version of the Preparation format; 2 stores the schema (text rule, missing markers, decimal mark,
+ * level matching); 3 spells each column's subtracted value `center` (2 said `centre`; read and
+ * translated by upgrade.ts).
+ */
+export const PREPARATION_VERSION = 3;
 
 export type ScaleMethod = 'none' | 'zscore' | 'robust' | 'minmax';
 export type MissingPolicy = 'refuse' | 'drop' | 'median';
@@ -56,7 +60,7 @@ export interface PreparedColumn {
    */
   levelMatch: 'exact' | 'ascii-case' | null;
   /** numeric / ordinal: subtracted after log (ordinal: from the rank 0..L-1). 0 for others. */
-  centre: number;
+  center: number;
   /** numeric / ordinal: divisor after centring. 1 for others. */
   spread: number;
   /** What `spread` is: sd, iqr, mad (×1.4826), range, or none (1). */
@@ -69,7 +73,7 @@ export interface PreparedColumn {
 
 export interface Preparation {
   format: 'kinsort-preparation';
-  version: 2;
+  version: 3;
   /** The text rule cells are read with (table/cells.ts; docs/stored-schema.md). */
   textRule: 'kinsort-text-1';
   /** Texts meaning missing besides an empty cell, compared after trimming ASCII spaces. */

@@ -8,10 +8,11 @@ export const DEFINITION_KIND = 'kinsort segment definition';
 /**
  * Bumped whenever a reader of an older version could misread the file. Format 2 stores the schema
  * (text rule, missing markers, decimal mark, level matching: preparation version 2) and how many
- * training rows the rule reproduces; format 1 files are refused with a message (they cannot be
- * migrated without guessing how their cells were read).
+ * training rows the rule reproduces; format 3 spells every key `center` (format 2's preparation
+ * said `centre`) and is otherwise the same, so format-2 files are read and translated. Format 1
+ * files are refused with a message (they cannot be migrated without guessing how their cells were read).
  */
-export const DEFINITION_FORMAT_VERSION = 2;
+export const DEFINITION_FORMAT_VERSION = 3;
 
 /** Where the training rows' segments in the file come from. */
 export type TrainingLabels = 'fit' | 'rule';

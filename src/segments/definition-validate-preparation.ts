@@ -29,7 +29,7 @@ export const PREPARATION_KEYS = [
   'version',
 ];
 export const PREPARED_COLUMN_KEYS = [
-  'centre',
+  'center',
   'features',
   'fill',
   'levelMatch',
@@ -97,7 +97,7 @@ export function checkCaseClashes(names: readonly string[], where: string): void 
   }
 }
 
-/** Throws when `p` is not a well-formed preparation (format 2) giving exactly `features`. */
+/** Throws when `p` is not a well-formed preparation (version 3; a version 2 one is upgraded first) giving exactly `features`. */
 export function checkStoredPreparation(p: Record<string, unknown>, features: readonly string[], where: string): void {
   const at = `${where}: preparation`;
   if (p.format !== 'kinsort-preparation') fail(at, `key "format" is ${JSON.stringify(p.format)}; expected "kinsort-preparation".`);
@@ -145,7 +145,7 @@ export function checkStoredPreparation(p: Record<string, unknown>, features: rea
     if (col.log && type !== 'numeric') fail(c, `key "log" is true, but log1p applies to numeric columns only (this one is ${type}).`);
     if (!SPREAD_KINDS.includes(col.spreadKind as string))
       fail(c, `key "spreadKind" is ${JSON.stringify(col.spreadKind)}; expected one of ${SPREAD_KINDS.join(', ')}.`);
-    for (const key of ['weight', 'centre', 'spread']) {
+    for (const key of ['weight', 'center', 'spread']) {
       if (!isFiniteNumber(col[key])) fail(c, `key "${key}" must be a finite number.`);
     }
     if (!((col.weight as number) > 0))
@@ -181,16 +181,16 @@ export function checkStoredPreparation(p: Record<string, unknown>, features: rea
         }
       }
       if (type === 'binary' || type === 'categorical') {
-        if (col.centre !== 0 || col.spread !== 1 || col.spreadKind !== 'none') {
-          fail(c, `a ${type} column is coded 0/1 unscaled: "centre" must be 0, "spread" 1 and "spreadKind" "none".`);
+        if (col.center !== 0 || col.spread !== 1 || col.spreadKind !== 'none') {
+          fail(c, `a ${type} column is coded 0/1 unscaled: "center" must be 0, "spread" 1 and "spreadKind" "none".`);
         }
       }
       if (type === 'ordinal') {
         const top = (levels as string[]).length - 1;
-        if ((col.centre as number) < 0 || (col.centre as number) > top) {
+        if ((col.center as number) < 0 || (col.center as number) > top) {
           fail(
             c,
-            `key "centre" is ${col.centre}, outside the ranks 0..${top} of the ${top + 1} ordinal levels; the levels and the stored centre contradict each other.`,
+            `key "center" is ${col.center}, outside the ranks 0..${top} of the ${top + 1} ordinal levels; the levels and the stored center contradict each other.`,
           );
         }
       }

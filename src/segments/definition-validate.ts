@@ -12,6 +12,7 @@ import {
   SegmentDefinition,
   TRAINING_LABELS,
 } from './definition-types';
+import { upgradePreparation } from '../prepare/upgrade';
 import { kinsortVersion } from './definition-version';
 import { checkName, checkStoredPreparation, onlyKeys } from './definition-validate-preparation';
 import { checkTrainingDistributions } from './definition-validate-distributions';
@@ -115,6 +116,21 @@ function numbers(v: unknown, length: number, where: string): number[] {
 }
 
 /** Parse text (or take an object) and validate it as a definition, rebuilt in the file's key order. */
+/**
+ * The oldest format read. Format 2 differs from 3 only in spelling each prepared column's
+ * subtracted value `centre` (its preparation is version 2); it is translated on reading.
+ */
+export const OLDEST_READ_FORMAT = 2;
+
+/** The stored preparation as version 3: a format-2 file must hold version 2, which is upgraded. */
+function storedPreparation(p: Record<string, unknown>, format: number, where: string): Record<string, unknown> {
+  if (format !== 2) return p;
+  if (p.version !== 2) {
+    fail(`${where}: preparation`, `key "version" is ${JSON.stringify(p.version)}; a format-2 definition holds preparation version 2.`);
+  }
+  return upgradePreparation(p);
+}
+
 export function readDefinition(source: string | object, where = 'loadDefinition'): SegmentDefinition {
   let raw: unknown = source;
   if (typeof source === 'string') {
@@ -138,7 +154,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       `key "writtenBy" holds a control character (${JSON.stringify(writtenBy).slice(0, 80)}); it names a program version on one line.`,
     );
   if (!Number.isInteger(version) || version < 1) fail(where, `key "formatVersion" is ${version}; expected a whole number ≥ 1.`);
-  if (version < DEFINITION_FORMAT_VERSION) {
+  if (version < OLDEST_READ_FORMAT) {
     fail(
       where,
       `written by ${writtenBy}, format ${version}, which stores no schema (how cells were read: missing markers, ` +
@@ -163,7 +179,7 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   noPrototypeKeys(methodOptions, `${where}: method.options`);
   const rule = oneOf(need(d, 'rule', 'string', where), ASSIGNMENT_RULES, 'rule', where);
   const metric = oneOf(need(d, 'metric', 'string', where), DEFINITION_METRICS, 'metric', where);
-  const preparation = need(d, 'preparation', 'object', where);
+  const preparation = storedPreparation(need(d, 'preparation', 'object', where), version, where);
   const features: unknown[] = need(d, 'features', 'array', where);
   features.forEach((f, j) => {
     if (typeof f !== 'string') fail(where, `features: entry ${j + 1} is ${typeName(f)}; expected a feature name.`);
@@ -231,7 +247,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       : checkTrainingDistributions(d.trainingDistributions, dims, `${where}: trainingDistributions`);
   return {
     kind: DEFINITION_KIND,
-    formatVersion: version,
+    // A format-2 file is held as format 3 once read (its preparation's `centre` keys are now
+    // `center`), and is written back as format 3.
+    formatVersion: DEFINITION_FORMAT_VERSION,
     writtenBy,
     note,
     method: { name: methodName, options: sortedKeys(methodOptions) as { [key: string]: JsonValue } },

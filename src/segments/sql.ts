@@ -11,8 +11,6 @@
 //   (x − centre) / spread × weight, in the JavaScript's order of operations;
 // - the nearest centre by the stored metric, ties to the lower segment number; `far` is 1 when the
 //   row is beyond every segment's stored `farBeyond`.
-// In DuckDB a cell stored as DOUBLE or as an integer is read as its number directly, which is the
-// number its printed text gives (test/engines/duckdb-stored-numbers.test.ts), at a fraction of the cost.
 // The text grows linearly with k (the minimum of the k distances is one LEAST, then one CASE).
 import { KinsortError } from '../core/errors';
 import { checkOptions } from '../core/options';
@@ -20,9 +18,10 @@ import type { DialectName, SqlDialect } from '../engines/dialect';
 import { dialectNamed } from '../engines/dialects';
 import type { SqlEngine } from '../engines/engine';
 import { checkSqlText, commentText } from '../engines/sql-safety';
-import type { PreparedColumn, Preparation } from '../prepare/types';
+import { tableReference } from '../engines/source';
+import type { Preparation } from '../prepare/types';
 import type { SegmentDefinition } from './definition-types';
-import { levelMatchOf, storedTextRule } from './sql-markers';
+import { beyondColumn, featureColumn, PREFIX, preparedFeatureLayers, renderLayers, type Layer } from './sql-features';
 
 export interface SqlOptions {
   /**
@@ -56,34 +55,7 @@ export const SQL_MAX_FIGURES = 400_000;
 /** SQLite: the distance is a chain of one addition per feature, within its depth limit of 1000. */
 export const SQLITE_MAX_FEATURES = 900;
 
-const PREFIX = 'kinsort_';
 const OUTPUT_NAMES = ['segment', 'distance', 'far'];
-
-interface Layer {
-  name: string;
-  columns: string[];
-}
-
-/** The table as quoted parts; anything that is not a plain (qualified) name is refused. */
-function tableReference(table: SqlOptions['table'], dialect: SqlDialect): string {
-  const parts = typeof table === 'string' ? table.split('.') : Array.isArray(table) ? [...table] : null;
-  const shown = JSON.stringify(table).slice(0, 120);
-  if (parts === null || parts.length < 1 || parts.length > 3 || parts.some((p) => typeof p !== 'string' || p.trim() === '')) {
-    throw new KinsortError(
-      `toSql: the table ${shown} is not a name: give "table", "schema.table" or "catalog.schema.table", or the parts as an array when a part holds a dot.`,
-      'bad-argument',
-    );
-  }
-  for (const p of parts) {
-    if (/[\u0000-\u001f\u007f-\u009f\u2028\u2029]/.test(p) || (typeof table === 'string' && /["`]/.test(p))) {
-      throw new KinsortError(
-        `toSql: the table ${shown} holds quotes or control characters; give the parts of a qualified name unquoted, e.g. { table: ['sales', 'riders'] }, and kinsort quotes each one.`,
-        'bad-argument',
-      );
-    }
-  }
-  return parts.map((p) => dialect.quoteIdentifier(p)).join('.');
-}
 
 function chooseDialect(opts: SqlOptions): SqlDialect {
   if (opts.engine !== undefined && opts.dialect !== undefined && opts.engine.dialect !== opts.dialect) {
@@ -93,25 +65,6 @@ function chooseDialect(opts: SqlOptions): SqlDialect {
     );
   }
   return dialectNamed(opts.engine?.dialect ?? opts.dialect ?? 'duckdb');
-}
-
-/**
- * log1p(v) for v ≥ 0, the same way in every engine: with u = 1 + v rounded, v when u = 1, else
- * ln(u) · (v / (u − 1)). The rounding of u cancels (Goldberg 1991, "What every computer scientist
- * should know about floating-point arithmetic", theorem 4): a few units in the last place of
- * Math.log1p, where LN(1 + v) would lose every digit for v near 1e-17.
- */
-function logOnePlus(v: string, u: string, d: SqlDialect): string {
-  return `CASE WHEN ${u} = ${d.doubleLiteral(1)} THEN ${v} ELSE ln(${u}) * (${v} / (${u} - ${d.doubleLiteral(1)})) END`;
-}
-
-/** (v − centre) / spread × weight, in the same order of operations as the JavaScript. */
-function scaled(value: string, col: PreparedColumn, d: SqlDialect): string {
-  let e = value;
-  if (col.centre !== 0) e = d.sub(e, col.centre);
-  if (col.spread !== 1) e = d.div(e, col.spread);
-  if (col.weight !== 1) e = d.mul(e, col.weight);
-  return e;
 }
 
 export function definitionToSql(definition: SegmentDefinition, options: SqlOptions): string {
@@ -167,17 +120,11 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     }
   }
 
-  const { missingMarkers: markers, decimalMark } = storedTextRule(prep);
   const q = (name: string) => d.quoteIdentifier(name);
   const id = q(idColumn);
-  const r = (j: number) => q(`${PREFIX}r_${j + 1}`);
-  const t = (j: number) => q(`${PREFIX}t_${j + 1}`);
-  const v = (j: number) => q(`${PREFIX}v_${j + 1}`);
-  const u = (j: number) => q(`${PREFIX}u_${j + 1}`);
-  const f = (j: number) => q(`${PREFIX}f_${j + 1}`);
+  const f = (j: number) => featureColumn(j, d);
   const dist = (c: number) => q(`${PREFIX}d_${c + 1}`);
   const nearest = q(`${PREFIX}m`);
-  const cols = prep.columns;
   const carry = opts.carry ?? [];
   if (!Array.isArray(carry) || carry.some((c) => typeof c !== 'string' || c === '')) {
     throw new KinsortError('toSql: carry must be a list of column names.', 'bad-option');
@@ -186,91 +133,8 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const carried = carry.map((_, i) => carriedName(i, d));
   // The id and the carried columns, as every layer after the first hands them on.
   const pass = [id, ...carried];
-  // Numeric columns stored as numbers skip the printing and parsing where the dialect can tell (DuckDB).
-  const native = decimalMark === '.' ? d.nativeNumber : undefined;
-  const n = (j: number) => q(`${PREFIX}n_${j + 1}`);
-  const raw = (c: PreparedColumn, j: number) => (native && c.type === 'numeric' ? [n(j)] : []);
-
-  // A stored number is not printed (its text would not be read): the engine computes a layer's
-  // every column for every row, whatever the next layer's CASE takes.
-  const cellText = (c: PreparedColumn, j: number) => {
-    const text = d.asText(q(c.name), c.name);
-    return raw(c, j).length && native ? `CASE WHEN ${native(q(c.name)).test} THEN NULL ELSE ${text} END` : text;
-  };
-  // 1. Each used cell as text, and the same text without leading/trailing ASCII spaces.
-  const cells: Layer = {
-    name: `${PREFIX}cells`,
-    columns: [
-      id,
-      ...carry.map((c, i) => `${q(c)} AS ${carried[i]}`),
-      ...cols.flatMap((c, j) => [...raw(c, j).map((x) => `${q(c.name)} AS ${x}`), `${cellText(c, j)} AS ${r(j)}`]),
-    ],
-  };
-  const trimmed: Layer = {
-    name: `${PREFIX}trimmed`,
-    columns: [...pass, ...cols.flatMap((c, j) => [...raw(c, j), r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`])],
-  };
-  // 2. Each used cell as a number (numeric) or a level code (others); NULL where assign refuses.
-  const missing = (j: number) => `${r(j)} IS NULL OR ${t(j)} IN (${['', ...markers].map((m) => d.quoteString(m)).join(', ')})`;
-  const values: Layer = {
-    name: `${PREFIX}values`,
-    columns: [...pass, ...cols.map((c, j) => `${valueSql(c, j)} AS ${v(j)}`)],
-  };
-  function valueSql(c: PreparedColumn, j: number): string {
-    if (c.type === 'numeric') {
-      const fill = typeof c.fill === 'number' && prep.missing === 'median' ? d.doubleLiteral(c.fill) : 'NULL';
-      const byText = `CASE WHEN ${missing(j)} THEN ${fill} ELSE ${d.numberFromText(t(j), decimalMark)} END`;
-      if (!native) return byText;
-      const stored = native(n(j));
-      return `CASE WHEN ${stored.test} THEN ${stored.value} ELSE ${byText} END`;
-    }
-    if (c.type !== 'categorical' && c.type !== 'binary' && c.type !== 'ordinal') {
-      throw new KinsortError(`toSql: column "${c.name}" has type "${(c as PreparedColumn).type}", which has no SQL form.`, 'not-supported');
-    }
-    const levels = c.levels ?? [];
-    const fillCode = typeof c.fill === 'string' && prep.missing === 'median' ? levels.indexOf(c.fill) : -2;
-    const whenMissing = fillCode >= 0 ? String(fillCode) : c.type === 'categorical' && fillCode === -1 ? '-1' : 'NULL';
-    // Exact text; a true/false binary column matches its two levels in any ASCII letter case.
-    const caseless = levelMatchOf(c) === 'ascii-case';
-    const cell = caseless ? d.lowerAscii(r(j)) : r(j);
-    const whens = levels.map(
-      (l, i) => `WHEN ${cell} = ${d.quoteString(caseless ? l.replace(/[A-Z]/g, (x) => x.toLowerCase()) : l)} THEN ${i}`,
-    );
-    const unseen = c.type === 'categorical' ? '-1' : 'NULL';
-    return `CASE WHEN ${missing(j)} THEN ${whenMissing} ${whens.join(' ')} ELSE ${unseen} END`;
-  }
-  // 3. 1 + v for logged columns (NULL for a negative value, which assign refuses under log1p).
-  const logs: Layer = {
-    name: `${PREFIX}logs`,
-    columns: [
-      ...pass,
-      ...cols.flatMap((c, j) =>
-        c.type === 'numeric' && c.log
-          ? [v(j), `CASE WHEN ${v(j)} >= ${d.doubleLiteral(0)} THEN ${d.doubleLiteral(1)} + ${v(j)} END AS ${u(j)}`]
-          : [v(j)],
-      ),
-    ],
-  };
-  // 4. The prepared features, in the definition's feature order.
-  const featureSql: string[] = [];
-  for (const [j, c] of cols.entries()) {
-    if (c.type === 'numeric') featureSql.push(scaled(c.log ? logOnePlus(v(j), u(j), d) : v(j), c, d));
-    else if (c.type === 'categorical') {
-      const one = d.doubleLiteral(c.weight);
-      const zero = d.doubleLiteral(0);
-      (c.levels ?? []).forEach((_, i) =>
-        featureSql.push(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = ${i} THEN ${one} ELSE ${zero} END`),
-      );
-    } else if (c.type === 'binary')
-      featureSql.push(
-        scaled(`CASE WHEN ${v(j)} IS NULL THEN NULL WHEN ${v(j)} = 1 THEN ${d.doubleLiteral(1)} ELSE ${d.doubleLiteral(0)} END`, c, d),
-      );
-    else featureSql.push(scaled(`(${v(j)} + ${d.doubleLiteral(0)})`, c, d));
-  }
-  if (featureSql.length !== dims) {
-    throw new KinsortError(`toSql: the preparation gives ${featureSql.length} features but the definition has ${dims}.`, 'bad-definition');
-  }
-  const features: Layer = { name: `${PREFIX}features`, columns: [...pass, ...featureSql.map((e, j) => `${e} AS ${f(j)}`)] };
+  // 1–4. The stored preparation as SQL: the prepared features, in the definition's feature order.
+  const prepared = preparedFeatureLayers(prep, d, dims, { first: [id, ...carry.map((c, i) => `${q(c)} AS ${carried[i]}`)], later: pass });
   // 5. Distance to every centre: squared for Euclidean (the same order of additions as assign).
   const euclidean = definition.metric === 'euclidean';
   const bounded = Number.isFinite(d.featureBound);
@@ -280,16 +144,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       'not-supported',
     );
   }
-  const big = q(`${PREFIX}beyond`);
-  // Rows with a feature beyond the dialect's bound (PostgreSQL) get NULL distances (see caveats).
-  const guard = (): Layer => ({
-    name: `${PREFIX}guard`,
-    columns: [
-      ...pass,
-      ...featureSql.map((_, j) => f(j)),
-      `CASE WHEN ${featureSql.map((_, j) => `abs(${f(j)}) > ${d.doubleLiteral(d.featureBound)}`).join(' OR ')} THEN 1 ELSE 0 END AS ${big}`,
-    ],
-  });
+  const big = beyondColumn(d);
   const distances: Layer = {
     name: `${PREFIX}distances`,
     columns: [
@@ -335,11 +190,7 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far.`,
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
-  const sql =
-    header.join('\n') +
-    '\n' +
-    render([cells, trimmed, values, logs, features, ...(bounded ? [guard()] : []), distances, least], final, from, d) +
-    '\n';
+  const sql = header.join('\n') + '\n' + renderLayers([...prepared, distances, least], final, from, d) + '\n';
   const cap = opts.maxQueryBytes ?? d.maxQueryBytes;
   if (cap !== undefined) {
     if (typeof cap !== 'number' || !(cap > 0))
@@ -354,22 +205,6 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
     }
   }
   return sql;
-}
-
-/** The layers as WITH clauses, or (ClickHouse 18) as nested SELECTs. */
-function render(layers: Layer[], final: Layer, from: string, d: SqlDialect): string {
-  const fence = d.layerFence === 'offset' ? '\nOFFSET 0' : '';
-  const select = (l: Layer, source: string, last = false) => `SELECT\n  ${l.columns.join(',\n  ')}\nFROM ${source}${last ? '' : fence}`;
-  if (d.withClause) {
-    const as = d.layerFence === 'materialized' ? 'AS MATERIALIZED' : 'AS';
-    const parts = layers.map(
-      (l, i) => `${d.quoteIdentifier(l.name)} ${as} (\n${select(l, i === 0 ? from : d.quoteIdentifier(layers[i - 1].name))}\n)`,
-    );
-    return `WITH ${parts.join(',\n')}\n${select(final, d.quoteIdentifier(layers[layers.length - 1].name), true)}`;
-  }
-  let source = from;
-  for (const l of layers) source = `(\n${select(l, source)}\n) AS ${d.quoteIdentifier(l.name)}`;
-  return select(final, source, true);
 }
 
 /** The name a carried column has in the scoring SQL's output: `kinsort_carry_1`, … */

@@ -418,7 +418,7 @@ export class Segmentation {
     };
   }
 
-  /** One sentence saying how this segmentation was made. */
+  /** @internal One sentence saying how this segmentation was made (the write-up and cards use it). */
   describeMethod(): string {
     const o = this.options;
     const rows = `${this.ids.length} rows, ${this.data.featureNames.length} prepared features (${this.data.preparation.scale} scaling)`;

@@ -17,7 +17,7 @@ export interface Showable {
   save(path: string): string;
 }
 
-/** Attach show / html / save to a plain result; the view is built once, on first use. */
+/** @internal Attach show / html / save to a plain result; the view is built once, on first use. */
 export function showable<T extends object>(value: T, makeView: () => View): T & Showable {
   let cached: View | undefined;
   const view = (): View => (cached ??= makeView());

@@ -22,7 +22,7 @@ export interface AskTheHierarchyInstead {
   readonly __kinsortAdvice: 'ask the hierarchy (study.agglomerate({ method })) for this';
 }
 
-/** Install throwing members named `names` on `proto`; `advice(name, self)` is the whole message. */
+/** @internal Install throwing members named `names` on `proto`; `advice(name, self)` is the whole message. */
 export function installWrongStepGuards<T>(proto: T, names: readonly string[], advice: (name: string, self: T) => string): void {
   for (const name of names) {
     Object.defineProperty(proto as object, name, {

@@ -163,11 +163,11 @@ describe('kinsort errors and help', () => {
     const method = kinsort('fit', train, '--id', 'rider', '--use', 'trips', '--method', 'kmean', '--k', '2', '--out', 'x.json');
     oneLineNoStack(method);
     expect(method.stderr).toMatch(/Did you mean "kmeans"\?/);
-    const damaged = readFileSync(join(dir, 'def.json'), 'utf8').replace('"formatVersion": 2', '"formatVersion": 7');
+    const damaged = readFileSync(join(dir, 'def.json'), 'utf8').replace('"formatVersion": 3', '"formatVersion": 7');
     writeFileSync(join(dir, 'newer.json'), damaged);
     const newer = kinsort('sql', 'newer.json', '--table', 't');
     oneLineNoStack(newer);
-    expect(newer.stderr).toMatch(/format 7; this kinsort .* reads formats up to 2 — upgrade/);
+    expect(newer.stderr).toMatch(/format 7; this kinsort .* reads formats up to 3 — upgrade/);
     const gone = kinsort('assign', 'nothing.json', fresh);
     oneLineNoStack(gone);
     expect(gone.stderr).toMatch(/cannot read "nothing\.json"/);

@@ -25,6 +25,7 @@ const LAYER_RANK: ReadonlyMap<string, number> = new Map([
   ['study', 10],
   ['cli', 11],
   ['index.ts', 12],
+  ['internal.ts', 12],
 ]);
 
 function sourceFiles(folder: string): string[] {

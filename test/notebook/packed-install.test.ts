@@ -143,7 +143,17 @@ describe('the packed tarball installed into a fresh project', () => {
     expect(bytes).toBeLessThan(15e6);
     // The tarball carries the build, the command, the licence, and nothing of the repository's tooling.
     const shipped = path.join(project, 'node_modules', 'kinsort');
-    for (const f of ['dist/index.js', 'dist/index.mjs', 'dist/index.d.ts', 'bin/kinsort.js', 'LICENSE', 'README.md'])
+    for (const f of [
+      'dist/index.js',
+      'dist/index.mjs',
+      'dist/index.d.ts',
+      'dist/internal.js',
+      'dist/internal.mjs',
+      'dist/internal.d.ts',
+      'bin/kinsort.js',
+      'LICENSE',
+      'README.md',
+    ])
       expect(fs.existsSync(path.join(shipped, f)), f).toBe(true);
     for (const f of ['src', 'test', 'scripts', 'notebooks', 'tsconfig.json']) expect(fs.existsSync(path.join(shipped, f)), f).toBe(false);
     const json = JSON.parse(fs.readFileSync(path.join(shipped, 'package.json'), 'utf8'));
@@ -165,15 +175,43 @@ describe('the packed tarball installed into a fresh project', () => {
     expect(esm).toBe(cjs);
   });
 
+  it('keeps the plumbing off the root and behind kinsort/internal, in both module forms, sharing one instance', async () => {
+    // guardPairwise and makeDissimilarity are plumbing: on the subpath, not on the root. The
+    // subpath's classes are the ones the root's study() makes.
+    const probe = (load: string) =>
+      `${load}
+` +
+      `const onRoot = ['guardPairwise', 'makeDissimilarity', 'setPairBudget', 'showFragment', 'resendPlotting'].filter((n) => n in root);
+` +
+      `const d = internal.makeDissimilarity(2, new Float64Array([3]), 'given');
+` +
+      `const seg = root.study([{ id: 'a', x: 1 }, { id: 'b', x: 2 }, { id: 'c', x: 9 }], { id: 'id' }).prepare().kmeans({ k: 2, seed: 1 });
+` +
+      `console.log(JSON.stringify({ onRoot, pair: d.get(1, 0), sameClass: seg instanceof internal.Segmentation, guard: typeof internal.guardPairwise }));
+`;
+    fs.writeFileSync(
+      path.join(project, 'internal.cjs'),
+      probe(`const root = require('kinsort');\nconst internal = require('kinsort/internal');`),
+    );
+    fs.writeFileSync(
+      path.join(project, 'internal.mjs'),
+      probe(`import * as root from 'kinsort';\nimport * as internal from 'kinsort/internal';`),
+    );
+    const expected = { onRoot: [], pair: 3, sameClass: true, guard: 'function' };
+    expect(JSON.parse((await run('node', ['internal.cjs'], { cwd: project })).stdout.trim())).toEqual(expected);
+    expect(JSON.parse((await run('node', ['internal.mjs'], { cwd: project })).stdout.trim())).toEqual(expected);
+  });
+
   it('type-checks a strict TypeScript file against the shipped types (TypeScript 5.9, node16+ and classic resolution)', async () => {
     expect(JSON.parse(fs.readFileSync(path.join(repo, 'node_modules/typescript/package.json'), 'utf8')).version).toMatch(/^5\.9\./);
     fs.writeFileSync(
       path.join(project, 'check.ts'),
-      `import { study, kmeans, silhouette, readCsvFile } from 'kinsort';\nimport type { View, KinsortError } from 'kinsort';\n` +
+      `import { study, kmeans, silhouette, readCsvFile } from 'kinsort';\nimport type { View, KinsortError, Segmentation } from 'kinsort';\n` +
+        `import { guardPairwise, Segmentation as SegmentationClass } from 'kinsort/internal';\nguardPairwise(10, 'check');\n` +
         `const rows: number[][] = [[1, 2], [1.1, 2.1], [8, 9], [8.2, 9.1]];\nconst fit = kmeans(rows, { k: 2, seed: 1 });\n` +
         `const average: number = silhouette(rows, fit.assignment).average;\n` +
         `${ANALYSIS(CSV)}const view: View = seg.cards();\nconst e: KinsortError | undefined = undefined;\n` +
-        `export const summary = [average, view.title, e, seg.sizes.length];\n`,
+        `const typed: Segmentation = seg;\nexport const summary = [average, view.title, e, seg.sizes.length, typed instanceof SegmentationClass];\n`,
     );
     for (const mode of [
       ['--module', 'nodenext', '--moduleResolution', 'nodenext'],
@@ -193,6 +231,17 @@ describe('the packed tarball installed into a fresh project', () => {
       cwd: project,
     }).catch((e) => e);
     expect(String(wrong.stdout)).toMatch(/wrong\.ts\(2,7\): error TS2322/);
+    // Plumbing is not on the root's types either, in either resolution.
+    fs.writeFileSync(path.join(project, 'plumbing.ts'), `import { guardPairwise } from 'kinsort';\nguardPairwise(10, 'check');\n`);
+    for (const mode of [
+      ['--module', 'nodenext', '--moduleResolution', 'nodenext'],
+      ['--module', 'commonjs', '--moduleResolution', 'node10'],
+    ]) {
+      const r = await run('node', [TSC, '--noEmit', '--strict', ...mode, 'plumbing.ts'], { cwd: project }).catch((e) => e);
+      expect(String(r.stdout), mode.join(' ')).toMatch(
+        /plumbing\.ts\(1,10\): error TS2305: Module '"kinsort"' has no exported member 'guardPairwise'/,
+      );
+    }
   }, 120_000);
 
   it('runs a tslab notebook created in the project, views inline', async () => {

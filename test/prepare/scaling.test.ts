@@ -28,7 +28,7 @@ describe(`scaling against ${fixture.producedBy}`, () => {
     for (const name of numeric) {
       expectClose(column(p, name), fixture.expected.zscoreSample[name]);
       const spec = p.preparation.columns.find((c) => c.name === name)!;
-      expect(spec.centre).toBeCloseTo(fixture.expected.numpyMean[name], 12);
+      expect(spec.center).toBeCloseTo(fixture.expected.numpyMean[name], 12);
       expect(spec.spread).toBeCloseTo(fixture.expected.numpySdSample[name], 12);
     }
   });
@@ -52,7 +52,7 @@ describe(`scaling against ${fixture.producedBy}`, () => {
       expectClose(column(p, name), fixture.expected.robustScaler[name]);
       const spec = p.preparation.columns.find((c) => c.name === name)!;
       const [q1, q2, q3] = fixture.expected.numpyPercentiles[name];
-      expect(spec.centre).toBeCloseTo(q2, 12);
+      expect(spec.center).toBeCloseTo(q2, 12);
       expect(spec.spread).toBeCloseTo(q3 - q1, 12);
       expect(spec.spread).toBeCloseTo(fixture.expected.robustScale[name], 12);
       expect(spec.spreadKind).toBe('iqr');
@@ -112,7 +112,7 @@ describe('robust scaling fallbacks (of our own making)', () => {
     const p = prepareTable({ v: [5, 5, 5, 5, 5, 5, 5, 9, 1], w: [1, 2, 3, 4, 5, 6, 7, 8, 9] }, { scale: 'robust' });
     const spec = p.preparation.columns.find((c) => c.name === 'v')!;
     expect(spec.spreadKind).toBe('sd');
-    expect(spec.centre).toBe(5);
+    expect(spec.center).toBe(5);
     expect(spec.spread).toBeCloseTo(Math.sqrt(32 / 8), 12);
     expect(p.report.notes.some((n) => n.includes('"v"') && n.includes('standard deviation'))).toBe(true);
   });

@@ -21,10 +21,10 @@ import {
   readTable,
   silhouette,
   study,
-  makeDissimilarity,
   findKnee,
   viewsPage,
 } from '../../src';
+import { makeDissimilarity } from '../../src/internal';
 import { refusal } from './helpers';
 
 const rows = [

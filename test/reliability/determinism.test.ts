@@ -10,11 +10,11 @@ import {
   kmeans,
   kmeansMiniBatch,
   kmedoids,
-  LINKAGE_METHODS,
   prepareTable,
   readTable,
   study,
 } from '../../src';
+import { LINKAGE_METHODS } from '../../src/internal';
 import { groupedRows, permutation } from './data';
 
 const rows = groupedRows(60, 3, 3, 21);

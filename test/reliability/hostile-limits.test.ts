@@ -6,7 +6,8 @@ import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync
 import { tmpdir } from 'os';
 import { join } from 'path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { agglomerate, dissimilarity, kmedoids, loadDefinition, readCsvFile, setPreparedLimits, study } from '../../src';
+import { agglomerate, dissimilarity, kmedoids, loadDefinition, readCsvFile, study } from '../../src';
+import { setPreparedLimits } from '../../src/internal';
 import { closestName, didYouMean, editDistance } from '../../src/core/errors';
 import { forTerminal } from '../../src/core/terminal-text';
 import { readRegularTextFile } from '../../src/table/file-text';

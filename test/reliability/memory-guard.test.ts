@@ -1,7 +1,8 @@
 // The memory guard: before an n × n allocation above the budget, a clear refusal with the size and
 // the alternatives, through every route that would build one; routes that need no matrix still run.
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { agglomerate, dissimilarity, kmeans, kmedoids, setPairBudget, silhouette, study } from '../../src';
+import { agglomerate, dissimilarity, kmeans, kmedoids, silhouette, study } from '../../src';
+import { setPairBudget } from '../../src/internal';
 import { refusal } from './helpers';
 import { groupedRows } from './data';
 

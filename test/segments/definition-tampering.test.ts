@@ -62,10 +62,10 @@ describe('the loader refuses tampered definitions, naming the field', () => {
           edited((d) => {
             const c = column(d, 'band');
             c.levels = ['low', 'high'];
-            c.centre = 1.7;
+            c.center = 1.7;
           }),
         ),
-      'centre',
+      'center',
       'outside the ranks 0..1',
       'contradict',
     );

@@ -99,7 +99,7 @@ describe('assign never re-infers from the batch', () => {
     expect(prep.missingMarkers).toEqual(['NA', 'N/A', 'n/a', '#N/A', 'NaN', 'nan', 'null', 'NULL']);
     expect(prep.decimalMark).toBe('.');
     expect(prep.idColumn).toBe('id');
-    expect(def.definition.formatVersion).toBe(2);
+    expect(def.definition.formatVersion).toBe(3);
     const zone = (prep.columns as { name: string; type: string; levels: string[]; levelMatch: string }[]).find((c) => c.name === 'zone')!;
     expect(zone).toMatchObject({ type: 'binary', levels: ['north', 'south'], levelMatch: 'exact' });
   });

@@ -4,7 +4,8 @@
 import { readFileSync } from 'fs';
 import { join } from 'path';
 import { describe, expect, it } from 'vitest';
-import { adjustedRandIndex, kmeans, ruleAgreement, settleKmeans, toMatrix, type Matrix } from '../../src';
+import { adjustedRandIndex, kmeans, toMatrix, type Matrix } from '../../src';
+import { ruleAgreement, settleKmeans } from '../../src/internal';
 import { nearestCenters } from '../../src/segments/assign-nearest';
 
 /** Each row to its nearest of `centers` (ties to the lower index), as the first Lloyd step does. */
