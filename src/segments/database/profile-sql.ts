@@ -205,15 +205,19 @@ export const orderNames = { low: lowName, high: highName, size: (j: number) => `
 /**
  * DuckDB and PostgreSQL: the engine's own linear-interpolation quantile (quantile_cont,
  * percentile_cont: Hyndman & Fan type 7, over exact order statistics), per segment and for all
- * rows (segment NULL) in one pass through GROUPING SETS.
+ * rows (segment NULL) in one pass through GROUPING SETS. `approximate` (DuckDB): approx_quantile.
  */
-export function interpolatedQuantilesSql(source: string, numeric: readonly number[], d: SqlDialect): string {
+export function interpolatedQuantilesSql(source: string, numeric: readonly number[], d: SqlDialect, approximate = false): string {
   const q = (name: string) => d.quoteIdentifier(name);
   const parts = [q(SEGMENT), `GROUPING(${q(SEGMENT)}) AS ${q('kinsort_all')}`];
   for (const j of numeric) {
     for (const p of PROBABILITIES) {
       const x = q(cell(j));
-      const agg = d.name === 'duckdb' ? `quantile_cont(${x}, ${p})` : `percentile_cont(${p}) WITHIN GROUP (ORDER BY ${x})`;
+      // approx_quantile: a t-digest of fixed size per group, where the exact one holds every value.
+      const agg =
+        d.name === 'duckdb'
+          ? `${approximate ? 'approx_quantile' : 'quantile_cont'}(${x}, ${p})`
+          : `percentile_cont(${p}) WITHIN GROUP (ORDER BY ${x})`;
       parts.push(`${agg} AS ${q(quantileName(j, p))}`);
     }
   }
