@@ -7,7 +7,8 @@
 // src/core/quantile.ts): DuckDB quantile_cont and PostgreSQL percentile_cont interpolate in the
 // engine (equal to kinsort's to a few units in the last place); on ClickHouse (sorted arrays) and
 // SQLite (window-function ranks) the engine returns the two order statistics around each position
-// and kinsort interpolates them with its own formula.
+// and kinsort interpolates them with its own formula. Exact order statistics need every value of a
+// column in the engine at once; `quantiles: 'approximate'` takes DuckDB's approx_quantile instead.
 import { KinsortError } from '../../core/errors';
 import { checkInteger, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
