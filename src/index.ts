@@ -223,3 +223,19 @@ export type { SampleFromDatabaseOptions, DatabaseSample } from './engines/sample
 export type { TableName } from './engines/source';
 export { refineInDatabase } from './segments/database/refine';
 export type { RefineInDatabaseOptions, DatabaseRefinement, RefineIteration } from './segments/database/refine';
+
+// ─── Gaussian mixtures ───────────────────────────────────────────────────────────────────────────
+// The EM core, the BIC comparison and its view, the fluent options.
+export { gaussianMixture, COVARIANCE_SHAPES, parameterCount } from './methods/mixture';
+export type { GaussianMixtureOptions, GaussianMixtureResult, CovarianceShape, MixtureStart } from './methods/mixture';
+export { compareMixtures } from './assess/compare-mixtures';
+export type { CompareMixturesOptions, CompareMixturesResult, MixtureCandidate } from './assess/compare-mixtures';
+export { mixtureEvidenceView } from './views/mixture-evidence';
+export type { MixtureComparisonLike } from './views/mixture-evidence';
+export type { StudyMixtureOptions } from './study/mixture-fit';
+export type { MembershipTable } from './study/mixture-parts';
+
+// ─── Density segments ────────────────────────────────────────────────────────────────────────────
+// HDBSCAN with noise and GLOSH outlier scores.
+export { densitySegments, NOISE } from './methods/density';
+export type { DensitySegmentsOptions, DensitySegmentsResult, DensityBranch } from './methods/density';

@@ -23,7 +23,7 @@ import { explain, headlineFor } from './k-reasons';
 import { stabilityAcrossK } from './k-stability';
 import { predictionStrengthAcrossK, PREDICTION_STRENGTH_FROM } from './prediction-strength';
 import { findKnee } from './knee';
-import { silhouette } from './silhouette';
+import { silhouettesOfLabellings } from './silhouettes-of-labellings';
 
 export interface CompareKOptions {
   /** Smallest k (default 2; the measures other than the gap need two segments). */
@@ -178,21 +178,24 @@ export function compareK(rows: RowsInput, options?: CompareKOptions): CompareKRe
   const withinByK = new Map<number, number>();
   const startRows = m.rows > 2 * START_ROWS ? takeRows(m, seededSample(m, START_ROWS, seed, 'start sample')!) : undefined;
   const starts = startRows && countDistinctRows(startRows, to) >= to ? startRows : undefined;
+  const silhouetteLabels: Int32Array[] = [];
   for (const k of ks) {
     const fit = starts ? kmeans(m, { k, start: kmeans(starts, { k, seed, restarts }).centers }) : kmeans(m, { k, seed, restarts });
     withinByK.set(k, fit.withinSS);
     centresByK.set(k, fit.centers);
-    const labels = forSilhouette ? Int32Array.from(forSilhouette, (i) => fit.assignment[i]) : fit.assignment;
+    silhouetteLabels.push(forSilhouette ? Int32Array.from(forSilhouette, (i) => fit.assignment[i]) : fit.assignment);
     table.push({
       k,
       withinSS: fit.withinSS,
-      silhouette: silhouette(silhouetteRowsM, labels).average,
+      silhouette: NaN, // all k at once below: the distances between the rows are the same at every k
       calinskiHarabasz: calinskiHarabasz(m, fit.assignment),
       daviesBouldin: daviesBouldin(m, fit.assignment),
     });
     assignments.push(fit.assignment);
     step(`k = ${k}`);
   }
+  const silhouettes = silhouettesOfLabellings(silhouetteRowsM, silhouetteLabels, `${where}: silhouette`);
+  for (let t = 0; t < table.length; t++) table[t] = { ...table[t], silhouette: silhouettes[t].average };
 
   let gapResult: GapStatisticResult | undefined;
   if (useGap) {

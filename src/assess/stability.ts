@@ -12,8 +12,9 @@ import { checkInteger, checkOptions } from '../core/options';
 import { ProgressCallback, report } from '../core/progress';
 import { kmeans } from '../methods/partition/kmeans';
 import { createRandom, Seed } from '../random';
+import { gaussianMixture, type CovarianceShape } from '../methods/mixture';
 
-export const STABILITY_METHODS = ['kmeans', 'kmedoids'] as const;
+export const STABILITY_METHODS = ['kmeans', 'kmedoids', 'mixture'] as const;
 export type StabilityMethod = (typeof STABILITY_METHODS)[number];
 
 export interface BootstrapStabilityOptions {
@@ -24,10 +25,12 @@ export interface BootstrapStabilityOptions {
   seed?: Seed;
   /** How the original rows and each resample are segmented (default 'kmeans'). */
   method?: StabilityMethod;
-  /** k-means restarts per fit (default 5; k-means only). */
+  /** Restarts per fit (default 5; k-means and mixtures). */
   restarts?: number;
   /** Metric for k-medoids on rows (default 'euclidean'); a dissimilarity given carries its own. */
   metric?: MetricName;
+  /** Covariance shape of the Gaussian mixture refits (method 'mixture'; default 'full'). */
+  covariance?: CovarianceShape;
   /** The original segmentation to judge; by default the method is run on all rows. */
   assignment?: AssignmentInput;
   onProgress?: ProgressCallback;
@@ -61,7 +64,7 @@ export const UNSTABLE_BELOW = 0.6;
 export const STABLE_FROM = 0.75;
 const DISSOLVED_BELOW = 0.5;
 
-const OPTIONS = ['k', 'resamples', 'seed', 'method', 'restarts', 'metric', 'assignment', 'onProgress'] as const;
+const OPTIONS = ['k', 'resamples', 'seed', 'method', 'restarts', 'metric', 'covariance', 'assignment', 'onProgress'] as const;
 
 /** The data being resampled: rows, or a dissimilarity (k-medoids only). */
 type Source = { kind: 'rows'; m: Matrix } | { kind: 'dissimilarity'; d: Dissimilarity };
@@ -80,13 +83,22 @@ function subDissimilarity(d: Dissimilarity, indices: Int32Array): Dissimilarity 
   return makeDissimilarity(n, out, d.metric);
 }
 
-function segmenterFor(source: Source, method: StabilityMethod, restarts: number, metric: MetricName | undefined): Segmenter {
+function segmenterFor(
+  source: Source,
+  method: StabilityMethod,
+  restarts: number,
+  metric: MetricName | undefined,
+  covariance: CovarianceShape | undefined,
+): Segmenter {
   if (source.kind === 'dissimilarity') {
     const d = source.d;
     return (indices, k) => kmedoids(indices ? subDissimilarity(d, indices) : d, { k }).assignment;
   }
   const m = source.m;
   if (method === 'kmeans') return (indices, k, seed) => kmeans(indices ? takeRows(m, indices) : m, { k, seed, restarts }).assignment;
+  if (method === 'mixture') {
+    return (indices, k, seed) => gaussianMixture(indices ? takeRows(m, indices) : m, { k, seed, restarts, covariance }).assignment;
+  }
   return (indices, k) => kmedoids(indices ? takeRows(m, indices) : m, { k, metric }).assignment;
 }
 
@@ -106,7 +118,7 @@ export function bootstrapStability(
   if (isDissimilarity(rowsOrDissimilarity)) {
     if (method !== 'kmedoids') {
       throw new KinsortError(
-        `${where}: k-means needs rows, but a dissimilarity was given; use method "kmedoids" with a dissimilarity, or pass the rows.`,
+        `${where}: ${method === 'mixture' ? 'a Gaussian mixture' : 'k-means'} needs rows, but a dissimilarity was given; use method "kmedoids" with a dissimilarity, or pass the rows.`,
         'bad-option',
       );
     }
@@ -120,7 +132,7 @@ export function bootstrapStability(
   const restarts = checkInteger(opts.restarts ?? 5, `${where}: restarts`, 1);
   const resamples = checkInteger(opts.resamples ?? 50, `${where}: resamples`, 1);
   const root = createRandom(opts.seed ?? 0);
-  const segment = segmenterFor(source, method, restarts, opts.metric);
+  const segment = segmenterFor(source, method, restarts, opts.metric, opts.covariance);
 
   let original: Int32Array;
   let k: number;

@@ -12,7 +12,9 @@ import type { ImputedColumn, Preparation, PreparedData, UnseenLevel } from '../p
 import { readTable } from '../table';
 import { isTable, type Table, type TableColumn } from '../table/types';
 import { nearestCenters } from './assign-nearest';
-import type { SegmentDefinition } from './definition-types';
+import { nearestDenseRows } from './dense-rows';
+import type { DefinitionMetric, SegmentDefinition } from './definition-types';
+import { mixtureFigures, scoreMixture } from './mixture-rule';
 
 export interface AssignOptions {
   /**
@@ -24,12 +26,17 @@ export interface AssignOptions {
 
 export interface AssignedRow {
   readonly id: string;
-  /** 1-based segment, or null when the row could not be prepared (see the report). */
+  /**
+   * 1-based segment, or null when the row could not be prepared (see the report). Density
+   * definitions (nearest-dense-row) give 0 to a row in no segment (noise), and `far` is then true.
+   */
   readonly segment: number | null;
   /** Distance to the segment's centre / medoid under the definition's metric. */
   readonly distance: number | null;
   /** True when the row is farther than every segment's `farBeyond`. */
   readonly far: boolean | null;
+  /** Mixture definitions only (rule highest-posterior): the posterior probability of the segment given. */
+  readonly probability?: number | null;
 }
 
 export interface RefusedRow {
@@ -136,7 +143,10 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     }
   }
 
-  const rows: AssignedRow[] = ids.map((id) => ({ id, segment: null, distance: null, far: null }));
+  const mixture = definition.rule === 'highest-posterior';
+  const rows: AssignedRow[] = ids.map((id) =>
+    mixture ? { id, segment: null, distance: null, far: null, probability: null } : { id, segment: null, distance: null, far: null },
+  );
   let unseenLevels: UnseenLevel[] = [];
   let imputed: ImputedColumn[] = [];
   if (prepared !== undefined) {
@@ -147,13 +157,12 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
         'bad-definition',
       );
     }
-    const k = definition.segments.length;
-    const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
-    const farBeyond = definition.segments.map((s) => s.farBeyond);
-    const nearest = nearestCenters(m.data, m.rows, centers, k, m.cols, definition.metric, farBeyond);
+    const scored = scoreRows(definition, m.data, m.rows, m.cols);
     for (let r = 0; r < good.length; r++) {
       const i = good[r];
-      rows[i] = { id: ids[i], segment: nearest.segment[r] + 1, distance: nearest.distance[r], far: nearest.far[r] === 1 };
+      const row = { id: ids[i], segment: scored.segment[r], distance: scored.distance[r], far: scored.far[r] === 1 };
+      if (!scored.probability) rows[i] = row;
+      else rows[i] = { ...row, probability: Number.isNaN(scored.probability[r]) ? null : scored.probability[r] };
     }
     // Map the subset's rows back to input rows (ids made of row numbers would be renumbered).
     unseenLevels = prepared.report.unseenLevels.map((u) => ({ ...u, id: ids[good[u.row]], row: good[u.row] }));
@@ -177,4 +186,35 @@ export function assignRows(definition: SegmentDefinition, input: unknown, option
     rows,
     report: { inputRows: table.rowCount, assignedRows: good.length, refused, unseenLevels, imputed, ignoredColumns, notes },
   };
+}
+
+/**
+ * The stored rule on prepared rows: 1-based segments (0 = noise for nearest-dense-row), distances,
+ * far flags, and for a mixture the posterior probability of the segment given.
+ */
+function scoreRows(
+  definition: SegmentDefinition,
+  data: Float64Array,
+  rows: number,
+  dims: number,
+): { segment: Int32Array; distance: Float64Array; far: Uint8Array; probability?: Float64Array } {
+  if (definition.rule === 'nearest-dense-row') {
+    if (!definition.denseRows) throw new KinsortError('assign: the nearest-dense-row definition stores no rows.', 'bad-definition');
+    const dense = nearestDenseRows(data, rows, dims, definition.denseRows, definition.metric as DefinitionMetric);
+    return { segment: dense.segment, distance: dense.distance, far: dense.noise };
+  }
+  const k = definition.segments.length;
+  const farBeyond = definition.segments.map((s) => s.farBeyond);
+  if (definition.rule === 'highest-posterior') {
+    const scores = scoreMixture(data, rows, mixtureFigures(definition.segments, dims), farBeyond);
+    return {
+      segment: Int32Array.from(scores.segment, (c) => c + 1),
+      distance: scores.distance,
+      far: scores.far,
+      probability: scores.probability,
+    };
+  }
+  const centers = Float64Array.from(definition.segments.flatMap((s) => s.center));
+  const nearest = nearestCenters(data, rows, centers, k, dims, definition.metric as DefinitionMetric, farBeyond);
+  return { segment: Int32Array.from(nearest.segment, (c) => c + 1), distance: nearest.distance, far: nearest.far };
 }

@@ -16,7 +16,9 @@ import {
   DefinitionMetric,
   DefinitionSegment,
   FAR_PERCENTILE,
+  MIXTURE_METRIC,
   SegmentDefinition,
+  StoredMetric,
   TRAINING_LABELS,
   TrainingLabels,
 } from './definition-types';
@@ -25,6 +27,8 @@ import { fingerprintRows } from './fingerprint';
 import { nearestCenters, percentile, pointToCenter } from './assign-nearest';
 import { trainingDistributions } from './training-distributions';
 import { kinsortVersion } from './definition-version';
+import { storedComponents, type MixtureInput, type StoredComponent } from './definition-mixture';
+import { mixtureFigures, ruleSquare, scoreMixture } from './mixture-rule';
 
 export interface DefinitionSegmentInput {
   /** 1-based segment number. */
@@ -44,8 +48,10 @@ export interface BuildDefinitionInput {
   /** k-medoids: training row index (0-based) of each segment's medoid, segment order. */
   medoids?: readonly number[];
   rule?: AssignmentRule;
-  /** Distance used to assign (default euclidean). */
+  /** Distance used to assign (default euclidean; the highest-posterior rule always measures Mahalanobis distances). */
   metric?: DefinitionMetric;
+  /** Mixtures (rule highest-posterior): weights and full covariances, one per segment; `centers` are the means. */
+  mixture?: MixtureInput;
   segments?: readonly DefinitionSegmentInput[];
   /** The prepared training rows, their ids and their 0-based segments. */
   training: { ids: readonly string[]; matrix: Matrix | readonly (readonly number[])[]; assignment: ArrayLike<number> };
@@ -67,6 +73,7 @@ const INPUT_KEYS = [
   'medoids',
   'rule',
   'metric',
+  'mixture',
   'segments',
   'training',
   'evidence',
@@ -101,7 +108,7 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
   }
   const methodName = checkChoice(input.method?.name, DEFINITION_METHODS, 'method');
   const rule = checkChoice(
-    input.rule ?? (methodName === 'kmedoids' ? 'nearest-medoid' : 'nearest-center'),
+    input.rule ?? (methodName === 'kmedoids' ? 'nearest-medoid' : methodName === 'mixture' ? 'highest-posterior' : 'nearest-center'),
     ASSIGNMENT_RULES,
     'assignment rule',
   );
@@ -116,7 +123,11 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
       'not-supported',
     );
   }
-  const metric = checkChoice(wanted, DEFINITION_METRICS, 'assignment metric');
+  const mixture = rule === 'highest-posterior';
+  if (mixture && input.metric !== undefined) {
+    throw new KinsortError(`${where}: the highest-posterior rule measures Mahalanobis distances; leave "metric" out.`, 'bad-argument');
+  }
+  const metric: StoredMetric = mixture ? MIXTURE_METRIC : checkChoice(wanted, DEFINITION_METRICS, 'assignment metric');
 
   const matrix = toMatrix(input.training?.matrix as Matrix, { what: `${where}: training rows` });
   const ids = input.training.ids;
@@ -162,13 +173,24 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
     throw new KinsortError(`${where}: the nearest-medoid rule needs "medoids" (training row indices).`, 'bad-argument');
   }
 
-  // Far threshold: a high percentile of the training rows' distances to their own segment's centre.
+  // Far threshold: a high percentile of the training rows' distances to their own segment's centre
+  // (Mahalanobis distances to their own component for a mixture).
   const flatCenters = Float64Array.from(centerRows.flat());
+  const components: StoredComponent[] | undefined = mixture ? storedComponents(input.mixture, k, dims, where) : undefined;
+  const figures = components
+    ? mixtureFigures(
+        components.map((p, c) => ({ number: c + 1, size: 0, farBeyond: 0, center: centerRows[c], ...p })),
+        dims,
+      )
+    : undefined;
   const own: Float64Array[] = Array.from({ length: k }, (_, c) => new Float64Array(sizes[c]));
   const filled = new Int32Array(k);
+  const diff = new Float64Array(dims);
   for (let i = 0; i < matrix.rows; i++) {
     const c = labels[i];
-    own[c][filled[c]++] = pointToCenter(matrix.data, i, flatCenters, c, dims, metric);
+    own[c][filled[c]++] = figures
+      ? Math.sqrt(ruleSquare(matrix.data, i * dims, figures, c, diff))
+      : pointToCenter(matrix.data, i, flatCenters, c, dims, metric as DefinitionMetric);
   }
 
   const given = new Map<number, DefinitionSegmentInput>();
@@ -194,26 +216,23 @@ export function buildDefinition(input: BuildDefinitionInput, where = 'buildDefin
       center,
       medoidId: medoidIds?.[c],
       farBeyond: percentile(own[c], FAR_PERCENTILE),
+      weight: components?.[c].weight,
+      whitening: components?.[c].whitening,
     };
   });
 
   // The stored rule on the training rows, once (the same loop assign runs): how many rows it gives
   // their fitted segment, and which rows lie beyond every segment's far threshold (for drift).
-  const rule0 = nearestCenters(
-    matrix.data,
-    matrix.rows,
-    flatCenters,
-    k,
-    dims,
-    metric,
-    segments.map((s) => s.farBeyond),
-  );
+  const farBeyond = segments.map((s) => s.farBeyond);
+  const rule0 = figures
+    ? scoreMixture(matrix.data, matrix.rows, figures, farBeyond)
+    : nearestCenters(matrix.data, matrix.rows, flatCenters, k, dims, metric as DefinitionMetric, farBeyond);
   let reproducedRows = 0;
   for (let i = 0; i < matrix.rows; i++) if (rule0.segment[i] === labels[i]) reproducedRows++;
   const trainingLabels = checkChoice(input.labels ?? 'fit', TRAINING_LABELS, 'training labels');
   if (trainingLabels === 'rule' && reproducedRows !== matrix.rows) {
     throw new KinsortError(
-      `${where}: labels 'rule' says the segments were relabelled by the nearest-${rule === 'nearest-medoid' ? 'medoid' : 'centre'} rule, ` +
+      `${where}: labels 'rule' says the segments were relabelled by the ${rule === 'nearest-medoid' ? 'nearest-medoid' : mixture ? 'highest-posterior' : 'nearest-centre'} rule, ` +
         `but the rule gives ${matrix.rows - reproducedRows} of ${matrix.rows} training rows another segment.`,
       'bad-input',
     );

@@ -2,6 +2,7 @@
 // fitted segmentation to new rows (here, in another notebook, or in SQL where the data lives).
 import type { JsonValue } from './definition-json';
 import type { TrainingDistributions } from './training-distributions';
+import type { DenseRows } from './dense-rows';
 
 /** Marks the file as ours, whatever its name. */
 export const DEFINITION_KIND = 'kinsort segment definition';
@@ -18,20 +19,28 @@ export const DEFINITION_FORMAT_VERSION = 3;
 export type TrainingLabels = 'fit' | 'rule';
 export const TRAINING_LABELS: readonly TrainingLabels[] = ['fit', 'rule'];
 
-export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy';
-export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy'];
+export type DefinitionMethodName = 'kmeans' | 'kmedoids' | 'hierarchy' | 'mixture' | 'density';
+export const DEFINITION_METHODS: readonly DefinitionMethodName[] = ['kmeans', 'kmedoids', 'hierarchy', 'mixture', 'density'];
 
 /**
  * How a new row gets its segment. 'nearest-center': the segment whose centre (segment mean in the
  * prepared space) is nearest — the rule for k-means and for a hierarchy cut. 'nearest-medoid': the
  * segment whose medoid (a training row) is nearest under the stored metric — the rule for k-medoids.
+ * 'highest-posterior': the mixture component with the highest posterior probability, from the
+ * stored weights, means and inverse Cholesky factors (segments/mixture-rule.ts; metric 'mahalanobis').
  */
-export type AssignmentRule = 'nearest-center' | 'nearest-medoid';
-export const ASSIGNMENT_RULES: readonly AssignmentRule[] = ['nearest-center', 'nearest-medoid'];
+export type AssignmentRule = 'nearest-center' | 'nearest-medoid' | 'highest-posterior' | 'nearest-dense-row';
+export const ASSIGNMENT_RULES: readonly AssignmentRule[] = ['nearest-center', 'nearest-medoid', 'highest-posterior', 'nearest-dense-row'];
+// 'nearest-dense-row' (density segments, docs/dense-row-rule.md): the segment of the nearest stored
+// training row in a segment, or noise (segment 0) beyond that row's core distance. See dense-rows.ts.
 
 /** Metrics a definition can assign with (and write as portable SQL). */
 export type DefinitionMetric = 'euclidean' | 'sqeuclidean' | 'manhattan';
 export const DEFINITION_METRICS: readonly DefinitionMetric[] = ['euclidean', 'sqeuclidean', 'manhattan'];
+/** The highest-posterior rule's distances (for `distance` and `farBeyond`) are Mahalanobis distances to the component. */
+export const MIXTURE_METRIC = 'mahalanobis';
+/** What the "metric" key may hold: a distance metric, or 'mahalanobis' with the highest-posterior rule. */
+export type StoredMetric = DefinitionMetric | typeof MIXTURE_METRIC;
 
 /** The percentile of training distances beyond which a row counts as far from a segment. */
 export const FAR_PERCENTILE = 99;
@@ -53,6 +62,14 @@ export interface DefinitionSegment {
    * segment is flagged `far`.
    */
   readonly farBeyond: number;
+  /** highest-posterior only: the component's mixing weight (> 0; the weights sum to 1). */
+  readonly weight?: number;
+  /**
+   * highest-posterior only: W = L⁻¹, the inverse of the lower Cholesky factor L of the component's
+   * covariance (Σ = L Lᵀ), as d rows of which row j holds its j + 1 figures on and left of the
+   * diagonal (the diagonal is > 0). Σ⁻¹ = Wᵀ W.
+   */
+  readonly whitening?: number[][];
 }
 
 export interface SegmentDefinition {
@@ -64,7 +81,7 @@ export interface SegmentDefinition {
   readonly note?: string;
   readonly method: { readonly name: DefinitionMethodName; readonly options: { [key: string]: JsonValue } };
   readonly rule: AssignmentRule;
-  readonly metric: DefinitionMetric;
+  readonly metric: StoredMetric;
   /** The intake's serialisable Preparation, keys sorted. */
   readonly preparation: { [key: string]: JsonValue };
   /** Names of the prepared features, in centre order (from the preparation). */
@@ -83,7 +100,11 @@ export interface SegmentDefinition {
     readonly reproducedRows: number;
     /** 'fit': segments (and sizes) as the method gave them; 'rule': relabelled by the stored rule, on request. */
     readonly labels: TrainingLabels;
+    /** Density definitions: training rows in no segment (noise); the segment sizes plus this make `rows`. */
+    readonly noiseRows?: number;
   };
+  /** nearest-dense-row only: every training row in a segment, its core distance and segment. */
+  readonly denseRows?: DenseRows;
   /** Optional: the training rows' feature distributions and far share, for drift (absent in older files). */
   readonly trainingDistributions?: TrainingDistributions;
   /** Optional evidence for the choice of k (keys sorted), as the caller gives it. */

@@ -9,13 +9,17 @@ import {
   DEFINITION_METHODS,
   DEFINITION_METRICS,
   DefinitionSegment,
+  MIXTURE_METRIC,
   SegmentDefinition,
+  StoredMetric,
   TRAINING_LABELS,
 } from './definition-types';
 import { upgradePreparation } from '../prepare/upgrade';
+import { checkMixtureSegment, checkWeightSum } from './definition-validate-mixture';
 import { kinsortVersion } from './definition-version';
 import { checkName, checkStoredPreparation, onlyKeys } from './definition-validate-preparation';
 import { checkTrainingDistributions } from './definition-validate-distributions';
+import { checkDenseRows } from './definition-validate-dense';
 
 function fail(where: string, message: string): never {
   throw new KinsortError(`${where}: ${message}`, 'bad-definition');
@@ -71,9 +75,10 @@ const TOP_KEYS = [
   'training',
   'trainingDistributions',
   'evidence',
+  'denseRows',
 ];
-const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond'];
-const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels'];
+const SEGMENT_KEYS = ['number', 'title', 'text', 'size', 'center', 'medoidId', 'farBeyond', 'weight', 'whitening'];
+const TRAINING_KEYS = ['rows', 'fingerprint', 'reproducedRows', 'labels', 'noiseRows'];
 
 const CONTROL_ANY = /[\u0000-\u001f\u007f-\u009f\u2028\u2029]/;
 
@@ -178,7 +183,14 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
   const methodOptions = need(method, 'options', 'object', `${where}: method`);
   noPrototypeKeys(methodOptions, `${where}: method.options`);
   const rule = oneOf(need(d, 'rule', 'string', where), ASSIGNMENT_RULES, 'rule', where);
-  const metric = oneOf(need(d, 'metric', 'string', where), DEFINITION_METRICS, 'metric', where);
+  // The highest-posterior rule measures Mahalanobis distances, every other rule a distance metric.
+  const mixture = rule === 'highest-posterior';
+  const metric: StoredMetric = oneOf(
+    need(d, 'metric', 'string', where),
+    mixture ? [MIXTURE_METRIC] : DEFINITION_METRICS,
+    'metric',
+    mixture ? `${where} (rule highest-posterior)` : where,
+  );
   const preparation = storedPreparation(need(d, 'preparation', 'object', where), version, where);
   const features: unknown[] = need(d, 'features', 'array', where);
   features.forEach((f, j) => {
@@ -210,6 +222,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     if (text !== undefined) proseOnly(text, at, 'key "text"');
     if (rule === 'nearest-medoid' && medoidId === undefined)
       fail(at, 'key "medoidId" is missing; the nearest-medoid rule needs the id of each medoid.');
+    if (!mixture && (seg.weight !== undefined || seg.whitening !== undefined))
+      fail(at, `keys "weight" and "whitening" are set, but the rule is "${rule}"; only highest-posterior definitions hold them.`);
+    const component = mixture ? checkMixtureSegment(seg, dims, at) : undefined;
     return {
       number,
       title,
@@ -218,15 +233,37 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
       center: numbers(seg.center, dims, `${at}.center`),
       medoidId,
       farBeyond,
+      weight: component?.weight,
+      whitening: component?.whitening,
     };
   });
+  if (mixture)
+    checkWeightSum(
+      segments.map((s) => s.weight!),
+      where,
+    );
   const training = need(d, 'training', 'object', where);
   const at = `${where}: training`;
   onlyKeys(training, TRAINING_KEYS, at);
   const rows = need(training, 'rows', 'number', at);
   if (!Number.isInteger(rows) || rows < 1) fail(at, `key "rows" is ${rows}; expected a whole number ≥ 1.`);
-  const total = segments.reduce((s, g) => s + g.size, 0);
-  if (total !== rows) fail(where, `the segment sizes add up to ${total}, but key "training.rows" is ${rows}; they must agree.`);
+  const noiseRows = need(training, 'noiseRows', 'number', at, true);
+  if (noiseRows !== undefined && (rule !== 'nearest-dense-row' || !Number.isInteger(noiseRows) || noiseRows < 0))
+    fail(at, `key "noiseRows" is ${noiseRows}; only nearest-dense-row definitions count noise, as a whole number ≥ 0.`);
+  const total = segments.reduce((s, g) => s + g.size, 0) + (noiseRows ?? 0);
+  if (total !== rows)
+    fail(
+      where,
+      `the segment sizes${noiseRows ? ' and noise rows' : ''} add up to ${total}, but key "training.rows" is ${rows}; they must agree.`,
+    );
+  if ((rule === 'nearest-dense-row') !== (methodName === 'density'))
+    fail(where, `key "rule" is "${rule}" for method "${methodName}"; density segments, and only they, use the nearest-dense-row rule.`);
+  const denseRows =
+    rule === 'nearest-dense-row'
+      ? checkDenseRows(d.denseRows, dims, segments, `${where}: denseRows`)
+      : d.denseRows === undefined
+        ? undefined
+        : fail(where, `key "denseRows" is set, but the rule is "${rule}"; only nearest-dense-row definitions store rows.`);
   const fingerprint = need(training, 'fingerprint', 'string', at);
   if (!/^sha256:[0-9a-f]{64}$/.test(fingerprint)) fail(at, 'key "fingerprint" must be "sha256:" followed by 64 hexadecimal digits.');
   const reproducedRows = need(training, 'reproducedRows', 'number', at);
@@ -258,7 +295,9 @@ export function readDefinition(source: string | object, where = 'loadDefinition'
     preparation: sortedKeys(preparation) as { [key: string]: JsonValue },
     features: features as string[],
     segments,
-    training: { rows, fingerprint, reproducedRows, labels },
+    training:
+      noiseRows === undefined ? { rows, fingerprint, reproducedRows, labels } : { rows, fingerprint, reproducedRows, labels, noiseRows },
+    denseRows,
     trainingDistributions: distributions,
     evidence: evidence === undefined ? undefined : (sortedKeys(evidence) as { [key: string]: JsonValue }),
   };

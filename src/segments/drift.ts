@@ -89,7 +89,12 @@ interface RowVerdict {
 }
 
 /** Segments handed back from elsewhere, matched to the new rows by id; every row must be there once. */
-function fromScored(scored: readonly ScoredRow[], outcome: AssignmentOutcome, k: number): { verdicts: RowVerdict[]; farGiven: boolean } {
+function fromScored(
+  scored: readonly ScoredRow[],
+  outcome: AssignmentOutcome,
+  k: number,
+  noiseAllowed = false,
+): { verdicts: RowVerdict[]; farGiven: boolean } {
   if (!Array.isArray(scored)) throw new KinsortError('drift: "scored" must be an array of { id, segment, far } rows.', 'bad-argument');
   const byId = new Map<string, RowVerdict>();
   let farGiven = scored.length > 0;
@@ -100,9 +105,11 @@ function fromScored(scored: readonly ScoredRow[], outcome: AssignmentOutcome, k:
     const id = String(r.id);
     if (byId.has(id)) throw new KinsortError(`drift: id "${id}" appears twice in the scored rows (row ${i + 1}).`, 'bad-input');
     const s = r.segment === null || r.segment === undefined ? null : Number(r.segment);
-    if (s !== null && !(Number.isInteger(s) && s >= 1 && s <= k)) {
+    // Density definitions score noise as segment 0 (and far); other rules never give 0.
+    const lowest = noiseAllowed ? 0 : 1;
+    if (s !== null && !(Number.isInteger(s) && s >= lowest && s <= k)) {
       throw new KinsortError(
-        `drift: scored row ${i + 1} (id "${id}") has segment ${JSON.stringify(r.segment)}; expected 1..${k} or null.`,
+        `drift: scored row ${i + 1} (id "${id}") has segment ${JSON.stringify(r.segment)}; expected ${lowest}..${k} or null.`,
         'bad-input',
       );
     }
@@ -142,7 +149,7 @@ export function driftOf(
   const notes: string[] = [];
   let verdicts: RowVerdict[] = assigned.rows.map((r) => ({ segment: r.segment, far: r.far }));
   if (opts.scored !== undefined) {
-    const handed = fromScored(opts.scored, assigned, k);
+    const handed = fromScored(opts.scored, assigned, k, definition.rule === 'nearest-dense-row');
     if (!handed.farGiven) {
       notes.push('The scored rows carry no "far" flag for every row: far rows are counted from the in-memory assignment.');
       handed.verdicts.forEach((v, i) => (v.far = v.segment === null ? null : assigned.rows[i].far));
@@ -158,7 +165,8 @@ export function driftOf(
   for (const v of verdicts) {
     if (v.segment === null) continue;
     scoredRows++;
-    counts[v.segment - 1]++;
+    // Noise (segment 0, density definitions) is in no segment's share; it counts as far.
+    if (v.segment >= 1) counts[v.segment - 1]++;
     if (v.far) farRows++;
   }
   const segments: SegmentDrift[] = definition.segments.map((s, c) => ({

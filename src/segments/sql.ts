@@ -22,6 +22,7 @@ import { tableReference } from '../engines/source';
 import type { Preparation } from '../prepare/types';
 import type { SegmentDefinition } from './definition-types';
 import { beyondColumn, featureColumn, PREFIX, preparedFeatureLayers, renderLayers, type Layer } from './sql-features';
+import { mixtureLayers } from './sql-mixture';
 
 export interface SqlOptions {
   /**
@@ -55,7 +56,7 @@ export const SQL_MAX_FIGURES = 400_000;
 /** SQLite: the distance is a chain of one addition per feature, within its depth limit of 1000. */
 export const SQLITE_MAX_FEATURES = 900;
 
-const OUTPUT_NAMES = ['segment', 'distance', 'far'];
+const OUTPUT_NAMES = ['segment', 'distance', 'far', 'probability'];
 
 function chooseDialect(opts: SqlOptions): SqlDialect {
   if (opts.engine !== undefined && opts.dialect !== undefined && opts.engine.dialect !== opts.dialect) {
@@ -71,6 +72,12 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   const opts = checkOptions(options, ['table', 'idColumn', 'dialect', 'engine', 'maxQueryBytes', 'carry'], 'toSql');
   if (opts.table === undefined || opts.table === null) {
     throw new KinsortError('toSql: give the table to score, e.g. toSql({ table: "riders", dialect: "duckdb" }).', 'bad-argument');
+  }
+  if (definition.rule === 'nearest-dense-row') {
+    throw new KinsortError(
+      'toSql: density definitions (rule nearest-dense-row) are scored in memory only for now (assign); their SQL is not written yet.',
+      'not-supported',
+    );
   }
   const d = chooseDialect(opts);
   const from = tableReference(opts.table, d);
@@ -92,7 +99,9 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
   checkSqlText(idColumn, 'the id column');
   const k = definition.segments.length;
   const dims = definition.features.length;
-  if (k > SQL_MAX_SEGMENTS || k * dims > SQL_MAX_FIGURES) {
+  // A mixture also writes each component's lower-triangle factor (d(d + 1)/2 figures).
+  const figures = definition.rule === 'highest-posterior' ? (k * dims * (dims + 3)) / 2 : k * dims;
+  if (k > SQL_MAX_SEGMENTS || figures > SQL_MAX_FIGURES) {
     throw new KinsortError(
       `toSql: ${k} segments × ${dims} features is beyond what kinsort writes as one statement (at most ${SQL_MAX_SEGMENTS} segments and ${SQL_MAX_FIGURES.toLocaleString('en-US')} centre figures).`,
       'too-large',
@@ -185,12 +194,20 @@ export function definitionToSql(definition: SegmentDefinition, options: SqlOptio
       `CASE WHEN ${nearest} IS NULL THEN NULL WHEN ${d.least(definition.segments.map((_, c) => `${dist(c)} - ${limit(c)}`))} > ${d.doubleLiteral(0)} THEN 1 ELSE 0 END AS ${q('far')}`,
     ],
   };
+  const mixture =
+    definition.rule === 'highest-posterior'
+      ? mixtureLayers(definition, d, pass.join(', '), f, bounded ? big : undefined, PREFIX)
+      : undefined;
   const header = [
     `-- kinsort segment definition, written by ${commentText(definition.writtenBy)} (format ${Number(definition.formatVersion)}): ${k} segments, rule ${commentText(definition.rule)}, metric ${commentText(definition.metric)}.`,
-    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far.`,
+    `-- Dialect: ${d.title}. Returns the id, segment (NULL where assign refuses the row), distance and far${mixture ? ', and the posterior probability of the segment' : ''}.`,
     ...d.caveats.map((c) => `-- ${commentText(c)}`),
   ];
-  const sql = header.join('\n') + '\n' + renderLayers([...prepared, distances, least], final, from, d) + '\n';
+  const sql =
+    header.join('\n') +
+    '\n' +
+    renderLayers([...prepared, ...(mixture ? mixture.layers : [distances, least])], mixture ? mixture.final : final, from, d) +
+    '\n';
   const cap = opts.maxQueryBytes ?? d.maxQueryBytes;
   if (cap !== undefined) {
     if (typeof cap !== 'number' || !(cap > 0))

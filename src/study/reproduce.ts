@@ -9,8 +9,8 @@ import type { DefinitionMetric } from '../segments/definition-types';
 
 /** How far the stored rule reproduces the training segments. */
 export interface RuleAgreement {
-  /** 'nearest-center' or 'nearest-medoid': the rule a definition stores. */
-  readonly rule: 'nearest-center' | 'nearest-medoid';
+  /** 'nearest-center', 'nearest-medoid' or 'highest-posterior' (mixtures): the rule a definition stores. */
+  readonly rule: 'nearest-center' | 'nearest-medoid' | 'highest-posterior';
   readonly rows: number;
   /** Training rows the rule gives the segment the fit gave them. */
   readonly reproduced: number;
@@ -32,7 +32,7 @@ export function ruleAgreement(
   assignment: Int32Array,
   centers: readonly (readonly number[])[],
   metric: DefinitionMetric,
-  rule: RuleAgreement['rule'],
+  rule: 'nearest-center' | 'nearest-medoid',
 ): RuleAgreement {
   const k = centers.length;
   const near = nearestCenters(m.data, m.rows, flat(centers), k, m.cols, metric);

@@ -2,6 +2,9 @@
 // the analyst's names, and every way to look at it or hand it on. k-means, k-medoids and a cut of
 // a hierarchy all give this one kind of object.
 import { saveText } from '../core/save-file';
+import { takeRows } from '../core/matrix';
+import type { DensitySegmentsResult } from '../methods/density';
+import { buildDensityDefinition } from '../segments/definition-dense-build';
 import { KinsortError } from '../core/errors';
 import { checkInteger, checkOptions } from '../core/options';
 import type { Seed } from '../random';
@@ -27,18 +30,32 @@ import { writeUpPage } from '../views/write-up-page';
 import { segmentRules, type SegmentRulesOptions } from './segment-rules';
 import type { SegmentRules } from '../segments/rules';
 import { HIERARCHY_CALLS, installWrongStepGuards, type AskTheHierarchyInstead } from './wrong-step';
+import { membershipTable, mixtureAgreement, type MembershipTable, type MixtureParts } from './mixture-parts';
+
+/** The rule's name as the notes and cards print it. */
+function ruleWords(rule: RuleAgreement['rule']): string {
+  return rule === 'nearest-center' ? 'nearest-centre' : rule;
+}
+
+/** The noise card's title and text (density segments). */
+export const NOISE_TITLE = 'Noise: in no segment';
+const NOISE_TEXT =
+  'Rows in no dense region at the chosen minSize / minSamples. They are kept and shown, not dropped; their outlier scores are on the fit.';
 
 export interface SegmentName {
   title?: string;
   text?: string;
 }
 
+/** How a segmentation was made: a definition method, or density segments (which mark noise). */
+export type SegmentationMethod = DefinitionMethodName | 'density';
+
 /** What a fitting step hands to a Segmentation. */
 export interface SegmentationParts {
-  method: DefinitionMethodName;
+  method: SegmentationMethod;
   /** The options that reproduce the fit (seed, restarts, k, metric, linkage …), for the definition. */
   options: Record<string, unknown>;
-  /** 0..k-1 per prepared row. */
+  /** 0..k-1 per prepared row; -1 (noise, in no segment) only from density segments. */
   assignment: Int32Array;
   /** One vector per segment in the prepared space (means, or the medoids' rows). */
   centers: number[][];
@@ -55,21 +72,25 @@ export interface SegmentationParts {
   labels?: TrainingLabels;
   /** What the fitting step decided that a person should know. */
   notes?: string[];
+  /** Gaussian mixtures: weights, covariances and membership probabilities. */
+  mixture?: MixtureParts;
 }
 
 const NAME_OPTIONS = ['title', 'text'];
 
 export class Segmentation {
-  readonly method: DefinitionMethodName;
+  readonly method: SegmentationMethod;
   readonly k: number;
   /**
    * Segment of every prepared row, 0..k-1: the functional core's numbering (index into `centers`,
    * `sizes`). Everything a person reads (names, cards, profiles, members, definitions, `segments`)
-   * numbers segments 1..k.
+   * numbers segments 1..k. Density segments mark rows in no segment (noise) with -1.
    */
   readonly assignment: Int32Array;
-  /** Segment of every prepared row, 1..k, as names, cards, members and definitions number them. */
+  /** Segment of every prepared row, 1..k, as names, cards, members and definitions number them; 0 = noise. */
   readonly segments: Int32Array;
+  /** Rows in no segment (noise; density segments only, else 0). Never counted in `sizes`. */
+  readonly noiseCount: number;
   /** Ids of the prepared rows, in the same order as `assignment`. */
   readonly ids: readonly string[];
   /** Rows per segment, segment 1 first. */
@@ -84,6 +105,7 @@ export class Segmentation {
   /** Notes on the fit (settling k-means, how far the scoring rule reproduces the segments). */
   readonly notes: readonly string[];
   private readonly options: Record<string, unknown>;
+  private readonly mixture?: MixtureParts;
   private readonly given: Map<number, SegmentName> = new Map();
   private agreementCache?: RuleAgreement | null;
   private readonly dissimilarityUsed?: Dissimilarity;
@@ -111,16 +133,22 @@ export class Segmentation {
     this.ids = parts.data.ids;
     this.options = parts.options;
     this.dissimilarityUsed = parts.dissimilarity;
+    this.mixture = parts.mixture;
     const sizes = new Array<number>(this.k).fill(0);
-    for (let i = 0; i < parts.assignment.length; i++) sizes[parts.assignment[i]]++;
+    let noiseCount = 0;
+    for (let i = 0; i < parts.assignment.length; i++) {
+      if (parts.assignment[i] < 0) noiseCount++;
+      else sizes[parts.assignment[i]]++;
+    }
     this.sizes = sizes;
+    this.noiseCount = noiseCount;
     this.labels = parts.labels ?? 'fit';
     const notes = [...(parts.notes ?? [])];
     const agreement = this.ruleAgreement();
     if (agreement && agreement.reproduced < agreement.rows) {
       const how = this.method === 'hierarchy' ? 'a hierarchy cut' : this.method;
       notes.push(
-        `The definition scores rows by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule, ` +
+        `The definition scores rows by the ${ruleWords(agreement.rule)} rule, ` +
           `which gives ${agreement.reproduced.toLocaleString('en-US')} of the ${agreement.rows.toLocaleString('en-US')} training rows ` +
           `the segment ${how} gave them (${(agreement.rows - agreement.reproduced).toLocaleString('en-US')} differ). The definition records ` +
           `this; call .relabelByRule() for a segmentation whose segments are the rule's own.`,
@@ -143,10 +171,13 @@ export class Segmentation {
    * gives the segment this segmentation gives them; null when no definition can be built (Gower).
    */
   ruleAgreement(): RuleAgreement | null {
+    // Density segments have no nearest-centre rule (they can leave rows in no segment).
+    if (this.method === 'density') return null;
     if (this.agreementCache === undefined) {
       const metric = this.ruleMetric();
-      this.agreementCache =
-        metric === null
+      this.agreementCache = this.mixture
+        ? mixtureAgreement(this.data.matrix, this.assignment, this.centers, this.mixture)
+        : metric === null
           ? null
           : ruleAgreement(
               this.data.matrix,
@@ -166,6 +197,12 @@ export class Segmentation {
    */
   relabelByRule(): Segmentation {
     const agreement = this.ruleAgreement();
+    if (this.method === 'density') {
+      throw new KinsortError(
+        'relabelByRule: density segments have no nearest-centre rule to relabel by; their segments and noise are the fit itself.',
+        'not-supported',
+      );
+    }
     if (agreement === null) {
       throw new KinsortError(
         `relabelByRule: this k-medoids segmentation uses the "${String(this.options.metric)}" metric, which a definition cannot carry, so there is no scoring rule to relabel by.`,
@@ -185,7 +222,9 @@ export class Segmentation {
     }
     const moved = agreement.rows - agreement.reproduced;
     const objective =
-      this.method === 'kmedoids' ? this.objective : { name: 'withinSS', value: withinAround(this.data.matrix, assignment, this.centers) };
+      this.method === 'kmedoids' || this.mixture
+        ? this.objective
+        : { name: 'withinSS', value: withinAround(this.data.matrix, assignment, this.centers) };
     const relabelled = new Segmentation({
       method: this.method,
       options: this.options,
@@ -197,10 +236,14 @@ export class Segmentation {
       data: this.data,
       dissimilarity: this.dissimilarityUsed,
       labels: 'rule',
+      mixture: this.mixture,
       notes: [
-        `Relabelled by the ${agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre'} rule: ${moved.toLocaleString('en-US')} of ` +
-          `${agreement.rows.toLocaleString('en-US')} training rows moved to the segment whose ${this.method === 'kmedoids' ? 'medoid' : 'centre'} is nearest; ` +
-          `the ${this.method === 'kmedoids' ? 'medoids' : 'centres'} are the fit's, unchanged.`,
+        this.mixture
+          ? `Relabelled by the highest-posterior rule: ${moved.toLocaleString('en-US')} of ${agreement.rows.toLocaleString('en-US')} training rows ` +
+            "moved to the component the stored rule gives them; weights, means and covariances are the fit's, unchanged."
+          : `Relabelled by the ${ruleWords(agreement.rule)} rule: ${moved.toLocaleString('en-US')} of ` +
+            `${agreement.rows.toLocaleString('en-US')} training rows moved to the segment whose ${this.method === 'kmedoids' ? 'medoid' : 'centre'} is nearest; ` +
+            `the ${this.method === 'kmedoids' ? 'medoids' : 'centres'} are the fit's, unchanged.`,
       ],
     });
     for (const [s, n] of this.given) relabelled.name(s, n);
@@ -234,7 +277,7 @@ export class Segmentation {
     return out;
   }
 
-  /** Segment number (1..k) of the row with this id. */
+  /** Segment number (1..k) of the row with this id; 0 when the row is noise (in no segment, density segments). */
   segmentOf(id: string): number {
     this.indexById ??= new Map(this.ids.map((v, i) => [v, i]));
     const i = this.indexById.get(String(id));
@@ -247,7 +290,14 @@ export class Segmentation {
     return this.assignment[i] + 1;
   }
 
-  /** Ids of the rows in segment `segment` (1..k). */
+  /** Ids of the rows in no segment (noise; density segments only, else empty). */
+  noiseMembers(): string[] {
+    const out: string[] = [];
+    for (let i = 0; i < this.assignment.length; i++) if (this.assignment[i] < 0) out.push(this.ids[i]);
+    return out;
+  }
+
+  /** Ids of the rows in segment `segment` (1..k); noise rows are in none (see noiseMembers()). */
   members(segment: number): string[] {
     this.checkSegment(segment, 'members');
     const out: string[] = [];
@@ -258,6 +308,7 @@ export class Segmentation {
   /** Silhouettes of every row (Rousseeuw 1987), in the space the segmentation was fitted in. */
   silhouette(): SilhouetteResult & Showable {
     this.requireTwo('silhouette');
+    if (this.noiseCount > 0) return this.silhouetteWithoutNoise();
     this.silhouetteCache ??= this.dissimilarityUsed
       ? silhouette(this.dissimilarityUsed, this.assignment)
       : silhouette(this.data.matrix, this.assignment);
@@ -271,6 +322,13 @@ export class Segmentation {
    */
   stability(options: { resamples?: number; seed?: Seed; onProgress?: ProgressCallback } = {}): StabilityResult {
     const opts = checkOptions(options, ['resamples', 'seed', 'onProgress'], 'stability');
+    if (this.method === 'density') {
+      throw new KinsortError(
+        'stability: bootstrap stability reruns k-means or k-medoids; density segments are not rerun on resamples. ' +
+          'Compare density fits with other minSize / minSamples through compare(), or read the outlier scores on fit.',
+        'not-supported',
+      );
+    }
     if (this.method === 'hierarchy') {
       throw new KinsortError(
         'stability: bootstrap stability reruns k-means or k-medoids; for a hierarchy cut compare cuts of resampled trees, or fit k-means with the same k and assess that.',
@@ -283,6 +341,7 @@ export class Segmentation {
       resamples: opts.resamples,
       seed,
       method: this.method,
+      ...(this.mixture ? { covariance: this.mixture.covariance, restarts: (this.options.restarts as number | undefined) ?? 1 } : {}),
       assignment: this.assignment,
       onProgress: opts.onProgress,
     });
@@ -301,19 +360,24 @@ export class Segmentation {
     }
     const stab = this.stabilityCache;
     const agreement = this.ruleAgreement();
+    // Noise rows get a profile of their own after the segments' (number k + 1, marked noise), so
+    // cards and write-ups show them, never drop them.
+    const names: Record<number, SegmentName> = this.names();
+    if (this.noiseCount > 0) names[this.k + 1] = { title: NOISE_TITLE, text: NOISE_TEXT };
     const profiles = profileSegments({
-      assignment: this.assignment,
+      assignment: this.noiseCount > 0 ? Int32Array.from(this.assignment, (a) => (a < 0 ? this.k : a)) : this.assignment,
       features: this.data.matrix,
       ids: this.ids,
       used,
       keep,
       medoids: this.medoids,
       stability: stab ? { jaccard: stab.jaccard, reading: stab.reading } : undefined,
-      names: this.names(),
+      names,
       top: opts.top,
     });
+    if (this.noiseCount > 0) return profiles.map((p) => (p.index === this.k ? { ...p, noise: true } : p));
     if (agreement === null) return profiles;
-    const rule = agreement.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    const rule = ruleWords(agreement.rule);
     return profiles.map((p) => ({ ...p, rule: { name: rule, reproduced: agreement.perSegment[p.index], size: p.size } }));
   }
 
@@ -328,12 +392,28 @@ export class Segmentation {
     const opts = checkOptions(options, ['loadings', 'title'], 'projection');
     this.projectionCache ??= project(this.data.matrix, { components: 2 });
     return projectionView(this.projectionCache, this.assignment, {
+      noise: this.noiseCount > 0,
       ids: this.ids,
       centers: this.centers,
       names: this.titles(),
       loadings: opts.loadings,
       title: opts.title,
+      ...(this.mixture ? { uncertain: { flags: this.membership().uncertain, below: this.mixture.uncertainBelow } } : {}),
     });
+  }
+
+  /**
+   * Mixtures only: each row's membership probabilities (n × k, row-major), its top probability and
+   * whether that is below the uncertainty threshold the projection marks.
+   */
+  membership(): MembershipTable {
+    if (!this.mixture) {
+      throw new KinsortError(
+        `membership: a ${this.method} segmentation gives each row one segment, not probabilities; fit a Gaussian mixture (prepared.mixture({ k })) for memberships.`,
+        'not-supported',
+      );
+    }
+    return membershipTable(this.mixture, this.ids, this.k);
   }
 
   /** Agreement with another segmentation of the same rows: ARI, NMI and the cross-table. */
@@ -365,18 +445,27 @@ export class Segmentation {
    * one readable rule per leaf, their agreement with the segments, apply() and toSql().
    */
   rules(options: SegmentRulesOptions = {}): SegmentRules & Showable & { drawTree(): View } {
+    if (this.noiseCount > 0) {
+      // Noise is one more class for the tree (number k + 1, named so): its rules say who is in no segment.
+      const titles = { ...this.titles(), [this.k + 1]: NOISE_TITLE };
+      const assignment = Int32Array.from(this.assignment, (a) => (a < 0 ? this.k : a));
+      return segmentRules(this.data, assignment, this.k + 1, titles, options);
+    }
     return segmentRules(this.data, this.assignment, this.k, this.titles(), options);
   }
 
   /** Everything needed to reproduce and apply this segmentation to new rows. */
   definition(options: { note?: string } = {}): DefinitionHandle {
     const opts = checkOptions(options, ['note'], 'definition');
+    if (this.method === 'density') return definitionHandle(this.densityDefinition(opts.note));
+    const method = this.method;
     const names = this.names();
     const def = buildDefinition(
       {
         preparation: this.data.preparation,
-        method: { name: this.method, options: this.options },
+        method: { name: method, options: this.options },
         centers: this.method === 'kmedoids' ? undefined : this.centers,
+        mixture: this.mixture ? { weights: this.mixture.weights, covariances: this.mixture.covariances } : undefined,
         medoids: this.medoids ? [...this.medoids] : undefined,
         segments: this.sizes.map((size, s) => ({ number: s + 1, size, ...names[s + 1] })),
         training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment },
@@ -430,12 +519,20 @@ export class Segmentation {
       case 'kmedoids':
         how = `k-medoids (PAM) with k = ${this.k}, ${o.metric ?? 'euclidean'} dissimilarity, on ${rows}.`;
         break;
+      case 'mixture':
+        how = `Gaussian mixture (EM) with k = ${this.k}, ${o.covariance ?? 'full'} covariance, ${o.restarts ?? 1} restart(s), seed ${o.seed ?? 0}, on ${rows}.`;
+        break;
+      case 'density':
+        how =
+          `Density segments (HDBSCAN, minSize ${o.minSize}, minSamples ${o.minSamples}, ${o.metric ?? 'euclidean'}): ${this.k} segments ` +
+          `and ${this.noiseCount.toLocaleString('en-US')} rows in no segment (noise), on ${rows}.`;
+        return how;
       default:
         how = `Agglomerative hierarchy (${o.linkage} linkage, ${o.metric ?? 'euclidean'}) cut into ${this.k} segments, on ${rows}.`;
     }
     const a = this.ruleAgreement();
     if (a === null) return how;
-    const rule = a.rule === 'nearest-medoid' ? 'nearest-medoid' : 'nearest-centre';
+    const rule = ruleWords(a.rule);
     if (this.labels === 'rule')
       return `${how} Segments relabelled by the ${rule} rule that scores new rows, so the two agree on every training row.`;
     if (a.reproduced === a.rows) return `${how} The ${rule} rule that scores new rows gives every training row its segment.`;
@@ -449,6 +546,35 @@ export class Segmentation {
     if (this.silhouetteCache) out.averageSilhouette = this.silhouetteCache.average;
     if (this.stabilityCache) out.stabilityJaccard = [...this.stabilityCache.jaccard];
     return out;
+  }
+
+  /** The nearest-dense-row definition: every training row in a segment stored with its core distance. */
+  private densityDefinition(note: string | undefined) {
+    const fit = this.fit as DensitySegmentsResult;
+    const names = this.names();
+    return buildDensityDefinition({
+      preparation: this.data.preparation,
+      options: this.options,
+      metric: fit.metric,
+      training: { ids: this.ids, matrix: this.data.matrix, assignment: this.assignment, coreDistances: fit.coreDistances },
+      centers: this.centers.map((c) => [...c]),
+      segments: this.sizes.map((_, s) => ({ ...names[s + 1] })),
+      featureNames: this.data.featureNames,
+      evidence: { ...this.evidence(), noiseRows: this.noiseCount },
+      note,
+    });
+  }
+
+  /** Silhouettes of the rows in a segment only: noise is no segment, so it has no silhouette. Stated on the result. */
+  private silhouetteWithoutNoise(): SilhouetteResult & Showable & { noiseLeftOut: number } {
+    const kept: number[] = [];
+    for (let i = 0; i < this.assignment.length; i++) if (this.assignment[i] >= 0) kept.push(i);
+    const assignment = Int32Array.from(kept, (i) => this.assignment[i]);
+    const ids = kept.map((i) => this.ids[i]);
+    this.silhouetteCache ??= silhouette(takeRows(this.data.matrix, kept), assignment);
+    const result = this.silhouetteCache;
+    const noiseLeftOut = this.noiseCount;
+    return showable({ ...result, noiseLeftOut }, () => silhouetteView(result, assignment, { names: this.titles(), ids }));
   }
 
   private titles(): Record<number, string> {

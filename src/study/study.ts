@@ -8,6 +8,8 @@ import { prepareTable, type PrepareOptions, type PreparedData } from '../prepare
 import { dissimilarity, type DissimilarityOptions } from '../measure/dissimilarity';
 import type { Dissimilarity } from '../measure/condensed';
 import { kmeans, kmedoids, type KmeansOptions } from '../methods/partition';
+import { densitySegments } from '../methods/density';
+import { takeRows } from '../core/matrix';
 import { agglomerate, type LinkageMethod } from '../methods/hierarchy';
 import { project, type Projection } from '../methods/project';
 import { compareK, type CompareKOptions, type CompareKResult } from '../assess/compare-k';
@@ -22,6 +24,9 @@ import { VariableHierarchy } from './variable-hierarchy';
 import { variableColumns } from './variable-columns';
 import { variableTree, type CorrelationKind, type CorrelationStrength, type VariableLinkage } from '../methods/variables';
 import { installWrongStepGuards, PREPARED_STUDY_CALLS, type PrepareTheStudyFirst } from './wrong-step';
+import { fitMixture, type StudyMixtureOptions } from './mixture-fit';
+import { compareMixtures, type CompareMixturesOptions, type CompareMixturesResult } from '../assess/compare-mixtures';
+import { mixtureEvidenceView } from '../views/mixture-evidence';
 
 /** Which columns play which part. */
 export interface StudyRoles {
@@ -63,6 +68,8 @@ export class Study {
   declare readonly agglomerate: PrepareTheStudyFirst;
   declare readonly project: PrepareTheStudyFirst;
   declare readonly variableTree: PrepareTheStudyFirst;
+  declare readonly mixture: PrepareTheStudyFirst;
+  declare readonly compareMixtures: PrepareTheStudyFirst;
 
   constructor(
     readonly table: Table,
@@ -185,6 +192,22 @@ export class PreparedStudy {
     });
   }
 
+  /**
+   * A Gaussian mixture on the prepared rows (EM; 5 restarts unless given). The segmentation's
+   * membership() gives each row's probabilities; its definition scores new rows by the
+   * highest-posterior rule.
+   */
+  mixture(options: StudyMixtureOptions): Segmentation {
+    return fitMixture(this.data, options, progressFor(options?.onProgress, 'mixture restarts'));
+  }
+
+  /** Gaussian mixtures over a range of k and covariance shapes, compared by BIC (lower is better), with a view. */
+  compareMixtures(options: CompareMixturesOptions = {}): CompareMixturesResult & Showable {
+    const onProgress = progressFor(options?.onProgress, 'Comparing mixtures');
+    const result = compareMixtures(this.data.matrix, { ...options, onProgress });
+    return showable(result, () => mixtureEvidenceView(result));
+  }
+
   /** k-medoids (PAM) on the prepared rows, or on Gower dissimilarities of the mixed columns. */
   kmedoids(options: { k: number; metric?: DissimilarityOptions['metric']; seed?: number; onProgress?: ProgressCallback }): Segmentation {
     const opts = checkOptions(options, ['k', 'metric', 'seed', 'onProgress'], 'kmedoids');
@@ -202,6 +225,62 @@ export class PreparedStudy {
       objective: { name: 'cost', value: fit.cost },
       data: this.data,
       dissimilarity: d,
+    });
+  }
+
+  /**
+   * Density segments (HDBSCAN) on the prepared rows: segments where rows are dense, the rest marked
+   * as noise (`assignment` -1, `segments` 0), shown and counted in every view. `fit` holds the
+   * outlier scores, membership strengths and condensed-tree branches. O(n²) time, O(n) memory.
+   */
+  density(options: {
+    minSize: number;
+    minSamples?: number;
+    metric?: DissimilarityOptions['metric'];
+    onProgress?: ProgressCallback;
+  }): Segmentation {
+    const opts = checkOptions(options, ['minSize', 'minSamples', 'metric', 'onProgress'], 'density');
+    const metric = opts.metric ?? 'euclidean';
+    if (metric === 'gower') {
+      throw new KinsortError(
+        'density: the gower metric needs the whole mixed table; use a row metric (euclidean, manhattan, …) on the prepared rows.',
+        'bad-option',
+      );
+    }
+    const fit = densitySegments(this.data.matrix, {
+      minSize: opts.minSize,
+      ...(opts.minSamples === undefined ? {} : { minSamples: opts.minSamples }),
+      metric,
+      onProgress: progressFor(opts.onProgress, 'Density segments'),
+    });
+    if (fit.segmentCount === 0) {
+      throw new KinsortError(
+        `density: no segment found: all ${fit.noiseCount} rows are noise at minSize ${fit.minSize}, minSamples ${fit.minSamples}. ` +
+          'A smaller minSize or minSamples finds smaller dense groups.',
+        'bad-option',
+      );
+    }
+    // Segment means over the segment members only (noise is in no segment).
+    const kept = [...fit.assignment.keys()].filter((i) => fit.assignment[i] >= 0);
+    const means = segmentMeans(
+      takeRows(this.data.matrix, kept),
+      Int32Array.from(kept, (i) => fit.assignment[i]),
+      fit.segmentCount,
+    );
+    return new Segmentation({
+      method: 'density',
+      options: { minSize: fit.minSize, minSamples: fit.minSamples, metric },
+      assignment: fit.assignment,
+      centers: means.centers,
+      fit,
+      objective: { name: 'noise rows', value: fit.noiseCount },
+      data: this.data,
+      notes:
+        fit.noiseCount > 0
+          ? [
+              `${fit.noiseCount.toLocaleString('en-US')} of ${fit.assignment.length.toLocaleString('en-US')} rows are in no segment (noise); they are kept and shown as noise.`,
+            ]
+          : [],
     });
   }
 

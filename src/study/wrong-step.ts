@@ -37,7 +37,18 @@ export function installWrongStepGuards<T>(proto: T, names: readonly string[], ad
 }
 
 /** What a prepared study offers, for the "prepare first" guard on a study. */
-export const PREPARED_STUDY_CALLS = ['dissimilarity', 'compareK', 'kmeans', 'kmedoids', 'agglomerate', 'project', 'variableTree'] as const;
+export const PREPARED_STUDY_CALLS = [
+  'dissimilarity',
+  'compareK',
+  'kmeans',
+  'kmedoids',
+  'agglomerate',
+  'project',
+  'variableTree',
+  // Mixtures (issue #20).
+  'mixture',
+  'compareMixtures',
+] as const;
 
 /** What a segmentation offers that a hierarchy does not, for the "cut first" guard on a hierarchy. */
 export const SEGMENTATION_CALLS = [

@@ -22,7 +22,17 @@ export interface CardsOptions {
  */
 export type CardProfile = SegmentProfile & {
   readonly rule?: { readonly name: string; readonly reproduced: number; readonly size: number };
+  /** The rows in no segment (density segments): drawn in neutral ink, with no segment number. */
+  readonly noise?: boolean;
 };
+
+/** Ink of the noise card and of noise rows in other views: neutral, never a segment colour. */
+export const NOISE_INK = INK.muted;
+
+const NOISE_SWATCH = `<span class="ks-swatch" style="background:#ffffff;color:${NOISE_INK};border:1.5px dashed ${NOISE_INK}">·</span>`;
+
+const swatchOf = (p: CardProfile): string => (p.noise ? NOISE_SWATCH : htmlSwatch(p.segment - 1));
+const inkOf = (p: CardProfile): string => (p.noise ? NOISE_INK : segmentColour(p.segment - 1));
 
 /** The sections of a card, in order; each returns trusted HTML built from escaped pieces. */
 export type CardSection = (p: CardProfile, context: { reach: number }) => string;
@@ -129,7 +139,7 @@ function reproducedLine(p: CardProfile): string {
 /** Sections of every card, in order (a later section, e.g. rules, goes in this list). */
 export const CARD_SECTIONS: CardSection[] = [
   (p) =>
-    `<header>${htmlSwatch(p.segment - 1)}<h4>${escapeHtml(p.title ?? `Segment ${p.segment}`)}</h4></header>` +
+    `<header>${swatchOf(p)}<h4>${escapeHtml(p.title ?? `Segment ${p.segment}`)}</h4></header>` +
     `<p class="ks-size">${p.size.toLocaleString('en-US')} rows · ${(p.share * 100).toFixed(1)} % of all</p>` +
     reproducedLine(p) +
     (p.text ? `<p class="ks-text">${escapeHtml(p.text)}</p>` : ''),
@@ -145,7 +155,7 @@ export const CARD_SECTIONS: CardSection[] = [
 
 function card(p: CardProfile, reach: number): string {
   return (
-    `<article class="ks-card" style="border-top-color:${segmentColour(p.segment - 1)}">` +
+    `<article class="ks-card" style="border-top-color:${inkOf(p)}${p.noise ? ';border-top-style:dashed' : ''}">` +
     CARD_SECTIONS.map((section) => section(p, { reach })).join('') +
     `</article>`
   );
@@ -161,9 +171,9 @@ function cardsSvg(profiles: readonly CardProfile[], title: string, reach: number
   profiles.forEach((p, i) => {
     const x0 = (i % perRow) * panelW;
     const y0 = Math.floor(i / perRow) * panelH;
-    body.push(svgEl.rect({ x: x0 + 2, y: y0 + 4, width: 20, height: 16, rx: 3, fill: segmentColour(p.segment - 1) }));
+    body.push(svgEl.rect({ x: x0 + 2, y: y0 + 4, width: 20, height: 16, rx: 3, fill: inkOf(p) }));
     body.push(
-      svgEl.text(String(p.segment), {
+      svgEl.text(p.noise ? '·' : String(p.segment), {
         x: x0 + 12,
         y: y0 + 16,
         'text-anchor': 'middle',
@@ -191,7 +201,8 @@ export function profileCardsView(profiles: readonly CardProfile[], options: Card
   if (!Array.isArray(profiles) || profiles.length === 0 || typeof profiles[0]?.segment !== 'number') {
     refuse(where, `needs the profiles from profileSegments(), one per segment, but got ${kindOf(profiles)}.`);
   }
-  const title = opts.title ?? `Profiles of ${profiles.length} segments`;
+  const noiseCards = (profiles as readonly CardProfile[]).filter((p) => p.noise).length;
+  const title = opts.title ?? `Profiles of ${profiles.length - noiseCards} segments${noiseCards ? ' and of the rows in none (noise)' : ''}`;
   const caption =
     "One card per segment: the variables that set it apart most, each with the segment's value beside the value for all rows, " +
     'and the difference in standard deviations as a bar (dark, to the right: higher than all rows; light, to the left: lower).';

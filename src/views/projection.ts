@@ -5,6 +5,7 @@ import { checkOptions } from '../core/options';
 import { Matrix } from '../core/matrix';
 import { axisStyle, baseLayout, everyNth, kindOf, namesFrom, plotText, refuse, svgLegend, svgLegendLines } from './common';
 import { INK, segmentColour, textOn } from './palette';
+import { NOISE_INK } from './cards';
 import { extent, frame, pathData, svgDocument, svgEl } from './svg';
 import { makeView, View } from './view';
 
@@ -29,6 +30,13 @@ export interface ProjectionViewOptions {
   /** Segment names by number 1..k, for the legend. */
   names?: Readonly<Record<number, string>>;
   title?: string;
+  /** Rows whose segment is uncertain (1 = uncertain; e.g. a mixture's top membership below `below`), drawn as open rings. */
+  uncertain?: { readonly flags: ArrayLike<number>; readonly below: number };
+  /**
+   * Rows whose segment is -1 are noise (density segments): drawn as neutral rings, counted in a
+   * note, never coloured as a segment. Without this option -1 is an ordinary label.
+   */
+  noise?: boolean;
 }
 
 const MAX_STATIC_POINTS = 4000;
@@ -48,12 +56,29 @@ const pct = (r: number | undefined): string => (r === undefined || !Number.isFin
 
 export function projectionView(projection: ProjectionLike, assignment: ArrayLike<number>, options: ProjectionViewOptions = {}): View {
   const where = 'projectionView';
-  const opts = checkOptions(options, ['ids', 'centers', 'hover', 'loadings', 'names', 'title'], where);
+  const opts = checkOptions(options, ['ids', 'centers', 'hover', 'loadings', 'names', 'title', 'uncertain', 'noise'], where);
   const p = requireProjection(projection, where);
   const { scores, loadings } = p;
   if (scores.cols < 2) refuse(where, `the projection has ${scores.cols} component; ask project() for { components: 2 } or more.`);
   const n = scores.rows;
-  const { labels, k } = compactLabels(assignment, n, where, 'the projected rows');
+  // Noise rows borrow a real label for the compaction only; `isNoise` keeps them out of every segment.
+  const isNoise = new Uint8Array(n);
+  let noiseRows = 0;
+  let stand = 0;
+  if (opts.noise && assignment.length === n) {
+    for (let i = 0; i < n; i++) if (assignment[i] !== -1) stand = assignment[i];
+    for (let i = 0; i < n; i++) {
+      if (assignment[i] !== -1) continue;
+      isNoise[i] = 1;
+      noiseRows++;
+    }
+  }
+  const { labels, k } = compactLabels(
+    noiseRows ? Array.from(assignment, (a) => (a === -1 ? stand : a)) : assignment,
+    n,
+    where,
+    'the projected rows',
+  );
   if (opts.ids && opts.ids.length !== n) refuse(where, `${opts.ids.length} ids for ${n} rows.`);
   const ids = opts.ids ?? scores.rowLabels;
   const names = namesFrom(k, opts.names);
@@ -81,6 +106,7 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   } else {
     const count = new Float64Array(k);
     for (let i = 0; i < n; i++) {
+      if (isNoise[i]) continue;
       cx[labels[i]] += x[i];
       cy[labels[i]] += y[i];
       count[labels[i]]++;
@@ -121,7 +147,11 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const caption =
     'Each dot is a row placed by its two strongest directions of variation; colour and number give its segment, ' +
     'the large numbered discs mark segment centres. Segments that overlap here may still be apart in the components not shown.' +
-    (opts.loadings ? ' Arrows point the way each variable grows.' : '');
+    (opts.loadings ? ' Arrows point the way each variable grows.' : '') +
+    (opts.uncertain
+      ? ` Open rings are rows whose segment is uncertain: their highest membership probability is below ${opts.uncertain.below}.`
+      : '');
+  const unsure = (i: number) => opts.uncertain !== undefined && opts.uncertain.flags[i] === 1;
 
   // Static stand-in, equal units on both axes (a biplot): the plot area takes the data's aspect,
   // within limits; past them the shorter axis is widened instead.
@@ -151,7 +181,16 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const body = [...f.under];
   const stride = Math.max(1, Math.ceil(n / MAX_STATIC_POINTS));
   for (let i = 0; i < n; i += stride) {
-    body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: n > 1500 ? 2 : 3.2, fill: segmentColour(labels[i]), 'fill-opacity': 0.72 }));
+    const r = n > 1500 ? 2 : 3.2;
+    if (isNoise[i]) {
+      body.push(svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r, fill: 'none', stroke: NOISE_INK, 'stroke-width': 1 }));
+      continue;
+    }
+    body.push(
+      unsure(i)
+        ? svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r: r + 0.8, fill: 'none', stroke: segmentColour(labels[i]), 'stroke-width': 1.2 })
+        : svgEl.circle({ cx: f.x(x[i]), cy: f.y(y[i]), r, fill: segmentColour(labels[i]), 'fill-opacity': 0.72 }),
+    );
   }
   // Arrow labels go where they cover no centre disc: first beside the tip, else the other side
   // or above / below it; the discs are drawn last, so no label can hide one.
@@ -224,6 +263,8 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const still = svgDocument(width, height, title, body);
   const notes = stride > 1 ? [`${n} rows: the static picture draws ${everyNth(stride)} row; the live chart draws all.`] : [];
   if (unlabelled.length) notes.push(`Short arrows, unlabelled (little weight on these two components): ${unlabelled.join(', ')}.`);
+  if (noiseRows)
+    notes.push(`${noiseRows.toLocaleString('en-US')} of ${n.toLocaleString('en-US')} rows are in no segment (noise): grey rings.`);
 
   // Live chart: one trace per segment so the legend toggles segments.
   const hoverCols = Object.entries(opts.hover ?? {});
@@ -235,22 +276,42 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   const traceType = n > 5000 ? 'scattergl' : 'scatter';
   for (let s = 0; s < k; s++) {
     const rows: number[] = [];
-    for (let i = 0; i < n; i++) if (labels[i] === s) rows.push(i);
+    for (let i = 0; i < n; i++) if (labels[i] === s && !isNoise[i]) rows.push(i);
     data.push({
       type: traceType,
       mode: 'markers',
       name: plotText(names[s] ? `${s + 1} · ${names[s]}` : `${s + 1}`),
       x: rows.map((i) => x[i]),
       y: rows.map((i) => y[i]),
-      marker: { color: segmentColour(s), size: n > 1500 ? 5 : 7, opacity: 0.75, line: { width: 0 } },
+      marker: {
+        color: segmentColour(s),
+        size: n > 1500 ? 5 : 7,
+        opacity: 0.75,
+        line: { width: opts.uncertain ? 1.2 : 0, color: segmentColour(s) },
+        ...(opts.uncertain ? { symbol: rows.map((i) => (unsure(i) ? 'circle-open' : 'circle')) } : {}),
+      },
       text: rows.map((i) => {
-        const parts = [`<b>${plotText(ids?.[i] ?? `row ${i + 1}`)}</b>`, `segment ${s + 1}`];
+        const parts = [`<b>${plotText(ids?.[i] ?? `row ${i + 1}`)}</b>`, `segment ${s + 1}${unsure(i) ? ' (uncertain)' : ''}`];
         for (const [name, values] of hoverCols) {
           const v = values[i];
           parts.push(`${plotText(name)}: ${plotText(typeof v === 'number' ? Number(v.toPrecision(4)) : v)}`);
         }
         return parts.join('<br>');
       }),
+      hovertemplate: '%{text}<extra></extra>',
+    });
+  }
+  if (noiseRows) {
+    const rows: number[] = [];
+    for (let i = 0; i < n; i++) if (isNoise[i]) rows.push(i);
+    data.push({
+      type: traceType,
+      mode: 'markers',
+      name: 'noise (no segment)',
+      x: rows.map((i) => x[i]),
+      y: rows.map((i) => y[i]),
+      marker: { color: 'rgba(0,0,0,0)', size: n > 1500 ? 5 : 7, line: { color: NOISE_INK, width: 1 } },
+      text: rows.map((i) => `<b>${plotText(ids?.[i] ?? `row ${i + 1}`)}</b><br>noise: in no segment`),
       hovertemplate: '%{text}<extra></extra>',
     });
   }

@@ -65,6 +65,7 @@ export function transferRows(mem: KmeansMemory, maxPasses: number): TransferRun 
   const drift = new Float64Array(k);
   let widestDrift = 0;
   const distances = new Float64Array(4 * Math.ceil(k / 4));
+  const quad = new Float64Array(4);
   let smallest = minimum(sizes);
   let moves = 0;
   let settled = false;
@@ -96,8 +97,13 @@ export function transferRows(mem: KmeansMemory, maxPasses: number): TransferRun 
       }
       // Four centres at a time (the padded centres end in copies at infinity); each distance is
       // summed in column order, so distances[a] is `own` to the bit.
+      // (Through one scratch of four: a subarray per call allocated an object in the hottest loop.)
       for (let c = 0; c < k; c += 4) {
-        fourDistances(rows, ib, ib, ib, ib, paddedCentres, c * d, (c + 1) * d, (c + 2) * d, (c + 3) * d, d, distances.subarray(c, c + 4));
+        fourDistances(rows, ib, ib, ib, ib, paddedCentres, c * d, (c + 1) * d, (c + 2) * d, (c + 3) * d, d, quad);
+        distances[c] = quad[0];
+        distances[c + 1] = quad[1];
+        distances[c + 2] = quad[2];
+        distances[c + 3] = quad[3];
       }
       let best = -1;
       let bestCost = leave * own * (1 - MARGIN);
