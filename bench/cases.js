@@ -212,6 +212,26 @@ const MEMORY_CASE = {
   maxMs: 60_000,
 };
 
+/**
+ * The larger-than-memory case: 20 million rows × 8 columns in Parquet, DuckDB capped at 600 MB and
+ * 2 threads; the whole sample → refine → score → profile path in one child process.
+ */
+const DATABASE_CASE = {
+  id: 'database-refine',
+  title: 'Sample, refine in SQL, score, profile (Parquet, DuckDB capped)',
+  full: { n: 20_000_000, d: 8 },
+  quick: { n: 20_000, d: 8 },
+  k: 8,
+  sampleRows: 20_000,
+  memoryLimit: '600MB',
+  threads: 2,
+  maxMs: 120_000,
+  maxMB: 1024,
+  /** Relative gap of the within-SS to in-memory Lloyd from the same start. */
+  maxSSGap: 0.001,
+  timeoutMs: 3_600_000,
+};
+
 /** Scaling: each main case at n, 2n and 4n (small n), giving the growth factor per doubling. */
 /** @type {Record<string, { full: number, quick: number }>} */
 const SCALING = {
@@ -223,4 +243,4 @@ const SCALING = {
   pca: { full: 25_000, quick: 200 },
 };
 
-module.exports = { MAIN_CASES, HCLUST_CASES, HCLUST_MAX_ROWS, MEMORY_CASE, SCALING, SEED };
+module.exports = { MAIN_CASES, HCLUST_CASES, HCLUST_MAX_ROWS, MEMORY_CASE, DATABASE_CASE, SCALING, SEED };

@@ -102,4 +102,4 @@ function toNestedRows(data, n, d) {
 
 /** @typedef {typeof import('../src/index')} Kinsort the built package (dist/, typed from src/) */
 
-module.exports = { makeBlobs, prepareDataSet, readFloat64, removeScratch, toNestedRows, BLOB_COUNT };
+module.exports = { benchDir, makeBlobs, prepareDataSet, readFloat64, removeScratch, toNestedRows, BLOB_COUNT };

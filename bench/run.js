@@ -11,12 +11,13 @@
 // FILE and prints the table as usual.
 const fs = require('fs');
 const path = require('path');
-const { MAIN_CASES, HCLUST_CASES, HCLUST_MAX_ROWS, MEMORY_CASE, SCALING, SEED } = require('./cases');
-const { prepareDataSet, removeScratch, toNestedRows } = require('./data');
+const { MAIN_CASES, HCLUST_CASES, HCLUST_MAX_ROWS, MEMORY_CASE, DATABASE_CASE, SCALING, SEED } = require('./cases');
+const { benchDir, prepareDataSet, removeScratch, toNestedRows } = require('./data');
 const { timeKinsort, timePython, timeNpm, timeInterleaved, makeRow } = require('./compare');
 const { pythonPeerAvailable, startPythonPeer, PYTHON } = require('./python-peer');
 const { loadNpmPeers } = require('./npm-peers');
 const { runMemoryCase } = require('./memory');
+const { runDatabaseCase } = require('./database');
 const { runScaling } = require('./scaling');
 const { describeMachine } = require('./machine');
 const { caseTable, scalingTable, machineText } = require('./report');
@@ -144,6 +145,22 @@ async function main() {
       const set = prepareDataSet(kinsort, { ...size(MEMORY_CASE), seed: SEED, tag: MEMORY_CASE.id });
       progress(`${MEMORY_CASE.id} ${set.n} × ${set.d}: kinsort child, then SciPy in its own process`);
       rows.push(...(await runMemoryCase({ kinsort, distDir: DIST, memoryCase: MEMORY_CASE, set, python, skipPython: !args.scipyMemory })));
+    }
+
+    if (wanted(DATABASE_CASE.id)) {
+      // Tiny under --quick (it proves the harness); 20 million rows in a full run.
+      const dbSize = size(DATABASE_CASE);
+      rows.push(
+        ...(await runDatabaseCase({
+          kinsort,
+          distDir: DIST,
+          databaseCase: DATABASE_CASE,
+          size: dbSize,
+          seed: SEED,
+          scratch: benchDir(),
+          progress,
+        })),
+      );
     }
 
     /** @type {Awaited<ReturnType<typeof runScaling>>} */

@@ -49,6 +49,13 @@ export interface SqlDialect {
    * not one (grammar not matched, or not finite). `t` is a column reference, read several times.
    */
   numberFromText(t: string, mark: DecimalMark): string;
+  /**
+   * Where the engine can tell that a cell is stored as a number whose text the text rule reads back
+   * to the same double (with '.' as the decimal mark): the test, and that double. The text rule is
+   * then skipped for the cell: the same value, without printing and parsing it (DuckDB only:
+   * printing every cell of a wide Parquet file as text costs more than the rest of the scoring).
+   */
+  readonly nativeNumber?: (expr: string) => { readonly test: string; readonly value: string };
   /** The least of several doubles, none NULL (the caller tests for missing rows first). */
   least(exprs: readonly string[]): string;
   /** The 1-based position of the first of `exprs` equal to `value` (NULL when `value` is NULL). */

@@ -121,6 +121,9 @@ const pgArithmetic = {
   featureBound: 1e150,
 };
 
+/** DuckDB column types whose every finite value the text rule reads back exactly from its printed text. */
+const NATIVE_DUCKDB_TYPES = ['DOUBLE', 'BIGINT', 'INTEGER', 'SMALLINT', 'TINYINT', 'UBIGINT', 'UINTEGER', 'USMALLINT', 'UTINYINT'];
+
 const duckdb: SqlDialect = {
   name: 'duckdb',
   title: 'DuckDB',
@@ -141,6 +144,14 @@ const duckdb: SqlDialect = {
     const v = `TRY_CAST(${dotted(t, mark)} AS DOUBLE)`;
     return `CASE WHEN regexp_full_match(${t}, ${standardString(numberGrammar(mark))}) AND isfinite(${v}) THEN ${v} END`;
   },
+  // DOUBLE prints as the shortest text that reads back to it, integers exactly; a finite such cell
+  // is that number under the text rule. typeof() is fixed when the query is planned, so for any
+  // other column type the test is constant false. FLOAT and DECIMAL print a shorter text than
+  // their double value, so they keep the text rule.
+  nativeNumber: (e) => ({
+    test: `(typeof(${e}) IN (${NATIVE_DUCKDB_TYPES.map(standardString).join(', ')}) AND isfinite(TRY_CAST(${e} AS DOUBLE)))`,
+    value: `TRY_CAST(${e} AS DOUBLE)`,
+  }),
   least: (exprs) => leastTree(exprs, 100, 'LEAST'),
   // One list search: DuckDB plans a CASE of k branches in time growing with k² (2 s at k = 300).
   firstEqual: (exprs, value) => `CASE WHEN ${value} IS NULL THEN NULL ELSE list_position(list_value(${exprs.join(', ')}), ${value}) END`,

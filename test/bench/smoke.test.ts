@@ -26,6 +26,7 @@ const CASE_FUNCTIONS: Record<string, string> = {
   'ward-small': 'agglomerate',
   'average-small': 'agglomerate',
   'ward-memory': 'agglomerate',
+  'database-refine': 'refineInDatabase',
 };
 
 interface Line {

@@ -176,3 +176,44 @@ describe.each(['duckdb', 'sqlite', 'postgres', 'clickhouse'] as const)('profileI
     expect(html).toContain('O&#39;Hare');
   });
 });
+
+describe('profileInDatabase with quantiles: approximate', () => {
+  /** The share of the values at or below v: for the quantile p it should be p, give or take a step. */
+  function rankShare(column: number, segment: number | null, v: number): number {
+    const values = ROWS.filter((_, i) => segment === null || segmentation.assignment[i] === segment - 1).map((r) => Number(r[column]));
+    return values.filter((x) => x <= v).length / values.length;
+  }
+
+  it('gives DuckDB approx_quantile figures within 1 % of the values in rank (the stated bound), the rest exact', async () => {
+    const duckdb = engines.find((e) => e.dialect === 'duckdb')!;
+    const result = await profileInDatabase(duckdb, definition, { table: 'riders', quantiles: 'approximate' });
+    expect(result.quantiles).toMatch(/^approximate: DuckDB approx_quantile/);
+    const exact = await profileInDatabase(duckdb, definition, { table: 'riders' });
+    for (const [g, group] of [...result.segments, result.allRows].entries()) {
+      const other = [...exact.segments, exact.allRows][g];
+      for (const [column, name] of [
+        [1, 'trips'],
+        [2, 'spend'],
+      ] as const) {
+        const c = group.columns.find((x) => x.name === name)!;
+        if (c.kind !== 'numeric') throw new Error('numeric expected');
+        [c.q1, c.median, c.q3].forEach((v, i) => {
+          const p = [0.25, 0.5, 0.75][i];
+          const share = rankShare(column, group.segment, v);
+          expect(Math.abs(share - p), `${name}, segment ${group.segment}, p = ${p}: ${v} holds ${share} of the values`).toBeLessThanOrEqual(
+            0.01 + 1e-12,
+          );
+        });
+        // Everything else is the exact profile's.
+        expect({ ...c, q1: 0, median: 0, q3: 0 }).toEqual({ ...other.columns.find((x) => x.name === name)!, q1: 0, median: 0, q3: 0 });
+      }
+    }
+  });
+
+  it('is refused when misspelt', async () => {
+    const duckdb = engines.find((e) => e.dialect === 'duckdb')!;
+    await expect(profileInDatabase(duckdb, definition, { table: 'riders', quantiles: 'approx' as never })).rejects.toThrow(
+      /exact.*approximate/,
+    );
+  });
+});

@@ -3,11 +3,12 @@
 // means and variances, level counts, and the order statistics behind the quartiles. Nothing is
 // written to the database. The result is the cards' SegmentProfile[] plus the plain summaries.
 //
-// Quantiles are exact (Hyndman & Fan type 7, linear interpolation between order statistics, as
+// Quantiles are exact by default (Hyndman & Fan type 7, linear interpolation between order statistics, as
 // src/core/quantile.ts): DuckDB quantile_cont and PostgreSQL percentile_cont interpolate in the
 // engine (equal to kinsort's to a few units in the last place); on ClickHouse (sorted arrays) and
 // SQLite (window-function ranks) the engine returns the two order statistics around each position
-// and kinsort interpolates them with its own formula.
+// and kinsort interpolates them with its own formula. Exact order statistics need every value of a
+// column in the engine at once; `quantiles: 'approximate'` takes DuckDB's approx_quantile instead.
 import { KinsortError } from '../../core/errors';
 import { checkInteger, checkOptions } from '../../core/options';
 import { report, type ProgressCallback } from '../../core/progress';
@@ -43,6 +44,13 @@ export interface DatabaseProfileOptions {
   idColumn?: string;
   /** How many variables each card lists as standing out (default 6). */
   top?: number;
+  /**
+   * 'exact' (default): exact order statistics on every engine — the engine holds every value of a
+   * column while it computes them (DuckDB and ClickHouse in memory; PostgreSQL and SQLite sort).
+   * 'approximate': DuckDB's approx_quantile (a t-digest of fixed size per segment), for tables
+   * whose columns do not fit in the engine's memory; the other engines compute them exactly.
+   */
+  quantiles?: 'exact' | 'approximate';
   /** Called after each query ("profile queries", done of total). */
   onProgress?: ProgressCallback;
 }
@@ -71,6 +79,9 @@ const QUANTILE_WORDS: Record<string, string> = {
   clickhouse: 'exact: order statistics from arraySort(groupArray(...)), type-7 interpolation by kinsort',
 };
 
+const APPROXIMATE_WORDS =
+  'approximate: DuckDB approx_quantile (t-digest); within 1 % of the values in rank in the tests (test/engines/profile-in-database.test.ts)';
+
 const num = (v: unknown): number => (v === null || v === undefined ? NaN : Number(v));
 
 /** A segment number from the engine: 1..k, or undefined for rows with none. */
@@ -88,13 +99,17 @@ export async function profileInDatabase(
   options: DatabaseProfileOptions,
 ): Promise<DatabaseProfile> {
   const where = 'profileInDatabase';
-  const opts = checkOptions(options, ['table', 'idColumn', 'top', 'onProgress'], where);
+  const opts = checkOptions(options, ['table', 'idColumn', 'top', 'quantiles', 'onProgress'], where);
   if (typeof engine?.query !== 'function') {
     throw new KinsortError(`${where}: give an engine { dialect, query } (duckdbEngine, postgresEngine, or your own).`, 'bad-argument');
   }
   if (opts.table === undefined || opts.table === null)
     throw new KinsortError(`${where}: give the table, e.g. { table: "riders" }.`, 'bad-argument');
   const top = opts.top === undefined ? 6 : checkInteger(opts.top, `${where} top`, 1);
+  if (opts.quantiles !== undefined && opts.quantiles !== 'exact' && opts.quantiles !== 'approximate') {
+    throw new KinsortError(`${where}: quantiles is 'exact' or 'approximate', not ${JSON.stringify(String(opts.quantiles))}.`, 'bad-option');
+  }
+  const approximate = opts.quantiles === 'approximate' && engine.dialect === 'duckdb';
   const d = dialectNamed(engine.dialect);
   const prep = definition.preparation as unknown as Preparation;
   const k = definition.segments.length;
@@ -203,7 +218,7 @@ export async function profileInDatabase(
   const totalCount = (j: number) => counts[j].reduce((a, b) => a + b, 0);
   if (numeric.length > 0) {
     if (d.name === 'duckdb' || d.name === 'postgres') {
-      for (const row of await run(interpolatedQuantilesSql(source, numeric, d))) {
+      for (const row of await run(interpolatedQuantilesSql(source, numeric, d, approximate))) {
         const slot = num(row.kinsort_all) === 1 ? k : segmentOf(row.segment, k)! - 1;
         for (const j of numeric) quantiles[j][slot] = PROBABILITIES.map((p) => num(row[quantileName(j, p)]));
       }
@@ -310,5 +325,5 @@ export async function profileInDatabase(
     names: definition.segments.map((s) => ({ title: s.title, text: s.text })),
     top,
   });
-  return { profiles, segments, allRows, unscored, typical, quantiles: QUANTILE_WORDS[d.name], queries };
+  return { profiles, segments, allRows, unscored, typical, quantiles: approximate ? APPROXIMATE_WORDS : QUANTILE_WORDS[d.name], queries };
 }

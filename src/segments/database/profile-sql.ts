@@ -44,19 +44,36 @@ export function profiledSource(
   const id = q(idColumn ?? (prep.idColumn as string));
   const r = (j: number) => q(`kinsort_r_${j + 1}`);
   const t = (j: number) => q(`kinsort_t_${j + 1}`);
+  // A number stored as such is read directly where the dialect can tell (as the scoring SQL does).
+  const native = decimalMark === '.' ? d.nativeNumber : undefined;
+  const n = (j: number) => q(`kinsort_n_${j + 1}`);
+  const stored = (c: ProfiledColumn, j: number) => (native && c.kind === 'numeric' ? [n(j)] : []);
   const texts = [
     `${q(SEGMENT)}`,
     `${q(DISTANCE)}`,
     `${d.asText(id, 'id')} AS ${q(ID)}`,
-    ...columns.map((c, j) => `${d.asText(carriedName(j, d), c.name)} AS ${r(j)}`),
+    ...columns.flatMap((c, j) => {
+      const text = d.asText(carriedName(j, d), c.name);
+      if (!stored(c, j).length || !native) return [`${text} AS ${r(j)}`];
+      const x = carriedName(j, d);
+      return [`${x} AS ${n(j)}`, `CASE WHEN ${native(x).test} THEN NULL ELSE ${text} END AS ${r(j)}`];
+    }),
   ];
-  const trimmed = [q(SEGMENT), q(DISTANCE), q(ID), ...columns.flatMap((_, j) => [r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`])];
+  const trimmed = [
+    q(SEGMENT),
+    q(DISTANCE),
+    q(ID),
+    ...columns.flatMap((c, j) => [...stored(c, j), r(j), `${d.trimSpaces(r(j))} AS ${t(j)}`]),
+  ];
   const markers = ['', ...missingMarkers].map((m) => d.quoteString(m)).join(', ');
   const values = columns.map((c, j) => {
     const missing = `${r(j)} IS NULL OR ${t(j)} IN (${markers})`;
     // Numbers by the number grammar; levels exactly as stored (never trimmed).
     const value = c.kind === 'numeric' ? d.numberFromText(t(j), decimalMark) : r(j);
-    return `CASE WHEN ${missing} THEN NULL ELSE ${value} END AS ${q(cell(j))}`;
+    const byText = `CASE WHEN ${missing} THEN NULL ELSE ${value} END`;
+    if (!stored(c, j).length || !native) return `${byText} AS ${q(cell(j))}`;
+    const x = native(n(j));
+    return `CASE WHEN ${x.test} THEN ${x.value} ELSE ${byText} END AS ${q(cell(j))}`;
   });
   return (
     `SELECT ${[q(SEGMENT), q(DISTANCE), q(ID), ...values].join(', ')} FROM (\n` +
@@ -188,15 +205,19 @@ export const orderNames = { low: lowName, high: highName, size: (j: number) => `
 /**
  * DuckDB and PostgreSQL: the engine's own linear-interpolation quantile (quantile_cont,
  * percentile_cont: Hyndman & Fan type 7, over exact order statistics), per segment and for all
- * rows (segment NULL) in one pass through GROUPING SETS.
+ * rows (segment NULL) in one pass through GROUPING SETS. `approximate` (DuckDB): approx_quantile.
  */
-export function interpolatedQuantilesSql(source: string, numeric: readonly number[], d: SqlDialect): string {
+export function interpolatedQuantilesSql(source: string, numeric: readonly number[], d: SqlDialect, approximate = false): string {
   const q = (name: string) => d.quoteIdentifier(name);
   const parts = [q(SEGMENT), `GROUPING(${q(SEGMENT)}) AS ${q('kinsort_all')}`];
   for (const j of numeric) {
     for (const p of PROBABILITIES) {
       const x = q(cell(j));
-      const agg = d.name === 'duckdb' ? `quantile_cont(${x}, ${p})` : `percentile_cont(${p}) WITHIN GROUP (ORDER BY ${x})`;
+      // approx_quantile: a t-digest of fixed size per group, where the exact one holds every value.
+      const agg =
+        d.name === 'duckdb'
+          ? `${approximate ? 'approx_quantile' : 'quantile_cont'}(${x}, ${p})`
+          : `percentile_cont(${p}) WITHIN GROUP (ORDER BY ${x})`;
       parts.push(`${agg} AS ${q(quantileName(j, p))}`);
     }
   }
