@@ -45,27 +45,24 @@ async function main() {
   const fitted = kinsort.study(sample, { id: 'id' }).prepare({ scale: 'zscore' }).kmeans({ k, seed, restarts: 10 });
   const definition = fitted.definition().definition;
   lap('kmeansOnSample');
-  const refined = await kinsort.refineInDatabase(engine, definition, {
+  // The fluent path a user takes: Lloyd over every row, then the profiles in SQL (approximate
+  // quartiles: exact ones would hold every value of a column in DuckDB's memory).
+  const whole = await fitted.refineInDatabase(engine, {
     table: 'points',
     maxIterations: 100,
+    quantiles: 'approximate',
     onProgress: (/** @type {{ done: number, detail?: string }} */ e) =>
-      process.stderr.write(`database child: iteration ${e.done} ${e.detail ?? ''}\n`),
+      process.stderr.write(`database child: ${e.done} ${e.detail ?? ''}\n`),
   });
-  lap('refine');
-  // The refined centres in the definition (the training figures stay the sample's: only the
-  // centres are read by the scoring SQL and the profiles).
-  const refinedDefinition = {
-    ...definition,
-    segments: definition.segments.map((/** @type {object} */ s, /** @type {number} */ i) => ({ ...s, center: refined.centers[i] })),
-  };
-  const sql = kinsort.loadDefinition(refinedDefinition).toSql({ table: 'points', engine });
+  const refined = whole.population;
+  if (!refined) throw new Error('refineInDatabase gave no whole-table figures');
+  lap('refineAndProfile');
+  const sql = whole.definition().toSql({ table: 'points', engine });
   const scored = await engine.query(
     `SELECT count(*) AS rows, sum(distance * distance) AS ss, count(DISTINCT segment) AS segments FROM (${sql}) AS s`,
   );
   lap('score');
-  // Exact quartiles would hold every value of a column in DuckDB's memory: approx_quantile here.
-  const profile = await kinsort.profileInDatabase(engine, refinedDefinition, { table: 'points', quantiles: 'approximate' });
-  lap('profile');
+  const profile = refined.profile;
   const totalMs = Number(process.hrtime.bigint() - start) / 1e6;
   const prep = definition.preparation;
   process.stdout.write(

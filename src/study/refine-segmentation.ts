@@ -25,6 +25,11 @@ export interface RefineSegmentationOptions {
   maxIterations?: number;
   /** Id column of the table, for the profiles' typical members (default: the study's id column). */
   idColumn?: string;
+  /**
+   * The profiles' quartiles: 'exact' (default) or 'approximate' (DuckDB's approx_quantile; exact ones
+   * hold every value of a column in the engine at once, too much for a table larger than memory).
+   */
+  quantiles?: 'exact' | 'approximate';
   onProgress?: ProgressCallback;
 }
 
@@ -61,7 +66,7 @@ export async function refineSegmentation(
   /** The definition of a segmentation made of these parts, with the start's names. */
   definitionOf: (parts: SegmentationParts) => SegmentDefinition,
 ): Promise<SegmentationParts> {
-  const opts = checkOptions(options, ['table', 'tolerance', 'maxIterations', 'idColumn', 'onProgress'], WHERE);
+  const opts = checkOptions(options, ['table', 'tolerance', 'maxIterations', 'idColumn', 'quantiles', 'onProgress'], WHERE);
   if (start.method !== 'kmeans') {
     throw new KinsortError(
       `${WHERE}: only a k-means segmentation can be refined over a table (Lloyd iterations move each centre to its segment's mean); ` +
@@ -110,7 +115,12 @@ export async function refineSegmentation(
     data: start.data,
   };
   // The profiles need the refined definition, names included.
-  const profile = await profileInDatabase(engine, definitionOf(parts), { table: opts.table, idColumn: opts.idColumn, onProgress });
+  const profile = await profileInDatabase(engine, definitionOf(parts), {
+    table: opts.table,
+    idColumn: opts.idColumn,
+    quantiles: opts.quantiles,
+    onProgress,
+  });
   const source = `table ${JSON.stringify(typeof opts.table === 'string' ? opts.table : opts.table.join('.'))}`;
   const how =
     refined.stoppedBy === 'no-row-moved'
