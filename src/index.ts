@@ -240,7 +240,3 @@ export type { MembershipTable } from './study/mixture-parts';
 // HDBSCAN with noise and GLOSH outlier scores.
 export { densitySegments, NOISE } from './methods/density';
 export type { DensitySegmentsOptions, DensitySegmentsResult, DensityBranch } from './methods/density';
-export { buildDensityDefinition } from './segments/definition-dense-build';
-export type { BuildDensityDefinitionInput } from './segments/definition-dense-build';
-export { DENSE_ROW_LIMIT, nearestDenseRows } from './segments/dense-rows';
-export type { DenseRows, DenseResult } from './segments/dense-rows';

@@ -111,3 +111,9 @@ export { Study, PreparedStudy, Segmentation, Hierarchy, VariableHierarchy } from
 export type { SegmentationParts } from './study';
 export { ruleAgreement, settleKmeans, SETTLE_MAX_STEPS, definitionHandle } from './study';
 export type { Settled } from './study';
+
+// ─── Density definitions: the stored dense rows and their builder (the fluent density() writes them) ──
+export { buildDensityDefinition } from './segments/definition-dense-build';
+export type { BuildDensityDefinitionInput } from './segments/definition-dense-build';
+export { DENSE_ROW_LIMIT, nearestDenseRows } from './segments/dense-rows';
+export type { DenseRows, DenseResult } from './segments/dense-rows';

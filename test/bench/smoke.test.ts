@@ -27,6 +27,7 @@ const CASE_FUNCTIONS: Record<string, string> = {
   'average-small': 'agglomerate',
   'ward-memory': 'agglomerate',
   'database-refine': 'refineInDatabase',
+  mixture: 'gaussianMixture',
 };
 
 interface Line {
