@@ -122,12 +122,18 @@ describe('the demo notebooks in the tslab kernel', () => {
       'profile-cards',
       'profile-cards',
       'segment-rules',
+      'projection',
+      'projection',
+      'mixture-evidence',
     ]);
     const bundles = outputsOf('01-pass-holder-segments').map((o) => html(o).split('window.__kinsortDefine=window.define').length - 1);
     expect(bundles.reduce((a, b) => a + b, 0)).toBe(1);
     const s = streams('01-pass-holder-segments');
     expect(s).toContain('reloaded and reassigned 2000 holders: all in the same segment');
     expect(s).toMatch(/weekend_share: \d+ missing, filled with/);
+    // The section beyond round segments: noise counted, uncertain holders counted, the BIC choice named.
+    expect(s).toMatch(/The mixture is uncertain of \d+ of the \d+ noise holders/);
+    expect(s).toMatch(/Lowest BIC: k = \d+, (full|diagonal|spherical|tied) covariance\./);
     // The named cards carry the analyst's names.
     const named = outputsOf('01-pass-holder-segments')
       .map(html)
