@@ -2,7 +2,7 @@
 // PostgreSQL 15 and ClickHouse 18.16 (two shards behind a Distributed table): every row gets the same
 // segment (0 for noise), distance to 1e-9 relative and far flag. Outside checks: the engines.
 // The stored-row guard of toSql is checked too.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { prepareTable, type PrepareOptions } from '../../src/prepare';
 import { densitySegments } from '../../src/methods/density';
 import { buildDensityDefinition } from '../../src/segments/definition-dense-build';
@@ -10,22 +10,11 @@ import { loadDefinition, type DefinitionHandle } from '../../src/study/definitio
 import { takeRows } from '../../src/core/matrix';
 import { segmentMeans } from '../../src/study/centres';
 import { createRandom } from '../../src/random';
-import { serverAvailable, useServer } from '../servers/servers';
-import { clickhouseTestEngine, duckdbTestEngine, postgresTestEngine, sqliteTestEngine, type TestEngine } from './adapters';
+import { engineTitles, useDatabaseEngines } from '../database/database-engines';
 import { asRecords, expectSameEverywhere, type TextRows } from './score-everywhere';
 
-const pg = serverAvailable.postgres ? useServer('postgres') : undefined;
-const ch = serverAvailable.clickhouse ? useServer('clickhouse') : undefined;
-const engines: TestEngine[] = [];
-
-beforeAll(async () => {
-  engines.push(await duckdbTestEngine(), await sqliteTestEngine());
-  if (pg) engines.push(await postgresTestEngine(pg.server));
-  if (ch) engines.push(clickhouseTestEngine(ch.server));
-}, 120_000);
-afterAll(async () => {
-  for (const e of engines) await e.close();
-});
+// The four engines (servers started once for the file; see test/database/database-engines.ts).
+const engines = useDatabaseEngines().all;
 
 const COLUMNS = ['stop', 'boardings', 'spend', 'zone'];
 const OPTIONS: PrepareOptions = {
@@ -67,7 +56,7 @@ function fitDensity(rows: TextRows, metric: 'euclidean' | 'manhattan' | 'sqeucli
   return loadDefinition(JSON.stringify(built));
 }
 
-describe(`density SQL on ${['DuckDB', 'SQLite', pg && 'PostgreSQL 15', ch && 'ClickHouse 18.16 (two shards)'].filter(Boolean).join(', ')}`, () => {
+describe(`density SQL on ${engineTitles}`, () => {
   for (const metric of ['euclidean', 'manhattan', 'sqeuclidean'] as const) {
     it(`nearest-dense-row, ${metric}: segment, noise, distance and far as assign gives them`, async () => {
       const handle = fitDensity(rowsOf('t', 7, 25, 8), metric);

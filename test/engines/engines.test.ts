@@ -4,28 +4,18 @@
 // every row the same segment and distance. Outside checks: the engines themselves; the text rule
 // is kinsort-text-1 (docs/stored-schema.md). Tables hold every cell as text, as loaded from CSV.
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { kmeans, kmedoids } from '../../src/methods/partition';
 import { prepareTable, type PrepareOptions } from '../../src/prepare';
 import { buildDefinition } from '../../src/segments/definition-exports';
 import { loadDefinition, type DefinitionHandle } from '../../src/study/definition-handle';
 import { definitionToSql } from '../../src/segments/sql';
-import { serverAvailable, useServer } from '../servers/servers';
-import { clickhouseTestEngine, duckdbTestEngine, postgresTestEngine, sqliteTestEngine, type TestEngine } from './adapters';
+import { serverAvailable } from '../servers/servers';
+import { engineTitles, useDatabaseEngines } from '../database/database-engines';
 import { asRecords, expectSameEverywhere, type TextRows } from './score-everywhere';
 
-const pg = serverAvailable.postgres ? useServer('postgres') : undefined;
-const ch = serverAvailable.clickhouse ? useServer('clickhouse') : undefined;
-const engines: TestEngine[] = [];
-
-beforeAll(async () => {
-  engines.push(await duckdbTestEngine(), await sqliteTestEngine());
-  if (pg) engines.push(await postgresTestEngine(pg.server));
-  if (ch) engines.push(clickhouseTestEngine(ch.server));
-}, 120_000);
-afterAll(async () => {
-  for (const e of engines) await e.close();
-});
+// The four engines (servers started once for the file; see test/database/database-engines.ts).
+const engines = useDatabaseEngines().all;
 
 function fit(columns: readonly string[], rows: TextRows, options: PrepareOptions, k: number, seed = 3): DefinitionHandle {
   const prepared = prepareTable(asRecords(columns, rows), options);
@@ -98,7 +88,7 @@ const AWKWARD: (string | null)[][] = [
   ['n-exp', '-1.25E-3', '2e+2', 'a\u00a0b', 'True'],
 ];
 
-describe(`scoring SQL on ${['DuckDB', 'SQLite', pg && 'PostgreSQL 15', ch && 'ClickHouse 18.16 (two shards)'].filter(Boolean).join(', ')}`, () => {
+describe(`scoring SQL on ${engineTitles}`, () => {
   it('every awkward cell means what it means to assign, on every engine', async () => {
     const handle = fit(COLUMNS, training(60), OPTIONS, 3);
     await expectSameEverywhere(handle, engines, 'riders_train', COLUMNS, training(60));
@@ -384,7 +374,7 @@ describe('hostile text from a definition or a table name never runs as SQL (issu
     }
   });
 
-  it.skipIf(!pg)('PostgreSQL with standard_conforming_strings off reads the same backslash levels', async () => {
+  it.skipIf(!serverAvailable.postgres)('PostgreSQL with standard_conforming_strings off reads the same backslash levels', async () => {
     const engine = engines.find((e) => e.dialect === 'postgres')!;
     const handle = fit(HOSTILE_COLUMNS, hostileRows(24, 't'), hostileOptions, 2);
     await engine.query('SET standard_conforming_strings = off');

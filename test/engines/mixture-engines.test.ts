@@ -3,28 +3,17 @@
 // same Mahalanobis distance and posterior probability (1e-9 relative) and the same far flag, for
 // all four covariance shapes, on training rows and on awkward new rows. Outside checks: the
 // engines themselves.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { gaussianMixture, type CovarianceShape } from '../../src/methods/mixture';
 import { prepareTable, type PrepareOptions } from '../../src/prepare';
 import { buildDefinition } from '../../src/segments/definition-exports';
 import { loadDefinition, type DefinitionHandle } from '../../src/study/definition-handle';
 import { createRandom } from '../../src/random';
-import { serverAvailable, useServer } from '../servers/servers';
-import { clickhouseTestEngine, duckdbTestEngine, postgresTestEngine, sqliteTestEngine, type TestEngine } from './adapters';
+import { engineTitles, useDatabaseEngines } from '../database/database-engines';
 import { asRecords, closeEnough, type TextRows } from './score-everywhere';
 
-const pg = serverAvailable.postgres ? useServer('postgres') : undefined;
-const ch = serverAvailable.clickhouse ? useServer('clickhouse') : undefined;
-const engines: TestEngine[] = [];
-
-beforeAll(async () => {
-  engines.push(await duckdbTestEngine(), await sqliteTestEngine());
-  if (pg) engines.push(await postgresTestEngine(pg.server));
-  if (ch) engines.push(clickhouseTestEngine(ch.server));
-}, 120_000);
-afterAll(async () => {
-  for (const e of engines) await e.close();
-});
+// The four engines (servers started once for the file; see test/database/database-engines.ts).
+const engines = useDatabaseEngines().all;
 
 const COLUMNS = ['holder', 'visits', 'spend', 'tenure', 'zone'];
 const OPTIONS: PrepareOptions = {
@@ -106,7 +95,7 @@ async function expectSameEverywhere(handle: DefinitionHandle, table: string, row
   }
 }
 
-describe(`mixture scoring SQL on ${['DuckDB', 'SQLite', pg && 'PostgreSQL 15', ch && 'ClickHouse 18.16 (two shards)'].filter(Boolean).join(', ')}`, () => {
+describe(`mixture scoring SQL on ${engineTitles}`, () => {
   it.each(['full', 'diagonal', 'spherical', 'tied'] as const)(
     '%s covariance: training rows and awkward rows agree with assign',
     async (shape) => {

@@ -5,14 +5,14 @@
 // order statistics interpolated by kinsort (SQLite, ClickHouse: equal to the last bit), or by the
 // engine (DuckDB quantile_cont, PostgreSQL percentile_cont: 1e-12 relative). Outside checks: the
 // engines themselves; the in-memory side is profileSegments (src/segments/profile.ts).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { createRandom } from '../../src/random';
 import { profileInDatabase } from '../../src/segments/database/profile-in-database';
 import type { SegmentProfile } from '../../src/segments/profile';
 import { study } from '../../src/study/study';
 import { profileCardsView } from '../../src/views/cards';
-import { serverAvailable, useServer } from '../servers/servers';
-import { clickhouseTestEngine, duckdbTestEngine, postgresTestEngine, sqliteTestEngine, type TestEngine } from './adapters';
+import { serverAvailable } from '../servers/servers';
+import { useDatabaseEngines } from '../database/database-engines';
 
 const COLUMNS = ['rider', 'trips', 'spend', 'zone', 'fare', 'plan'];
 const ZONES = ['Zürich', ' 1', '01', "O'Hare", 'a\u00a0b'];
@@ -113,21 +113,14 @@ function quartilesInMemory(column: number, segment: number | null): number[] {
   });
 }
 
-const pg = serverAvailable.postgres ? useServer('postgres') : undefined;
-const ch = serverAvailable.clickhouse ? useServer('clickhouse') : undefined;
-const engines: TestEngine[] = [];
+// The four engines (servers started once for the file; see test/database/database-engines.ts).
+const engines = useDatabaseEngines().all;
 beforeAll(async () => {
-  engines.push(await duckdbTestEngine(), await sqliteTestEngine());
-  if (pg) engines.push(await postgresTestEngine(pg.server));
-  if (ch) engines.push(clickhouseTestEngine(ch.server));
   for (const engine of engines) await engine.loadText('riders', COLUMNS, [...ROWS, ...REFUSED]);
 }, 120_000);
-afterAll(async () => {
-  for (const e of engines) await e.close();
-});
 
 describe.each(['duckdb', 'sqlite', 'postgres', 'clickhouse'] as const)('profileInDatabase on %s', (dialect) => {
-  const skip = (dialect === 'postgres' && !pg) || (dialect === 'clickhouse' && !ch);
+  const skip = (dialect === 'postgres' && !serverAvailable.postgres) || (dialect === 'clickhouse' && !serverAvailable.clickhouse);
   const engine = () => engines.find((e) => e.dialect === dialect)!;
   // Interpolated by the engine (a few units in the last place) or by kinsort from exact order statistics.
   const quantileTolerance = dialect === 'duckdb' || dialect === 'postgres' ? 1e-12 : 0;
