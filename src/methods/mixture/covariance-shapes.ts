@@ -10,6 +10,15 @@ export type CovarianceShape = 'full' | 'diagonal' | 'spherical' | 'tied';
 export const COVARIANCE_SHAPES: readonly CovarianceShape[] = ['full', 'diagonal', 'spherical', 'tied'];
 
 /**
+ * Responsibilities below this are left out of the M-step sums (means and covariances), as exact
+ * zeros are. On separated components most row–component pairs are far below it, and skipping them
+ * halves the M-step; what is left out is at most n · 1e-12 of a row's weight per component (1e-7
+ * at 100,000 rows), far inside the log-likelihood checks (1e-6 relative). Component sizes and
+ * weights still add every responsibility.
+ */
+export const NEGLIGIBLE_RESPONSIBILITY = 1e-12;
+
+/**
  * Free parameters of a mixture of k components in d dimensions: k − 1 weights, k × d means and
  * the covariance figures of the shape (full: k·d(d+1)/2, diagonal: k·d, spherical: k, tied:
  * d(d+1)/2). BIC counts these.
@@ -55,7 +64,7 @@ export function estimateCovariances(
     };
     for (let i = 0; i < n; i++) {
       const r = resp[i * k + c];
-      if (r === 0) continue;
+      if (r < NEGLIGIBLE_RESPONSIBILITY) continue; // left out, as in the means (em-step.ts)
       if (pending < 0) {
         pending = i;
         pendingR = r;

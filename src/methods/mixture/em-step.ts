@@ -1,7 +1,7 @@
 // One EM iteration for a Gaussian mixture (Dempster, Laird & Rubin 1977): the E-step turns
 // weighted log-densities into membership probabilities by log-sum-exp (and gives the
 // log-likelihood); the M-step re-estimates weights, means and covariances from them.
-import { estimateCovariances, type CovarianceShape } from './covariance-shapes';
+import { estimateCovariances, NEGLIGIBLE_RESPONSIBILITY, type CovarianceShape } from './covariance-shapes';
 
 /** Smallest component size used in divisions, so that an emptied component does not give 0 / 0 (10 machine epsilons). */
 const SIZE_FLOOR = 10 * Number.EPSILON;
@@ -57,8 +57,8 @@ export function maximisation(
     const x = i * d;
     for (let c = 0; c < k; c++) {
       const r = resp[i * k + c];
-      if (r === 0) continue;
       nk[c] += r;
+      if (r < NEGLIGIBLE_RESPONSIBILITY) continue;
       const m = c * d;
       for (let j = 0; j < d; j++) means[m + j] += r * data[x + j];
     }
