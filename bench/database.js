@@ -5,41 +5,19 @@
 // process whose peak resident memory (node and DuckDB together) is measured. A second child holds
 // every row in memory (not capped) and runs Lloyd from the same start: the within-SS of the two
 // must agree within 0.1 %. The data are written once per run by DuckDB (not timed).
-const { spawn } = require('child_process');
 const fs = require('fs');
 const path = require('path');
 const { writeParquet } = require('./database-data');
+const { runJsonChild } = require('./json-child');
 
 /**
  * @param {string[]} args
  * @param {number} timeoutMs
  * @returns {Promise<any>} the child's last JSON line, or { error }
  */
-function runChild(args, timeoutMs) {
-  return new Promise((resolve) => {
-    const child = spawn(process.execPath, args, { stdio: ['ignore', 'pipe', 'pipe'] });
-    let out = '';
-    let err = '';
-    const timer = setTimeout(() => child.kill('SIGKILL'), timeoutMs);
-    child.stdout.on('data', (c) => (out += c));
-    child.stderr.on('data', (c) => {
-      err = (err + c).slice(-2000);
-      // The child's phases as they end, for whoever watches a long run.
-      process.stderr.write(String(c).replace(/^/gm, '    '));
-    });
-    child.on('exit', (code, signal) => {
-      clearTimeout(timer);
-      if (code === 0) {
-        try {
-          return resolve(JSON.parse(/** @type {string} */ (out.trim().split('\n').pop())));
-        } catch {
-          /* below */
-        }
-      }
-      const why = signal === 'SIGKILL' ? `stopped after ${timeoutMs / 1000} s` : `ended with ${signal ?? code}`;
-      resolve({ error: `${why}: ${err.split('\n').slice(0, 4).join(' ')}` });
-    });
-  });
+async function runChild(args, timeoutMs) {
+  const r = await runJsonChild(args, timeoutMs, { echo: true });
+  return 'value' in r ? r.value : { error: `${r.failure}: ${r.stderr.slice(0, 4).join(' ')}` };
 }
 
 /**

@@ -1,7 +1,7 @@
 'use strict';
 // The memory case: Ward from vectors at n = 30,000. kinsort runs in a child node process, SciPy in
 // a fresh python process, so each peak resident set size belongs to that computation alone.
-const { spawn } = require('child_process');
+const { runJsonChild } = require('./json-child');
 const path = require('path');
 const { timePythonOnce } = require('./python-peer');
 const { availableMB } = require('./machine');
@@ -16,29 +16,10 @@ const { targetText, verdict } = require('./compare');
  * @param {number} timeoutMs
  * @returns {Promise<ChildMeasure>}
  */
-function runKinsortChild(distDir, set, method, timeoutMs) {
+async function runKinsortChild(distDir, set, method, timeoutMs) {
   const args = [path.join(__dirname, 'memory-child.js'), distDir, set.dataFile, String(set.n), String(set.d), method];
-  return new Promise((resolve) => {
-    const child = spawn(process.execPath, args, { stdio: ['ignore', 'pipe', 'pipe'] });
-    let out = '';
-    let err = '';
-    const timer = setTimeout(() => child.kill('SIGKILL'), timeoutMs);
-    child.stdout.on('data', (c) => (out += c));
-    child.stderr.on('data', (c) => (err = (err + c).slice(-2000)));
-    child.on('exit', (code, signal) => {
-      clearTimeout(timer);
-      if (code === 0) {
-        try {
-          // No last line: JSON.parse(undefined) throws into the catch, as before typing.
-          return resolve(JSON.parse(/** @type {string} */ (out.trim().split('\n').pop())));
-        } catch {
-          /* fall through to the failure below */
-        }
-      }
-      const why = signal === 'SIGKILL' ? `stopped after ${timeoutMs / 1000} s` : `ended with ${signal ?? code}`;
-      resolve({ ms: NaN, peakMB: NaN, note: `kinsort child ${why}: ${err.split('\n').slice(0, 3).join(' ')}` });
-    });
-  });
+  const r = await runJsonChild(args, timeoutMs);
+  return 'value' in r ? r.value : { ms: NaN, peakMB: NaN, note: `kinsort child ${r.failure}: ${r.stderr.slice(0, 3).join(' ')}` };
 }
 
 // SciPy at n = 30,000 took 77 s on a quiet run here (7 GB peak); a loaded machine needs longer.
