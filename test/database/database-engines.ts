@@ -1,7 +1,8 @@
 // The four engines for a test file of the database passes: DuckDB and SQLite in memory always,
 // PostgreSQL 15 and the two-shard ClickHouse when their servers can start (useServer; with
 // KINSORT_REQUIRE_SERVERS=1 a server that cannot start fails the file instead of skipping it).
-import { afterAll, beforeAll } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
+import { KinsortError } from '../../src/core/errors';
 import { dialectNamed } from '../../src/engines/dialects';
 import { clickhouseHttp, serverAvailable, useServer, type ClickHouseServer } from '../servers/servers';
 import { clickhouseTestEngine, duckdbTestEngine, postgresTestEngine, sqliteTestEngine, type TestEngine } from '../engines/adapters';
@@ -54,4 +55,18 @@ export async function loadOneClickHouseTable(
   );
   const values = rows.map((r) => `(${r.map((c) => (c === null ? 'NULL' : d.quoteString(c))).join(', ')})`).join(',\n');
   await clickhouseHttp(port, `INSERT INTO ${d.quoteIdentifier(table)} VALUES ${values}`);
+}
+
+/** The engine's name as kinsort's messages give it. */
+export const engineTitle = (e: TestEngine): string =>
+  ({ duckdb: 'DuckDB', sqlite: 'SQLite', postgres: 'PostgreSQL', clickhouse: 'ClickHouse' })[e.dialect];
+
+/** The KinsortError a call is refused with (the test fails when it is not refused, or not with one). */
+export async function refusal(run: () => Promise<unknown>): Promise<KinsortError> {
+  const error = await run().then(
+    () => undefined,
+    (e: unknown) => e,
+  );
+  expect(error).toBeInstanceOf(KinsortError);
+  return error as KinsortError;
 }

@@ -6,7 +6,6 @@
 // and the same centres and within-SS to 1e-9 relative (the stated bound for n ≤ 10^6 is far
 // below that: n·2⁻⁵³ ≈ 1e-10 at worst for these 3,000 rows).
 import { describe, expect, it } from 'vitest';
-import { KinsortError } from '../../src/core/errors';
 import type { Matrix } from '../../src/core/matrix';
 import { createRandom } from '../../src/random';
 import { applyPreparation } from '../../src/prepare';
@@ -14,8 +13,7 @@ import type { Preparation } from '../../src/prepare/types';
 import type { SegmentDefinition } from '../../src/segments/definition-types';
 import { refineInDatabase, type DatabaseRefinement } from '../../src/segments/database/refine';
 import { study } from '../../src/study';
-import { engineTitles, loadOneClickHouseTable, type DatabaseEngines } from './database-engines';
-import type { TestEngine } from '../engines/adapters';
+import { engineTitle, engineTitles, loadOneClickHouseTable, refusal, type DatabaseEngines } from './database-engines';
 
 const COLUMNS = ['rider', 'trips', 'peak', 'spend', 'zone'];
 type Row = (string | null)[];
@@ -191,19 +189,9 @@ export function refineCases(engines: DatabaseEngines): void {
     });
   });
 
-  async function refusal(run: () => Promise<unknown>): Promise<KinsortError> {
-    const error = await run().then(
-      () => undefined,
-      (e: unknown) => e,
-    );
-    expect(error).toBeInstanceOf(KinsortError);
-    return error as KinsortError;
-  }
-
   describe(`refineInDatabase refuses clearly, naming the engine, on ${engineTitles}`, () => {
     const rows = riders(200, 5);
     const definition = sampleDefinition(rows, 200, 3);
-    const title = (e: TestEngine) => ({ duckdb: 'DuckDB', sqlite: 'SQLite', postgres: 'PostgreSQL', clickhouse: 'ClickHouse' })[e.dialect];
 
     it('a missing table or column', async () => {
       for (const engine of engines.all) {
@@ -213,9 +201,9 @@ export function refineCases(engines: DatabaseEngines): void {
           rows.map((r) => r.filter((_, j) => j !== 2)),
         );
         const noTable = await refusal(() => refineInDatabase(engine, definition, { table: 'no_riders' }));
-        expect(noTable.message).toContain(`refineInDatabase on ${title(engine)}: table "no_riders" cannot be read`);
+        expect(noTable.message).toContain(`refineInDatabase on ${engineTitle(engine)}: table "no_riders" cannot be read`);
         const noColumn = await refusal(() => refineInDatabase(engine, definition, { table: 'riders_short' }));
-        expect(noColumn.message).toContain(`refineInDatabase on ${title(engine)}: table "riders_short" has no column "peak"`);
+        expect(noColumn.message).toContain(`refineInDatabase on ${engineTitle(engine)}: table "riders_short" has no column "peak"`);
       }
     });
 

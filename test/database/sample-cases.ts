@@ -3,12 +3,10 @@
 // (MD5 by Node's crypto, FNV-1a + MurmurHash3 finaliser in plain integer arithmetic), and every
 // engine must return exactly the rows with the smallest keys, in key order.
 import { describe, expect, it } from 'vitest';
-import { KinsortError } from '../../src/core/errors';
 import { sampleFromDatabase, type DatabaseSample } from '../../src/engines/sample';
 import { sampleKeyFnv, sampleKeyMd5 } from '../../src/engines/sample-order';
 import { study } from '../../src/study';
-import { engineTitles, loadOneClickHouseTable, type DatabaseEngines } from './database-engines';
-import type { TestEngine } from '../engines/adapters';
+import { engineTitle, engineTitles, loadOneClickHouseTable, refusal, type DatabaseEngines } from './database-engines';
 
 const COLUMNS = ['rider', 'trips', 'zone'];
 /** Ids of every kind the text rule keeps: leading zeros, spaces, accents, emoji, quotes. */
@@ -131,25 +129,14 @@ export function sampleCases(engines: DatabaseEngines): void {
     });
   });
 
-  async function refusal(run: () => Promise<unknown>): Promise<KinsortError> {
-    const error = await run().then(
-      () => undefined,
-      (e: unknown) => e,
-    );
-    expect(error).toBeInstanceOf(KinsortError);
-    return error as KinsortError;
-  }
-
   describe(`sampleFromDatabase refuses clearly, naming the engine, on ${engineTitles}`, () => {
-    const title = (e: TestEngine) => ({ duckdb: 'DuckDB', sqlite: 'SQLite', postgres: 'PostgreSQL', clickhouse: 'ClickHouse' })[e.dialect];
-
     it('a table that is not there, a column that is not there', async () => {
       for (const engine of engines.all) {
         await engine.loadText('riders', COLUMNS, table(20));
         const noTable = await refusal(() => sampleFromDatabase(engine, { table: 'no_such_riders', id: 'rider', rows: 5 }));
-        expect(noTable.message).toContain(`sampleFromDatabase on ${title(engine)}: table "no_such_riders" cannot be read`);
+        expect(noTable.message).toContain(`sampleFromDatabase on ${engineTitle(engine)}: table "no_such_riders" cannot be read`);
         const noColumn = await refusal(() => sampleFromDatabase(engine, { table: 'riders', id: 'rider', rows: 5, columns: ['tripz'] }));
-        expect(noColumn.message).toContain(`on ${title(engine)}: table "riders" has no column "tripz"`);
+        expect(noColumn.message).toContain(`on ${engineTitle(engine)}: table "riders" has no column "tripz"`);
         const noId = await refusal(() => sampleFromDatabase(engine, { table: 'riders', id: 'rider_id', rows: 5 }));
         expect(noId.message).toContain('has no column "rider_id"');
       }
