@@ -277,6 +277,9 @@ export function projectionView(projection: ProjectionLike, assignment: ArrayLike
   for (let s = 0; s < k; s++) {
     const rows: number[] = [];
     for (let i = 0; i < n; i++) if (labels[i] === s && !isNoise[i]) rows.push(i);
+    // The legend shows a trace's first marker: certain rows first, so a segment is not keyed as an
+    // open ring because its first row happens to be uncertain (the uncertain ones then draw on top).
+    if (opts.uncertain) rows.sort((a, b) => Number(unsure(a)) - Number(unsure(b)) || a - b);
     data.push({
       type: traceType,
       mode: 'markers',
