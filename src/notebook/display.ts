@@ -78,22 +78,24 @@ export type KernelBundle = Record<string, string> | Promise<Record<string, strin
 
 /**
  * The MIME bundle for a kernel that asks the value itself how to draw it (Deno reads the method
- * at Symbol.for('Jupyter.display') on a cell's result). Given synchronously: Deno 2.9 run
- * headless loses a cell's value now and then when this method returns a promise, and also when
- * the value is as large as the plotting bundle. So when the bundle is still due, it goes out
- * first as a display of its own, and the value carries only the view.
+ * at Symbol.for('Jupyter.display') on a cell's result). Deno 2.9 reports the cell finished
+ * without waiting for the execute_result it sends from this bundle to leave, and a headless run
+ * then loses the value now and then (measured: up to 6 cells in 15; see deno-kernel.ts). So in
+ * Deno the view goes out as a display of its own, which is waited for, and the value's own bundle
+ * is empty: nothing is drawn twice, and nothing is lost if that empty result comes late.
  */
 export function jupyterBundle(request: ShowRequest, title: string): KernelBundle {
   const kernel = currentKernel();
-  if (kernel?.settled && bundleDue(request)) {
-    plottingSent = true;
-    void kernel.html(plottingScript());
-    return { 'text/html': request.fragment, 'text/plain': title };
+  if (kernel?.settled) {
+    const settled = kernel.settled.bind(kernel);
+    return (async () => {
+      await kernel.html(notebookHtml(request));
+      await settled();
+      return {};
+    })();
   }
   return { 'text/html': notebookHtml(request), 'text/plain': title };
 }
-
-const bundleDue = (request: ShowRequest): boolean => !isLightNotebook() && request.needsPlotting && !plottingSent;
 
 /**
  * After show(): in Deno's kernel, a promise that settles once the display has been sent (a cell
