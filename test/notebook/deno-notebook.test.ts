@@ -134,7 +134,8 @@ describe("the Deno notebook in Deno's kernel", () => {
     expect(views(full)).toEqual(EXPECTED);
     // A view left as a cell's value displays itself in its own cell and hands Deno an empty
     // result (src/notebook/display.ts), so it is drawn once and never lost after the cell ends.
-    const ending = (line: RegExp) => fullCells.find((c) => c.cell_type === 'code' && line.test(text(c.source).trim().split('\n').pop() ?? ''));
+    const ending = (line: RegExp) =>
+      fullCells.find((c) => c.cell_type === 'code' && line.test(text(c.source).trim().split('\n').pop() ?? ''));
     for (const [line, view] of [
       [/^seg\.projection\(/, 'projection'],
       [/^seg\.cards\(\)$/, 'profile-cards'],

@@ -274,7 +274,11 @@ describe('the packed tarball installed into a fresh project', () => {
       ]),
     );
     const denoEnv = { ...process.env, JUPYTER_PATH: jupyterPath, DENO_NO_UPDATE_CHECK: '1', DENO_NO_PROMPT: '1' };
-    const outputs = await executeComplete('in-deno', denoEnv, (o) => viewsIn(o).length === 2 && o.some((x) => text(x.text).includes('sizes ')));
+    const outputs = await executeComplete(
+      'in-deno',
+      denoEnv,
+      (o) => viewsIn(o).length === 2 && o.some((x) => text(x.text).includes('sizes ')),
+    );
     expect(problems(outputs)).toEqual([]);
     expect(viewsIn(outputs)).toEqual(['silhouette', 'profile-cards']);
     const cjs = (await run('node', ['fit.cjs'], { cwd: project })).stdout.trim();
