@@ -45,7 +45,7 @@ export interface DensityBranch {
   readonly bornAtDistance: number;
   /** Rows it held when it appeared. */
   readonly rows: number;
-  /** Its excess of mass (the stability of Campello et al.). */
+  /** Its excess of mass (the stability of Campello et al.); NaN when identical rows make it infinite. */
   readonly excessOfMass: number;
   /** The segment it became (0-based), or -1 when it was not chosen. */
   readonly segment: number;

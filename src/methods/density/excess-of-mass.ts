@@ -1,11 +1,17 @@
 // Excess of mass (Campello, Moulavi & Sander 2013): each cluster's stability is the sum over its
 // rows of (λ at which the row leaves it − λ at which it was born); a child cluster's rows count
 // up to the child's birth. A row that split off inside a group too small to be a segment counts
-// up to the group's own level, not the λ where the group split off: R dbscan's convention
-// (measured: the stabilities it reports agree with this reading), kept because R's `hdbscan` is
-// our reference. Bottom-up, a cluster is chosen when its own stability is at least the
-// sum of its chosen descendants' (ties keep the larger cluster). The root is never chosen, so the
-// result always holds at least one split or only noise (as R dbscan's `hdbscan` does). O(clusters + n).
+// up to its level (CondensedTree.rowLevel), not the λ where the group split off: R dbscan's
+// convention (measured: the stabilities it reports agree with this reading), kept because R's
+// `hdbscan` is our reference. Bottom-up, a cluster is chosen when its own stability is at least
+// the sum of its chosen descendants' (ties keep the larger cluster). The root is never chosen, so
+// the result always holds at least one split or only noise (as R dbscan's `hdbscan` does).
+//
+// Identical rows (distance 0, λ = Infinity) make a stability infinite. R reports it as NaN, and
+// a comparison with NaN never prefers the children, so the parent of such a cluster is kept whole
+// (measured on hand-made cases: a parent of stability 3.96 kept over children with a duplicated
+// pair and 1998). We do the same by storing NaN, which the `>` below reads the same way.
+// O(clusters + n).
 import { CondensedTree } from './condensed-tree';
 
 export interface Selection {
@@ -18,13 +24,14 @@ export interface Selection {
 }
 
 export function selectByExcessOfMass(tree: CondensedTree): Selection {
-  const { clusterCount, parent, birth, rowCluster, rowJoins } = tree;
+  const { clusterCount, parent, birth, rowCluster, rowLevel } = tree;
   const stability = new Float64Array(clusterCount);
   for (let r = 0; r < rowCluster.length; r++) {
     const c = rowCluster[r];
-    stability[c] += span(birth[c], rowJoins[r]);
+    stability[c] += span(birth[c], rowLevel[r]);
   }
   for (let c = 1; c < clusterCount; c++) stability[parent[c]] += tree.rows[c] * span(birth[parent[c]], birth[c]);
+  for (let c = 0; c < clusterCount; c++) if (stability[c] === Infinity) stability[c] = NaN;
   const best = Float64Array.from(stability);
   const childSum = new Float64Array(clusterCount);
   const hasChild = new Uint8Array(clusterCount);
