@@ -209,16 +209,27 @@ export function sampleSql(d: SqlDialect, from: string, idColumn: string, names: 
   const idText = d.asText(id, idColumn);
   const prefix = d.quoteString(sampleKeyText(seed, ''));
   const key = q('kinsort_key');
-  const cells = names.map((n, j) => `${d.asText(q(n), n)} AS ${q(`kinsort_c_${j + 1}`)}`);
   const byText = d.name === 'postgres' ? ' COLLATE "C"' : '';
   if (d.name !== 'sqlite') {
+    // The smallest keys are found over the stored cells, and only the chosen rows' cells are
+    // turned into text: converting every cell of the table first made the statement 5 times
+    // slower (DuckDB, 20 million rows × 9 columns: 16.9 s against 3.2 s, the same rows).
     const concat = d.name === 'clickhouse' ? `concat(${prefix}, ${idText})` : `${prefix} || ${idText}`;
-    return [
-      `SELECT ${[...cells, `${md5KeySql(d, concat)} AS ${key}`].join(',\n  ')}`,
+    const raw = (j: number) => q(`kinsort_r_${j + 1}`);
+    const idKept = q('kinsort_idt');
+    const chosen = [
+      `SELECT ${[...names.map((n, j) => `${q(n)} AS ${raw(j)}`), `${md5KeySql(d, concat)} AS ${key}`, `${idText} AS ${idKept}`].join(', ')}`,
       `FROM ${from}`,
       `WHERE ${id} IS NOT NULL`,
+      // PostgreSQL reads an output name only bare in ORDER BY, not under COLLATE: the expression.
       `ORDER BY ${key}, ${idText}${byText}`,
       `LIMIT ${limit}`,
+    ].join('\n');
+    const cells = names.map((n, j) => `${d.asText(raw(j), n)} AS ${q(`kinsort_c_${j + 1}`)}`);
+    return [
+      `SELECT ${[...cells, key].join(',\n  ')}`,
+      `FROM (\n${chosen}\n) AS ${q('kinsort_chosen')}`,
+      `ORDER BY ${key}, ${idKept}${byText}`,
     ].join('\n');
   }
   // SQLite: keys in a recursive query over the ids, the smallest `limit` chosen, then their rows.

