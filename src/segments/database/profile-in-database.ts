@@ -26,6 +26,7 @@ import {
   levelsSql,
   momentNames,
   momentsSql,
+  momentsWithQuantilesSql,
   orderNames,
   PROBABILITIES,
   profiledSource,
@@ -144,8 +145,13 @@ export async function profileInDatabase(
   const columns = [...used, ...kept];
   const numeric = columns.flatMap((c, j) => (c.kind === 'numeric' ? [j] : []));
   const categorical = columns.flatMap((c, j) => (c.kind === 'categorical' ? [j] : []));
+  // DuckDB reads the moments and the quartiles in one pass (profile-sql.ts, momentsWithQuantilesSql).
+  const together = d.name === 'duckdb' && numeric.length > 0;
   planned =
-    queries + 1 + categorical.length + (d.name === 'sqlite' ? 2 + numeric.length : d.name === 'clickhouse' ? 2 * numeric.length : 1);
+    queries +
+    1 +
+    categorical.length +
+    (d.name === 'sqlite' ? 2 + numeric.length : d.name === 'clickhouse' ? 2 * numeric.length : together ? 0 : 1);
 
   const source = profiledSource(definition, opts.table, d, columns, opts.idColumn);
 
@@ -158,8 +164,19 @@ export async function profileInDatabase(
   const maxs = columns.map(() => new Float64Array(k).fill(-Infinity));
   const typical: { id?: string; distance: number }[] = Array.from({ length: k }, () => ({ distance: NaN }));
   let unscored = 0;
-  for (const row of await run(momentsSql(source, columns, d))) {
+  // Quartiles and median per numeric column, per segment (index 0..k-1) and all rows (index k).
+  const quantiles = columns.map(() => Array.from({ length: k + 1 }, () => PROBABILITIES.map(() => NaN)));
+  const readQuantiles = (row: Record<string, unknown>, slot: number) => {
+    for (const j of numeric) quantiles[j][slot] = PROBABILITIES.map((p) => num(row[quantileName(j, p)]));
+  };
+  const momentsStatement = together ? momentsWithQuantilesSql(source, columns, numeric, d, approximate) : momentsSql(source, columns, d);
+  for (const row of await run(momentsStatement)) {
+    if (together && num(row.kinsort_all) === 1) {
+      readQuantiles(row, k);
+      continue;
+    }
     const s = segmentOf(row.segment, k);
+    if (together && s !== undefined) readQuantiles(row, s - 1);
     if (s === undefined) {
       unscored += num(row[momentNames.rows]);
       continue;
@@ -213,14 +230,12 @@ export async function profileInDatabase(
     missingLevels.set(j, missing);
   }
 
-  // 3. Quartiles and median per numeric column, per segment (index 0..k-1) and all rows (index k).
-  const quantiles = columns.map(() => Array.from({ length: k + 1 }, () => PROBABILITIES.map(() => NaN)));
+  // 3. Quartiles and median where the moments did not bring them.
   const totalCount = (j: number) => counts[j].reduce((a, b) => a + b, 0);
-  if (numeric.length > 0) {
+  if (numeric.length > 0 && !together) {
     if (d.name === 'duckdb' || d.name === 'postgres') {
       for (const row of await run(interpolatedQuantilesSql(source, numeric, d, approximate))) {
-        const slot = num(row.kinsort_all) === 1 ? k : segmentOf(row.segment, k)! - 1;
-        for (const j of numeric) quantiles[j][slot] = PROBABILITIES.map((p) => num(row[quantileName(j, p)]));
+        readQuantiles(row, num(row.kinsort_all) === 1 ? k : segmentOf(row.segment, k)! - 1);
       }
     } else if (d.name === 'clickhouse') {
       for (const j of numeric) {

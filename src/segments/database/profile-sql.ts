@@ -142,13 +142,10 @@ function typicalAggregate(d: SqlDialect): string | undefined {
   return undefined;
 }
 
-/**
- * Per segment (NULL: rows the definition gives no segment): rows, least distance, a typical
- * member's id, and per numeric column the count of values, mean, sample variance, least and most.
- */
-export function momentsSql(source: string, columns: readonly ProfiledColumn[], d: SqlDialect): string {
+/** The moment aggregates: rows, least distance, a typical member, and per numeric column the count, mean, variance, least and most. */
+function momentParts(columns: readonly ProfiledColumn[], d: SqlDialect): string[] {
   const q = (name: string) => d.quoteIdentifier(name);
-  const parts = [q(SEGMENT), `count(*) AS ${q(momentNames.rows)}`, `min(${q(DISTANCE)}) AS ${q(momentNames.least)}`];
+  const parts = [`count(*) AS ${q(momentNames.rows)}`, `min(${q(DISTANCE)}) AS ${q(momentNames.least)}`];
   const typical = typicalAggregate(d);
   if (typical) parts.push(`${typical} AS ${q(momentNames.typical)}`);
   columns.forEach((c, j) => {
@@ -159,7 +156,42 @@ export function momentsSql(source: string, columns: readonly ProfiledColumn[], d
     if (variance) parts.push(`${variance} AS ${q(momentNames.variance(j))}`);
     parts.push(`min(${x}) AS ${q(momentNames.min(j))}`, `max(${x}) AS ${q(momentNames.max(j))}`);
   });
-  return `SELECT ${parts.join(', ')} FROM (\n${source}\n) AS ${q('kinsort_profiled')} GROUP BY ${q(SEGMENT)}`;
+  return parts;
+}
+
+/**
+ * Per segment (NULL: rows the definition gives no segment): rows, least distance, a typical
+ * member's id, and per numeric column the count of values, mean, sample variance, least and most.
+ */
+export function momentsSql(source: string, columns: readonly ProfiledColumn[], d: SqlDialect): string {
+  const q = (name: string) => d.quoteIdentifier(name);
+  return `SELECT ${[q(SEGMENT), ...momentParts(columns, d)].join(', ')} FROM (\n${source}\n) AS ${q('kinsort_profiled')} GROUP BY ${q(SEGMENT)}`;
+}
+
+/**
+ * DuckDB: the moments and the quartiles in one pass over the table instead of two (measured on 20
+ * million rows × 8 columns with approximate quartiles: 28.9 s against 13.0 + 44.5 s). The
+ * grouping sets give one row per segment (NULL: the unscored rows, as in momentsSql) and one over
+ * all rows (kinsort_all = 1), whose moments are not read: the overall moments are combined from
+ * the segments' (exactly, as before). The quantiles leave the unscored rows out by a FILTER.
+ * PostgreSQL keeps two statements: its typical member aggregates every id of a group into an
+ * array, which over all rows would hold every id of the table.
+ */
+export function momentsWithQuantilesSql(
+  source: string,
+  columns: readonly ProfiledColumn[],
+  numeric: readonly number[],
+  d: SqlDialect,
+  approximate: boolean,
+): string {
+  const q = (name: string) => d.quoteIdentifier(name);
+  const lists = quantileLists(numeric, d, approximate, `${q(SEGMENT)} IS NOT NULL`);
+  const inner = [q(SEGMENT), `GROUPING(${q(SEGMENT)}) AS ${q('kinsort_all')}`, ...momentParts(columns, d), ...lists.aggregates];
+  return (
+    `SELECT ${[`${q('kinsort_grouped')}.*`, ...lists.elements].join(', ')} FROM (\n` +
+    `SELECT ${inner.join(', ')} FROM (\n${source}\n) AS ${q('kinsort_profiled')} GROUP BY GROUPING SETS ((${q(SEGMENT)}), ())\n` +
+    `) AS ${q('kinsort_grouped')}`
+  );
 }
 
 /** SQLite: per segment, the sum of squared deviations from the segment's own mean (second pass). */
@@ -212,10 +244,31 @@ export const orderNames = { low: lowName, high: highName, size: (j: number) => `
  */
 export function interpolatedQuantilesSql(source: string, numeric: readonly number[], d: SqlDialect, approximate = false): string {
   const q = (name: string) => d.quoteIdentifier(name);
+  const lists = quantileLists(numeric, d, approximate);
+  const inner = [q(SEGMENT), `GROUPING(${q(SEGMENT)}) AS ${q('kinsort_all')}`, ...lists.aggregates];
+  return (
+    `SELECT ${[q(SEGMENT), q('kinsort_all'), ...lists.elements].join(', ')} FROM (\n` +
+    `SELECT ${inner.join(', ')} FROM (\n${source}\n) AS ${q('kinsort_profiled')} WHERE ${q(SEGMENT)} IS NOT NULL GROUP BY GROUPING SETS ((${q(SEGMENT)}), ())\n` +
+    `) AS ${q('kinsort_lists')}`
+  );
+}
+
+/**
+ * One quantile aggregate per column over the list of probabilities (named kinsort_ql_j), and the
+ * outer SELECT's names for the list's elements; `filter` keeps only the rows it admits.
+ */
+function quantileLists(
+  numeric: readonly number[],
+  d: SqlDialect,
+  approximate: boolean,
+  filter?: string,
+): { aggregates: string[]; elements: string[] } {
+  const q = (name: string) => d.quoteIdentifier(name);
   const list = (j: number) => q(`kinsort_ql_${j + 1}`);
   const probabilities = PROBABILITIES.join(', ');
-  const inner = [q(SEGMENT), `GROUPING(${q(SEGMENT)}) AS ${q('kinsort_all')}`];
-  const outer = [q(SEGMENT), q('kinsort_all')];
+  const only = filter ? ` FILTER (WHERE ${filter})` : '';
+  const aggregates: string[] = [];
+  const elements: string[] = [];
   for (const j of numeric) {
     const x = q(cell(j));
     // approx_quantile: a t-digest of fixed size per group, where the exact one holds every value.
@@ -223,14 +276,10 @@ export function interpolatedQuantilesSql(source: string, numeric: readonly numbe
       d.name === 'duckdb'
         ? `${approximate ? 'approx_quantile' : 'quantile_cont'}(${x}, [${probabilities}])`
         : `percentile_cont(ARRAY[${probabilities}]::double precision[]) WITHIN GROUP (ORDER BY ${x})`;
-    inner.push(`${agg} AS ${list(j)}`);
-    PROBABILITIES.forEach((p, i) => outer.push(`${list(j)}[${i + 1}] AS ${q(quantileName(j, p))}`));
+    aggregates.push(`${agg}${only} AS ${list(j)}`);
+    PROBABILITIES.forEach((p, i) => elements.push(`${list(j)}[${i + 1}] AS ${q(quantileName(j, p))}`));
   }
-  return (
-    `SELECT ${outer.join(', ')} FROM (\n` +
-    `SELECT ${inner.join(', ')} FROM (\n${source}\n) AS ${q('kinsort_profiled')} WHERE ${q(SEGMENT)} IS NOT NULL GROUP BY GROUPING SETS ((${q(SEGMENT)}), ())\n` +
-    `) AS ${q('kinsort_lists')}`
-  );
+  return { aggregates, elements };
 }
 
 /**
