@@ -27,8 +27,8 @@ const views = (outputs: Output[]) =>
 const BUNDLE = 'window.__kinsortDefine=window.define';
 
 let env: NodeJS.ProcessEnv;
-let full: Output[] = [];
 let fullCells: Cell[] = [];
+let full: Output[] = [];
 let light: Output[] = [];
 let browser: Browser;
 
@@ -51,23 +51,22 @@ const complete = (outputs: Output[]) =>
   progressOf(outputs).filter((h) => h.includes('· done')).length === 2 &&
   LINES.every((l) => printed(outputs).includes(l));
 
-async function execute(output: string, extra: NodeJS.ProcessEnv = {}): Promise<Output[]> {
-  let outputs: Output[] = [];
+const outputsOf = (cells: Cell[]): Output[] => cells.flatMap((c) => c.outputs ?? []);
+
+async function execute(output: string, extra: NodeJS.ProcessEnv = {}): Promise<Cell[]> {
+  let cells: Cell[] = [];
   for (let attempt = 1; attempt <= 5; attempt++) {
-    outputs = await executeOnce(output, extra);
+    cells = await executeOnce(output, extra);
+    const outputs = outputsOf(cells);
     if (outputs.some((o) => o.output_type === 'error') || complete(outputs)) {
       if (attempt > 1) console.log(`${output}: complete on run ${attempt} (Deno's kernel lost a printed line or display before)`);
       break;
     }
   }
-  return outputs;
+  return cells;
 }
 
-async function executeOnce(output: string, extra: NodeJS.ProcessEnv): Promise<Output[]> {
-  return (await executeCells(output, extra)).flatMap((c) => c.outputs ?? []);
-}
-
-async function executeCells(output: string, extra: NodeJS.ProcessEnv): Promise<Cell[]> {
+async function executeOnce(output: string, extra: NodeJS.ProcessEnv): Promise<Cell[]> {
   // nbclient waits 4 s by default for a cell's output after the kernel's reply, then drops the
   // rest with only a log line; the first chart carries the 5 MB plotting bundle, which can take
   // longer on a busy machine. Wait longer, and fail loudly if even that is not enough.
@@ -90,9 +89,9 @@ beforeAll(async () => {
   const jupyterPath = installDenoKernel(path.join(repo, 'node_modules/.bin/deno'), out);
   env = { ...process.env, JUPYTER_PATH: jupyterPath, DENO_NO_UPDATE_CHECK: '1', DENO_NO_PROMPT: '1' };
   delete env.KINSORT_LIGHT;
-  full = await execute('full');
-  fullCells = JSON.parse(fs.readFileSync(path.join(out, 'full.ipynb'), 'utf8')).cells;
-  light = await execute('light', { KINSORT_LIGHT: '1' });
+  fullCells = await execute('full');
+  full = outputsOf(fullCells);
+  light = outputsOf(await execute('light', { KINSORT_LIGHT: '1' }));
   await run('/usr/bin/jupyter', ['nbconvert', '--to', 'html', path.join(out, 'full.ipynb')], {
     env,
     timeout: 120_000,
@@ -121,10 +120,7 @@ describe("the Deno notebook in Deno's kernel", () => {
       (o) => o.output_type === 'error' || (o.output_type === 'stream' && (o.name === 'stderr' || /\bError\b/.test(text(o.text)))),
     );
     expect(bad.map((o) => `${o.ename ?? o.name}: ${o.evalue ?? text(o.text).slice(0, 300)}`)).toEqual([]);
-    const streams = full
-      .filter((o) => o.output_type === 'stream')
-      .map((o) => text(o.text))
-      .join('');
+    const streams = printed(full);
     expect(streams).toContain('Reloaded and reassigned 2000 holders: all in the same segment.');
     // Nothing went to a file: every view was shown inline.
     expect(streams).not.toContain('view written to');
