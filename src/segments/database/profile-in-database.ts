@@ -233,8 +233,8 @@ export async function profileInDatabase(
   // 3. Quartiles and median where the moments did not bring them.
   const totalCount = (j: number) => counts[j].reduce((a, b) => a + b, 0);
   if (numeric.length > 0 && !together) {
-    if (d.name === 'duckdb' || d.name === 'postgres') {
-      for (const row of await run(interpolatedQuantilesSql(source, numeric, d, approximate))) {
+    if (d.name === 'postgres') {
+      for (const row of await run(interpolatedQuantilesSql(source, numeric, d))) {
         readQuantiles(row, num(row.kinsort_all) === 1 ? k : segmentOf(row.segment, k)! - 1);
       }
     } else if (d.name === 'clickhouse') {
